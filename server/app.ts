@@ -1,0 +1,58 @@
+import { existsSync } from "node:fs";
+import path from "node:path";
+import express from "express";
+import helmet from "helmet";
+import { rateLimit } from "express-rate-limit";
+import { pinoHttp } from "pino-http";
+import { toNodeHandler } from "better-auth/node";
+import { auth } from "./auth";
+import { env } from "./env";
+import { logger } from "./logger";
+import { errorHandler, notFoundHandler } from "./middleware/error-handler";
+import { departmentsRouter } from "./routes/departments.routes";
+import { healthRouter } from "./routes/health.routes";
+import { meRouter } from "./routes/me.routes";
+
+export type AppOptions = { signInLimitPerMinute?: number; serveClient?: boolean };
+
+/** Builds the Express app: security headers, auth, JSON API routes, the built client, one error shape. */
+export function createApp(options: AppOptions = {}) {
+  const app = express();
+  app.disable("x-powered-by");
+  app.set("trust proxy", "loopback");
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === "/api/health" } }));
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: { "img-src": ["'self'", "data:", "blob:"], "connect-src": ["'self'", "ws:", "wss:"] },
+      },
+    }),
+  );
+
+  const signInLimiter = rateLimit({
+    windowMs: 60_000,
+    limit: options.signInLimitPerMinute ?? env.SIGN_IN_LIMIT_PER_MINUTE,
+    standardHeaders: "draft-8",
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      res.status(429).json({ error: { code: "too_many_attempts", message: "Too many sign-in attempts. Wait a minute and try again." } });
+    },
+  });
+  app.use(["/api/auth/sign-in", "/api/auth/sign-up", "/api/auth/request-password-reset"], signInLimiter);
+  // better-auth reads its own request bodies, so it is mounted before express.json().
+  app.all("/api/auth/*splat", toNodeHandler(auth));
+
+  app.use(express.json({ limit: "200kb" }));
+  app.use("/api/health", healthRouter);
+  app.use("/api/me", meRouter);
+  app.use("/api/departments", departmentsRouter);
+  app.use("/api", notFoundHandler);
+
+  const clientDir = path.join(env.projectRoot, "dist/client");
+  if ((options.serveClient ?? true) && existsSync(clientDir)) {
+    app.use(express.static(clientDir, { index: false, maxAge: "1h" }));
+    app.get("/*splat", (_req, res) => res.sendFile(path.join(clientDir, "index.html")));
+  }
+  app.use(errorHandler);
+  return app;
+}

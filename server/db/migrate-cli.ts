@@ -1,0 +1,6 @@
+import { pool } from "./client";
+import { runMigrations } from "./migrate";
+
+await runMigrations(pool);
+await pool.end();
+console.log("Migrations applied.");

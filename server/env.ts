@@ -1,0 +1,48 @@
+import { randomBytes } from "node:crypto";
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import path from "node:path";
+import { z } from "zod";
+
+const projectRoot = path.resolve(import.meta.dirname, "..");
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  HOST: z.string().default("127.0.0.1"),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  DATABASE_URL: z.string().url().default("postgres://postgres@127.0.0.1:54329/outroll"),
+  APP_ORIGIN: z.string().url().optional(),
+  BETTER_AUTH_SECRET: z.string().min(32).optional(),
+  LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
+  SIGN_IN_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(20),
+  DATA_DIR: z.string().default(path.join(projectRoot, ".data")),
+});
+
+export type Env = z.infer<typeof envSchema> & { appOrigin: string; authSecret: string; projectRoot: string };
+
+/** A secret generated once per machine and kept under .data/, so sessions survive restarts without any set-up. */
+function localAuthSecret(dataDir: string): string {
+  const file = path.join(dataDir, "auth-secret");
+  if (existsSync(file)) return readFileSync(file, "utf8").trim();
+  mkdirSync(dataDir, { recursive: true });
+  const secret = randomBytes(32).toString("hex");
+  writeFileSync(file, secret, { mode: 0o600 });
+  return secret;
+}
+
+/** Reads and checks the environment once; a bad value stops the process with a clear message. */
+export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
+  const parsed = envSchema.safeParse(source);
+  if (!parsed.success) {
+    const problems = parsed.error.issues.map((issue) => `  ${issue.path.join(".")}: ${issue.message}`).join("\n");
+    throw new Error(`Outroll cannot start: the environment is not valid.\n${problems}`);
+  }
+  const values = parsed.data;
+  return {
+    ...values,
+    projectRoot,
+    appOrigin: values.APP_ORIGIN ?? `http://127.0.0.1:${values.PORT}`,
+    authSecret: values.BETTER_AUTH_SECRET ?? localAuthSecret(values.DATA_DIR),
+  };
+}
+
+export const env = loadEnv();

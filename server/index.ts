@@ -1,0 +1,35 @@
+import { createServer } from "node:http";
+import { createApp } from "./app";
+import { pool } from "./db/client";
+import { runMigrations } from "./db/migrate";
+import { env } from "./env";
+import { logger } from "./logger";
+
+await runMigrations(pool);
+
+const app = createApp();
+const server = createServer(app);
+
+server.listen(env.PORT, env.HOST, () => {
+  const address = server.address();
+  const port = typeof address === "object" && address ? address.port : env.PORT;
+  console.log(`\nOutroll is running at http://${env.HOST}:${port}`);
+  console.log("Demo sign-ins are listed by the seed step above (README: Demo sign-ins).");
+  console.log("Press Ctrl-C to stop.");
+});
+
+let stopping = false;
+async function shutdown(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  logger.info({ signal }, "shutting down");
+  const forced = setTimeout(() => process.exit(1), 10_000);
+  forced.unref();
+  server.close(async () => {
+    await pool.end().catch(() => undefined);
+    process.exit(0);
+  });
+  server.closeAllConnections();
+}
+process.on("SIGINT", () => void shutdown("SIGINT"));
+process.on("SIGTERM", () => void shutdown("SIGTERM"));
