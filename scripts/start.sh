@@ -19,4 +19,4 @@ log "Applying migrations and demo data"
 npx tsx seed/index.ts
 log "Building the client"
 npx vite build --logLevel warn
-npx tsx server/index.ts
+node --import tsx server/index.ts

@@ -20,11 +20,26 @@ export function createApp(options: AppOptions = {}) {
   const app = express();
   app.disable("x-powered-by");
   app.set("trust proxy", "loopback");
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === "/api/health" } }));
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => req.url === "/api/health" || !req.url?.startsWith("/api") },
+      serializers: {
+        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+    }),
+  );
+  // Pupils' phones reach the app over plain http on the school network, so no HTTPS upgrade or HSTS here.
   app.use(
     helmet({
+      strictTransportSecurity: false,
       contentSecurityPolicy: {
-        directives: { "img-src": ["'self'", "data:", "blob:"], "connect-src": ["'self'", "ws:", "wss:"] },
+        directives: {
+          "img-src": ["'self'", "data:", "blob:"],
+          "connect-src": ["'self'", "ws:", "wss:"],
+          "upgrade-insecure-requests": null,
+        },
       },
     }),
   );
@@ -51,7 +66,7 @@ export function createApp(options: AppOptions = {}) {
   const clientDir = path.join(env.projectRoot, "dist/client");
   if ((options.serveClient ?? true) && existsSync(clientDir)) {
     app.use(express.static(clientDir, { index: false, maxAge: "1h" }));
-    app.get("/*splat", (_req, res) => res.sendFile(path.join(clientDir, "index.html")));
+    app.get("/{*splat}", (_req, res) => res.sendFile(path.join(clientDir, "index.html")));
   }
   app.use(errorHandler);
   return app;

@@ -25,6 +25,7 @@ const trustedOrigins = Array.from(
 
 export const auth = betterAuth({
   appName: "Outroll",
+  logger: { level: env.NODE_ENV === "test" ? "error" : "warn" },
   baseURL: env.appOrigin,
   basePath: "/api/auth",
   secret: env.authSecret,
