@@ -39,8 +39,13 @@ step() {
   if "$@"; then echo "passed $name" >> "$results"; else echo "failed $name" >> "$results"; fi
 }
 
-step "typecheck" npx tsc --noEmit -p tsconfig.json
-step "client build" npx vite build --logLevel warn
-step "vitest" npx vitest run --reporter=default --reporter=json --outputFile="$run_dir/vitest.json"
+# With arguments (test files or folders) only those run, for quick local loops; the full run takes none.
+if [ "$#" -eq 0 ]; then
+  step "typecheck" npx tsc --noEmit -p tsconfig.json
+fi
+if [ "$#" -eq 0 ] || printf '%s\n' "$@" | grep -q e2e; then
+  step "client build" npx vite build --logLevel warn
+fi
+step "vitest" npx vitest run --reporter=default --reporter=json --outputFile="$run_dir/vitest.json" "$@"
 
 node scripts/lib/summarize-tests.mjs "$results" "$run_dir/vitest.json"

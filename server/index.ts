@@ -1,14 +1,12 @@
-import { createServer } from "node:http";
-import { createApp } from "./app";
 import { pool } from "./db/client";
 import { runMigrations } from "./db/migrate";
 import { env } from "./env";
+import { createHttpServer } from "./http-server";
 import { logger } from "./logger";
 
 await runMigrations(pool);
 
-const app = createApp();
-const server = createServer(app);
+const { server, io } = createHttpServer();
 
 server.listen(env.PORT, env.HOST, () => {
   const address = server.address();
@@ -25,6 +23,7 @@ async function shutdown(signal: string) {
   logger.info({ signal }, "shutting down");
   const forced = setTimeout(() => process.exit(1), 10_000);
   forced.unref();
+  io.close();
   server.close(async () => {
     await pool.end().catch(() => undefined);
     process.exit(0);

@@ -7,3 +7,9 @@ export const productAreas = [
   { path: "/app/runs", label: "Class runs", summary: "Run a lesson live: pupils record rolls on phones." },
   { path: "/app/results", label: "Results", summary: "Past class runs, exports, Paper import and reports." },
 ] as const;
+
+export type ProductAreaLabel = (typeof productAreas)[number]["label"];
+
+export function productArea(label: ProductAreaLabel) {
+  return productAreas.find((area) => area.label === label)!;
+}

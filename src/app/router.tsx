@@ -6,7 +6,7 @@ import { LandingRoute } from "./routes/landing";
 import { NotFoundRoute } from "./routes/not-found";
 import { SignInRoute } from "./routes/sign-in";
 import { SignUpRoute } from "./routes/sign-up";
-import { productAreas } from "./product-areas";
+import { productArea } from "./product-areas";
 
 export const router = createBrowserRouter([
   { path: "/", element: <LandingRoute /> },
@@ -17,7 +17,18 @@ export const router = createBrowserRouter([
     element: <AppLayout />,
     children: [
       { index: true, element: <HomeRoute /> },
-      ...productAreas.map((area) => ({ path: area.path, element: <AreaPreview area={area} /> })),
+      // Dice bench
+      { path: "bench/*", element: <AreaPreview area={productArea("Dice bench")} /> },
+      // Set finder
+      { path: "finder/*", element: <AreaPreview area={productArea("Set finder")} /> },
+      // Lessons
+      { path: "lessons/*", element: <AreaPreview area={productArea("Lessons")} /> },
+      // Department shelf
+      { path: "shelf/*", element: <AreaPreview area={productArea("Department shelf")} /> },
+      // Class runs
+      { path: "runs/*", element: <AreaPreview area={productArea("Class runs")} /> },
+      // Results
+      { path: "results/*", element: <AreaPreview area={productArea("Results")} /> },
       { path: "*", element: <NotFoundRoute inShell /> },
     ],
   },

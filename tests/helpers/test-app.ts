@@ -1,18 +1,25 @@
 import type { AddressInfo } from "node:net";
-import { createServer, type Server } from "node:http";
-import { createApp, type AppOptions } from "../../server/app";
+import type { Server } from "node:http";
+import type { Server as SocketServer } from "socket.io";
+import type { AppOptions } from "../../server/app";
+import { createHttpServer } from "../../server/http-server";
 
-export type TestApp = { baseUrl: string; server: Server; close: () => Promise<void> };
+export type TestApp = { baseUrl: string; server: Server; io: SocketServer; close: () => Promise<void> };
 
-/** Starts the real Express app on an ephemeral loopback port. */
+/** Starts the real Express app, with socket.io, on an ephemeral loopback port. */
 export async function startTestApp(options: AppOptions = {}): Promise<TestApp> {
-  const server = createServer(createApp({ serveClient: false, ...options }));
+  const { server, io } = createHttpServer({ serveClient: false, ...options });
   await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
   const { port } = server.address() as AddressInfo;
   return {
     baseUrl: `http://127.0.0.1:${port}`,
     server,
-    close: () => new Promise((resolve) => server.close(() => resolve())),
+    io,
+    close: () =>
+      new Promise((resolve) => {
+        io.close();
+        server.close(() => resolve());
+      }),
   };
 }
 

@@ -6,3 +6,8 @@ export { verification } from "./verifications";
 export { organization } from "./departments";
 export { member } from "./department-members";
 export { invitation } from "./invitations";
+export { diceSet } from "./dice-sets";
+export { lesson } from "./lessons";
+export { lessonTemplate, lessonTemplateVersion, shelfProposal } from "./lesson-templates";
+export { lessonAttachment } from "./lesson-attachments";
+export { classRun, runGroup, guessVote, paperImport, roll } from "./class-runs";

@@ -1,0 +1,20 @@
+import type { Server as HttpServer } from "node:http";
+import { Server } from "socket.io";
+import { env } from "../env";
+
+export type RealtimeServer = Server;
+
+/** Each feature's socket.io handlers, registered on one server. */
+const featureHandlers: ((io: Server) => void)[] = [];
+
+/** socket.io on the app's own HTTP server; pupils' phones and the Run board share it. */
+export function attachRealtime(server: HttpServer): Server {
+  const io = new Server(server, {
+    path: "/socket.io",
+    serveClient: false,
+    maxHttpBufferSize: 64 * 1024,
+    cors: { origin: [env.appOrigin], credentials: true },
+  });
+  for (const register of featureHandlers) register(io);
+  return io;
+}

@@ -1,0 +1,65 @@
+import { z } from "zod";
+import { dieFacesSchema } from "../probability/die";
+import { SET_SIZE_MAX, SET_SIZE_MIN } from "../probability/dice-set";
+
+/** Our palette: every colour comes with its own pattern, so no die is told apart by colour alone. */
+export const diePalette = [
+  { colour: "teal", pattern: "dots", hex: "#0f766e" },
+  { colour: "amber", pattern: "stripes", hex: "#b45309" },
+  { colour: "plum", pattern: "checks", hex: "#7e22ce" },
+  { colour: "slate", pattern: "waves", hex: "#475569" },
+  { colour: "coral", pattern: "triangles", hex: "#c2410c" },
+  { colour: "moss", pattern: "crosses", hex: "#4d7c0f" },
+  { colour: "ocean", pattern: "rings", hex: "#1d4ed8" },
+  { colour: "sand", pattern: "zigzags", hex: "#a16207" },
+] as const;
+
+export const dieColourSchema = z.enum(diePalette.map((entry) => entry.colour) as [string, ...string[]]);
+export type DieColour = (typeof diePalette)[number]["colour"];
+export const diePatternSchema = z.enum(diePalette.map((entry) => entry.pattern) as [string, ...string[]]);
+export type DiePattern = (typeof diePalette)[number]["pattern"];
+
+export const diceSetVisibilitySchema = z.enum(["private", "department"]);
+export type DiceSetVisibility = z.infer<typeof diceSetVisibilitySchema>;
+
+/** One die of a stored set: a teacher-given name, its faces, and its colour and pattern from our palette. */
+export const setDieSchema = z.object({
+  name: z.string().trim().min(1, "Give each die a name.").max(40, "Keep a die's name under 40 characters."),
+  faces: dieFacesSchema,
+  colour: dieColourSchema,
+  pattern: diePatternSchema,
+});
+export type SetDie = z.infer<typeof setDieSchema>;
+
+export const setDiceSchema = z
+  .array(setDieSchema)
+  .min(SET_SIZE_MIN, `A dice set needs at least ${SET_SIZE_MIN} dice.`)
+  .max(SET_SIZE_MAX, `A dice set can have at most ${SET_SIZE_MAX} dice.`)
+  .refine((dice) => new Set(dice.map((die) => die.name.toLowerCase())).size === dice.length, {
+    message: "Each die in a set needs its own name.",
+  });
+
+/** What a teacher sends to create a dice set. */
+export const diceSetInputSchema = z.object({
+  name: z.string().trim().min(1, "Name the dice set.").max(80, "Keep the name under 80 characters."),
+  description: z.string().trim().max(2000, "Keep the description under 2000 characters.").default(""),
+  visibility: diceSetVisibilitySchema.default("private"),
+  dice: setDiceSchema,
+});
+export type DiceSetInput = z.infer<typeof diceSetInputSchema>;
+
+/** An update carries the version the teacher started from; a stale one is refused. */
+export const diceSetUpdateSchema = diceSetInputSchema.extend({ version: z.number().int().positive() });
+export type DiceSetUpdate = z.infer<typeof diceSetUpdateSchema>;
+
+/** A stored dice set as the API answers it. */
+export type DiceSet = DiceSetInput & {
+  id: string;
+  version: number;
+  ownerId: string;
+  ownerName: string;
+  departmentId: string | null;
+  isOwner: boolean;
+  createdAt: string;
+  updatedAt: string;
+};
