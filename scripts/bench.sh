@@ -1,8 +1,22 @@
 #!/usr/bin/env bash
 # npm run bench: speed and memory figures, printed as tables (targets are in the README; nothing here asserts).
+# Benchmarks that need PostgreSQL get a throwaway cluster of their own through BENCH_DATABASE_URL.
 set -euo pipefail
 source "$(dirname "$0")/lib/setup.sh"
 ensure_node_modules
+ensure_postgres_package
+
+free_port() { node -e "const s=require('net').createServer().listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})"; }
+run_dir=$(mktemp -d /tmp/outroll-bench-XXXXXX)
+chmod 755 "$run_dir"
+pg_port=$(free_port)
+trap 'stop_cluster "$run_dir/postgres"; rm -rf "$run_dir"' EXIT
+start_cluster "$run_dir/postgres" "$pg_port"
+ensure_database "$pg_port" outroll_bench
+export BENCH_DATABASE_URL="postgres://postgres@127.0.0.1:$pg_port/outroll_bench"
+export BENCH_PG_PORT="$pg_port"
+export BENCH_DATA_DIR="$run_dir/data"
+mkdir -p "$BENCH_DATA_DIR"
 
 log "Probability engine"
 npx tsx scripts/bench/engine.ts
