@@ -44,7 +44,7 @@ if [ "$#" -eq 0 ]; then
   step "typecheck" npx tsc --noEmit -p tsconfig.json
 fi
 if [ "$#" -eq 0 ] || printf '%s\n' "$@" | grep -q e2e; then
-  step "client build" npx vite build --logLevel warn
+  step "client build" env NODE_ENV=production npx vite build --logLevel warn
 fi
 step "vitest" npx vitest run --reporter=default --reporter=json --outputFile="$run_dir/vitest.json" "$@"
 

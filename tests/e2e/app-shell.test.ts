@@ -40,13 +40,31 @@ describe("the app shell in chromium", () => {
     const nav = page.getByRole("navigation", { name: "Product areas" });
     const labels = await nav.getByRole("link").allTextContents();
     expect(labels).toEqual(["Dice bench", "Set finder", "Lessons", "Department shelf", "Class runs", "Results"]);
-    await expect(page.getByText("Teacher · Maths, Harbourside Academy").isVisible()).resolves.toBe(true);
+    await page.getByText("Teacher · Maths, Harbourside Academy").waitFor();
     await screenshot(page, "app-home-laptop");
 
     await page.getByRole("button", { name: "Sign out" }).click();
     await page.waitForURL(`${appUrl}/`);
     await page.goto(`${appUrl}/app`);
     await page.waitForURL(/\/sign-in\?next=/);
+    await page.close();
+  });
+
+  it("creates an account through the sign-up form and makes the new teacher head of their department", async () => {
+    const page = await browser.context.newPage();
+    await page.goto(`${appUrl}/sign-up`);
+    await page.getByRole("button", { name: "Create account" }).click();
+    await page.getByText("Enter your name as colleagues know it.").waitFor();
+    await page.getByLabel("Your name").fill("Morwenna Pike");
+    await page.getByLabel("School e-mail").fill(`morwenna-${Date.now()}@outroll-tests.test`);
+    await page.getByLabel("Password").fill("a-long-password");
+    await page.getByLabel("Your department").fill("Maths, Gullrock School");
+    await screenshot(page, "sign-up-laptop");
+    await page.getByRole("button", { name: "Create account" }).click();
+    await page.waitForURL(`${appUrl}/app`);
+    await page.getByText("Head of department · Maths, Gullrock School").waitFor();
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await page.waitForURL(`${appUrl}/`);
     await page.close();
   });
 

@@ -14,7 +14,7 @@ export function AppLayout() {
   const teacher = useCurrentTeacher();
   const signOut = useSignOut();
 
-  if (teacher.isPending) {
+  if (teacher.isPending || (!teacher.data && teacher.isFetching)) {
     return <p className="p-8 text-lg" role="status">Loading your department…</p>;
   }
   if (teacher.isError) {

@@ -11,6 +11,7 @@ export function useSignIn() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: signIn,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: currentTeacherQueryOptions.queryKey }),
+    // Wait for the fresh session, so the app shell never sees the signed-out answer cached earlier.
+    onSuccess: () => queryClient.fetchQuery({ ...currentTeacherQueryOptions, staleTime: 0 }),
   });
 }

@@ -13,6 +13,6 @@ export function useSignUp() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: signUp,
-    onSettled: () => queryClient.invalidateQueries({ queryKey: currentTeacherQueryOptions.queryKey }),
+    onSettled: () => queryClient.fetchQuery({ ...currentTeacherQueryOptions, staleTime: 0 }),
   });
 }
