@@ -28,6 +28,7 @@ export DATABASE_URL="postgres://postgres@127.0.0.1:$pg_port/outroll_test"
 export TEST_PG_PORT="$pg_port"
 export DATA_DIR="$run_dir/data"
 export SCREENSHOT_DIR="$project_root/screenshots"
+export CLIENT_DIR="$run_dir/client"
 export BETTER_AUTH_SECRET="test-secret-$(node -e "console.log(require('crypto').randomBytes(16).toString('hex'))")"
 mkdir -p "$DATA_DIR" "$SCREENSHOT_DIR"
 
@@ -44,7 +45,7 @@ if [ "$#" -eq 0 ]; then
   step "typecheck" npx tsc --noEmit -p tsconfig.json
 fi
 if [ "$#" -eq 0 ] || printf '%s\n' "$@" | grep -q e2e; then
-  step "client build" env NODE_ENV=production npx vite build --logLevel warn
+  step "client build" env NODE_ENV=production npx vite build --logLevel warn --outDir "$CLIENT_DIR"
 fi
 step "vitest" npx vitest run --reporter=default --reporter=json --outputFile="$run_dir/vitest.json" "$@"
 

@@ -10,7 +10,12 @@ import { env } from "./env";
 import { logger } from "./logger";
 import { errorHandler, notFoundHandler } from "./middleware/error-handler";
 import { departmentsRouter } from "./routes/departments.routes";
+import { devMailRouter } from "./routes/dev-mail.routes";
+import { invitationsRouter } from "./routes/invitations.routes";
+import { shelfRouter } from "./routes/shelf.routes";
+import { diceSetsRouter } from "./routes/dice-sets.routes";
 import { healthRouter } from "./routes/health.routes";
+import { lessonsRouter } from "./routes/lessons.routes";
 import { meRouter } from "./routes/me.routes";
 
 export type AppOptions = { signInLimitPerMinute?: number; serveClient?: boolean };
@@ -61,9 +66,14 @@ export function createApp(options: AppOptions = {}) {
   app.use("/api/health", healthRouter);
   app.use("/api/me", meRouter);
   app.use("/api/departments", departmentsRouter);
+  app.use("/api/dice-sets", diceSetsRouter);
+  app.use("/api/lessons", lessonsRouter);
+  app.use("/api/shelf", shelfRouter);
+  app.use("/api/invitations", invitationsRouter);
+  app.use("/api/dev", devMailRouter);
   app.use("/api", notFoundHandler);
 
-  const clientDir = path.join(env.projectRoot, "dist/client");
+  const clientDir = env.CLIENT_DIR;
   if ((options.serveClient ?? true) && existsSync(clientDir)) {
     app.use(express.static(clientDir, { index: false, maxAge: "1h" }));
     app.get("/{*splat}", (_req, res) => res.sendFile(path.join(clientDir, "index.html")));

@@ -15,6 +15,12 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   SIGN_IN_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(20),
   DATA_DIR: z.string().default(path.join(projectRoot, ".data")),
+  // Where the built client is served from; test runs build into a folder of their own.
+  CLIENT_DIR: z.string().default(path.join(projectRoot, "dist/client")),
+  // Without SMTP_URL the app starts its own local fake mail server (server/mail/fake-smtp-server.ts).
+  SMTP_URL: z.string().url().optional(),
+  MAIL_FROM: z.string().min(3).default("Outroll <no-reply@outroll.test>"),
+  FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(0),
 });
 
 export type Env = z.infer<typeof envSchema> & { appOrigin: string; authSecret: string; projectRoot: string };

@@ -24,7 +24,13 @@ function freePort(): Promise<number> {
 let server: ChildProcess | undefined;
 
 export async function setup(project: TestProject) {
-  if (!existsSync("dist/client/index.html")) execFileSync("npx", ["vite", "build", "--logLevel", "warn"], { stdio: "inherit", env: { ...process.env, NODE_ENV: "production" } });
+  const clientDir = process.env.CLIENT_DIR ?? "dist/client";
+  if (!existsSync(`${clientDir}/index.html`)) {
+    execFileSync("npx", ["vite", "build", "--logLevel", "warn", "--outDir", clientDir], {
+      stdio: "inherit",
+      env: { ...process.env, NODE_ENV: "production" },
+    });
+  }
   const base = process.env.DATABASE_URL!;
   const name = "outroll_e2e";
   const admin = new pg.Client({ connectionString: base });

@@ -50,5 +50,7 @@ export async function signInThroughUi(context: BrowserContext, appUrl: string, e
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL(`${appUrl}/app`);
+  // The URL changes before React Router commits the new screen; wait for the shell itself.
+  await page.getByRole("navigation", { name: "Product areas" }).waitFor();
   return page;
 }
