@@ -20,3 +20,12 @@ mkdir -p "$BENCH_DATA_DIR"
 
 log "Probability engine"
 npx tsx scripts/bench/engine.ts
+
+log "Set finder"
+npx tsx scripts/bench/set-finder.ts
+
+log "Results exports (100,000 rolls, in a database of their own on the bench cluster)"
+node --expose-gc --import tsx scripts/bench/results-export.ts
+
+log "Class run load (300 phones on loopback against the real server and PostgreSQL, then a bare socket.io ceiling)"
+npx tsx scripts/bench/class-run-load.ts

@@ -9,9 +9,17 @@ import { auth } from "./auth";
 import { env } from "./env";
 import { logger } from "./logger";
 import { errorHandler, notFoundHandler } from "./middleware/error-handler";
+import { classRunsRouter, padRouter } from "./routes/class-runs.routes";
 import { departmentsRouter } from "./routes/departments.routes";
+import { devMailRouter } from "./routes/dev-mail.routes";
+import { invitationsRouter } from "./routes/invitations.routes";
+import { shelfRouter } from "./routes/shelf.routes";
+import { diceSetsRouter } from "./routes/dice-sets.routes";
 import { healthRouter } from "./routes/health.routes";
+import { lessonsRouter } from "./routes/lessons.routes";
 import { meRouter } from "./routes/me.routes";
+import { setFinderRouter } from "./routes/set-finder.routes";
+import { resultsRouter } from "./routes/results.routes";
 
 export type AppOptions = { signInLimitPerMinute?: number; serveClient?: boolean };
 
@@ -61,6 +69,15 @@ export function createApp(options: AppOptions = {}) {
   app.use("/api/health", healthRouter);
   app.use("/api/me", meRouter);
   app.use("/api/departments", departmentsRouter);
+  app.use("/api/dice-sets", diceSetsRouter);
+  app.use("/api/set-finder", setFinderRouter);
+  app.use("/api/lessons", lessonsRouter);
+  app.use("/api/shelf", shelfRouter);
+  app.use("/api/invitations", invitationsRouter);
+  app.use("/api/dev", devMailRouter);
+  app.use("/api/results", resultsRouter);
+  app.use("/api/class-runs", classRunsRouter);
+  app.use("/api/pad", padRouter);
   app.use("/api", notFoundHandler);
 
   const clientDir = env.CLIENT_DIR;

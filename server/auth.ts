@@ -5,7 +5,11 @@ import { createAccessControl } from "better-auth/plugins/access";
 import { defaultStatements } from "better-auth/plugins/organization/access";
 import { db } from "./db/client";
 import * as schema from "./db/schema/index";
+import { PASSWORD_RESET_MINUTES } from "@shared/schemas/password-reset";
 import { env } from "./env";
+import { logger } from "./logger";
+import { sendMail } from "./mail/mailer";
+import { passwordResetMail } from "./mail/templates";
 
 const accessControl = createAccessControl(defaultStatements);
 
@@ -31,7 +35,33 @@ export const auth = betterAuth({
   secret: env.authSecret,
   trustedOrigins,
   database: drizzleAdapter(db, { provider: "pg", schema }),
-  emailAndPassword: { enabled: true, minPasswordLength: 10, maxPasswordLength: 128, autoSignIn: true },
+  emailAndPassword: {
+    enabled: true,
+    minPasswordLength: 10,
+    maxPasswordLength: 128,
+    autoSignIn: true,
+    resetPasswordTokenExpiresIn: PASSWORD_RESET_MINUTES * 60,
+    revokeSessionsOnPasswordReset: true,
+    // The link opens our own /reset-password page; better-auth answers "check your e-mail" whether or not this succeeds.
+    sendResetPassword: async ({ user, token }) => {
+      const resetUrl = `${env.appOrigin}/reset-password?token=${encodeURIComponent(token)}`;
+      try {
+        await sendMail(passwordResetMail({ to: user.email, name: user.name, resetUrl, validMinutes: PASSWORD_RESET_MINUTES }));
+      } catch (error) {
+        logger.error({ err: error }, "password reset e-mail not sent");
+      }
+    },
+  },
+  // Invitations go through /api/invitations (services/invitations.service.ts), which checks roles and sends the e-mail.
+  disabledPaths: [
+    "/organization/invite-member",
+    "/organization/accept-invitation",
+    "/organization/reject-invitation",
+    "/organization/cancel-invitation",
+    "/organization/get-invitation",
+    "/organization/list-invitations",
+    "/organization/list-user-invitations",
+  ],
   session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
   // Our own limiter guards sign-in (see app.ts); better-auth's keys on IP alone and a school shares one.
   rateLimit: { enabled: false },
@@ -44,6 +74,8 @@ export const auth = betterAuth({
       allowUserToCreateOrganization: true,
       organizationLimit: 1,
       invitationExpiresIn: 60 * 60 * 24 * 7,
+      // Invitation ids are random UUIDs that reach only the invited mailbox, so following the link proves the address.
+      requireEmailVerificationOnInvitation: false,
     }),
   ],
 });

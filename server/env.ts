@@ -21,6 +21,11 @@ const envSchema = z.object({
   SMTP_URL: z.string().url().optional(),
   MAIL_FROM: z.string().min(3).default("Outroll <no-reply@outroll.test>"),
   FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  // Class runs: rolls a group may send per second after a burst (a stuck button cannot flood), and the batch window.
+  ROLL_RATE_PER_GROUP: z.coerce.number().positive().default(4),
+  ROLL_BURST_PER_GROUP: z.coerce.number().int().positive().default(60),
+  ROLL_BATCH_MS: z.coerce.number().int().min(0).max(200).default(15),
+  BOARD_UPDATE_MS: z.coerce.number().int().min(50).max(5000).default(300),
 });
 
 export type Env = z.infer<typeof envSchema> & { appOrigin: string; authSecret: string; projectRoot: string };

@@ -3,8 +3,10 @@ import { runMigrations } from "./db/migrate";
 import { env } from "./env";
 import { createHttpServer } from "./http-server";
 import { logger } from "./logger";
+import { startMailDelivery, stopMailDelivery } from "./mail/mailer";
 
 await runMigrations(pool);
+const mail = await startMailDelivery();
 
 const { server, io } = createHttpServer();
 
@@ -13,6 +15,9 @@ server.listen(env.PORT, env.HOST, () => {
   const port = typeof address === "object" && address ? address.port : env.PORT;
   console.log(`\nOutroll is running at http://${env.HOST}:${port}`);
   console.log("Demo sign-ins are listed by the seed step above (README: Demo sign-ins).");
+  if (mail.fakeServer) {
+    console.log(`E-mail goes to the local fake mail server on 127.0.0.1:${mail.fakeServer.port}; read it at ${env.appOrigin}/dev/mail`);
+  }
   console.log("Press Ctrl-C to stop.");
 });
 
@@ -25,6 +30,7 @@ async function shutdown(signal: string) {
   forced.unref();
   io.close();
   server.close(async () => {
+    await stopMailDelivery().catch(() => undefined);
     await pool.end().catch(() => undefined);
     process.exit(0);
   });

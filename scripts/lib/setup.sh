@@ -63,6 +63,7 @@ as_cluster_owner() {
 start_cluster() {
   local data_dir=$1 port=$2
   mkdir -p "$data_dir"
+  data_dir=$(cd "$data_dir" && pwd)
   if [ "$(id -u)" -eq 0 ]; then chown postgres:postgres "$data_dir"; fi
   chmod 700 "$data_dir"
   if ! as_cluster_owner test -w "$data_dir"; then

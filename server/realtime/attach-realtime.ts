@@ -1,11 +1,13 @@
 import type { Server as HttpServer } from "node:http";
 import { Server } from "socket.io";
 import { env } from "../env";
+import { registerClassRunEvents } from "./class-run-events";
 
 export type RealtimeServer = Server;
 
 /** Each feature's socket.io handlers, registered on one server. */
 const featureHandlers: ((io: Server) => void)[] = [];
+featureHandlers.push(registerClassRunEvents);
 
 /** socket.io on the app's own HTTP server; pupils' phones and the Run board share it. */
 export function attachRealtime(server: HttpServer): Server {

@@ -14,9 +14,13 @@ export const diePalette = [
   { colour: "sand", pattern: "zigzags", hex: "#a16207" },
 ] as const;
 
-export const dieColourSchema = z.enum(diePalette.map((entry) => entry.colour) as [string, ...string[]]);
+export const dieColourSchema = z.enum(diePalette.map((entry) => entry.colour) as [string, ...string[]], {
+  error: `Choose a colour from the palette: ${diePalette.map((entry) => entry.colour).join(", ")}.`,
+});
 export type DieColour = (typeof diePalette)[number]["colour"];
-export const diePatternSchema = z.enum(diePalette.map((entry) => entry.pattern) as [string, ...string[]]);
+export const diePatternSchema = z.enum(diePalette.map((entry) => entry.pattern) as [string, ...string[]], {
+  error: `Choose a pattern from the palette: ${diePalette.map((entry) => entry.pattern).join(", ")}.`,
+});
 export type DiePattern = (typeof diePalette)[number]["pattern"];
 
 export const diceSetVisibilitySchema = z.enum(["private", "department"]);
@@ -63,3 +67,9 @@ export type DiceSet = DiceSetInput & {
   createdAt: string;
   updatedAt: string;
 };
+
+/** Route parameters naming one dice set; a malformed id is refused with 400 before any lookup. */
+export const diceSetIdParamsSchema = z.object({ id: z.uuid({ error: "That is not a dice set id." }) });
+
+/** What GET /api/dice-sets answers: the teacher's own sets, then sets shared with their department. */
+export type DiceSetList = { sets: DiceSet[] };

@@ -7,6 +7,8 @@ export class ApiRequestError extends Error {
     readonly code: string,
     message: string,
     readonly fields: Record<string, string[]> = {},
+    /** Plain messages listing what is wrong, when the server sends them (e.g. a refused file). */
+    readonly issues: string[] = [],
   ) {
     super(message);
     this.name = "ApiRequestError";
@@ -36,7 +38,9 @@ export async function apiRequest<T>(method: string, url: string, body?: Body): P
     const parsed = apiErrorSchema.safeParse(data);
     if (parsed.success) {
       const { code, message, fields } = parsed.data.error;
-      throw new ApiRequestError(response.status, code, message, fields);
+      const issues = (data as { error: { issues?: unknown } }).error.issues;
+      const issueList = Array.isArray(issues) ? issues.filter((issue): issue is string => typeof issue === "string") : [];
+      throw new ApiRequestError(response.status, code, message, fields, issueList);
     }
     const message = (data as { message?: string } | undefined)?.message ?? `The server answered ${response.status}.`;
     throw new ApiRequestError(response.status, "request_failed", message);

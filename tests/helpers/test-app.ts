@@ -32,12 +32,12 @@ export class HttpAgent {
     const response = await fetch(`${this.baseUrl}${path}`, {
       method,
       headers: {
-        ...(body === undefined ? {} : { "content-type": "application/json" }),
+        ...(body === undefined || body instanceof FormData ? {} : { "content-type": "application/json" }),
         ...(this.cookies.size ? { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join("; ") } : {}),
         origin: this.baseUrl,
         ...headers,
       },
-      body: body === undefined ? undefined : typeof body === "string" ? body : JSON.stringify(body),
+      body: body === undefined ? undefined : typeof body === "string" || body instanceof FormData ? body : JSON.stringify(body),
     });
     for (const cookie of response.headers.getSetCookie()) {
       const [pair] = cookie.split(";");
@@ -47,14 +47,15 @@ export class HttpAgent {
       if (value === "" || /max-age=0/i.test(cookie)) this.cookies.delete(name);
       else this.cookies.set(name, value);
     }
-    const text = await response.text();
+    const bytes = Buffer.from(await response.arrayBuffer());
+    const text = bytes.toString("utf8");
     let json: any = undefined;
     try {
       json = text ? JSON.parse(text) : undefined;
     } catch {
       json = undefined;
     }
-    return { status: response.status, body: json, text, headers: response.headers };
+    return { status: response.status, body: json, text, bytes, headers: response.headers };
   }
 
   get(path: string) {
@@ -71,6 +72,10 @@ export class HttpAgent {
   }
   delete(path: string) {
     return this.request("DELETE", path);
+  }
+  /** A multipart/form-data POST (file uploads); fetch writes the boundary header itself. */
+  postForm(path: string, form: FormData) {
+    return this.request("POST", path, form);
   }
 
   async signIn(email: string, password: string) {

@@ -5,6 +5,9 @@ import { organization } from "./departments";
 import { lesson } from "./lessons";
 import { user } from "./users";
 
+/** One tally of a class run: its number and the mode its rolls were recorded in. */
+export type ClassRunTally = { tally: number; dicePerPlayer: number; players: number; startedAt: string };
+
 /**
  * A live session of a lesson with one class. It keeps its own copy of the dice, mode and tie rule, so editing the
  * lesson or its set later never changes what a past run recorded.
@@ -32,7 +35,9 @@ export const classRun = pgTable(
     joinCode: text("join_code").notNull(),
     // The Twist phase starts a fresh tally; every roll records the tally it belongs to.
     currentTally: integer("current_tally").notNull().default(1),
-    // Bumped on every change the Run board shows, so a board can tell a stale snapshot from a fresh one.
+    // The mode of every tally so far, so a roll recorded offline under an earlier tally is still checked against its own mode.
+    tallies: jsonb("tallies").$type<ClassRunTally[]>().notNull().default([]),
+    // Bumped on every change the Run board shows but a new roll (the board adds the run's roll rows), so a board can tell a stale snapshot from a fresh one.
     boardVersion: bigint("board_version", { mode: "number" }).notNull().default(0),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     closedAt: timestamp("closed_at", { withTimezone: true }),

@@ -23,6 +23,11 @@ export function SignInRoute() {
       }
     >
       <SignInForm onSignedIn={() => navigate(safeNext(params.get("next")), { replace: true })} />
+      <p className="mt-4">
+        <Link className="font-bold text-tide underline" to="/forgot-password">
+          Forgot your password?
+        </Link>
+      </p>
     </AccountPage>
   );
 }

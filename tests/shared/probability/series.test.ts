@@ -71,8 +71,8 @@ describe("seriesOutcome", () => {
   });
 
   it("works from two dice as from their matchup", () => {
-    const a = [1, 1, 6, 6, 8, 8];
-    const b = [3, 3, 4, 4, 9, 9];
+    const a = [1, 2, 6, 6, 8, 8];
+    const b = [3, 3, 4, 5, 9, 9];
     const direct = seriesOutcomeForDice(a, b, { games: 7, tieRule: "ties-score-half", dicePerPlayer: 2 });
     expect(direct.win.equals(seriesOutcome(compareDice(a, b, { dicePerPlayer: 2 }), 7, "ties-score-half").win)).toBe(true);
   });

@@ -1,0 +1,1 @@
+ALTER TABLE "class_run" ADD COLUMN "tallies" jsonb DEFAULT '[]'::jsonb NOT NULL;

@@ -1,0 +1,257 @@
+// Load case for class runs: simulated phones on loopback record rolls as fast as the server acknowledges, against the
+// real server process and PostgreSQL, then the same clients against a bare socket.io server that only acknowledges.
+// Run by `npm run bench` (scripts/bench.sh gives it a throwaway cluster in BENCH_DATABASE_URL). Prints; asserts nothing.
+import { spawn, execFileSync, type ChildProcess } from "node:child_process";
+import { createServer } from "node:net";
+import { cpus, loadavg } from "node:os";
+import { io as connect, type Socket } from "socket.io-client";
+import { v4 as uuidv4 } from "uuid";
+
+const databaseUrl = process.env.BENCH_DATABASE_URL ?? process.env.DATABASE_URL;
+if (!databaseUrl) {
+  console.error("Set BENCH_DATABASE_URL (npm run bench does) to a throwaway PostgreSQL database.");
+  process.exit(1);
+}
+const PHONES = Number(process.env.BENCH_PHONES ?? 300);
+const RUNS = Number(process.env.BENCH_RUNS ?? 10);
+const SECONDS = Number(process.env.BENCH_LOAD_SECONDS ?? 10);
+const WARM_UP_SECONDS = 2;
+const WITH_BOARDS = process.env.BENCH_BOARDS !== "0";
+const dataDir = process.env.BENCH_DATA_DIR ?? "/tmp/outroll-bench-data";
+// The load case measures the server, so the per-group limit for stuck buttons (default 4 rolls/s) is lifted.
+const serverEnv = {
+  ...process.env,
+  DATABASE_URL: databaseUrl,
+  DATA_DIR: dataDir,
+  NODE_ENV: "production",
+  LOG_LEVEL: "warn",
+  ROLL_RATE_PER_GROUP: "100000",
+  ROLL_BURST_PER_GROUP: "100000",
+};
+Object.assign(process.env, { DATABASE_URL: databaseUrl, DATA_DIR: dataDir, LOG_LEVEL: "warn" });
+
+// Invented dice for the load case.
+const dice = [
+  { name: "Auk", faces: [1, 1, 5, 5, 6, 6], colour: "teal", pattern: "dots" },
+  { name: "Razorbill", faces: [2, 3, 3, 4, 7, 7], colour: "amber", pattern: "stripes" },
+  { name: "Guillemot", faces: [0, 4, 4, 4, 4, 8], colour: "plum", pattern: "checks" },
+];
+
+const sleep = (milliseconds: number) => new Promise((resolve) => setTimeout(resolve, milliseconds));
+
+function freePort(): Promise<number> {
+  return new Promise((resolve) => {
+    const probe = createServer().listen(0, "127.0.0.1", () => {
+      const address = probe.address();
+      probe.close(() => resolve(typeof address === "object" && address ? address.port : 0));
+    });
+  });
+}
+
+async function waitFor(url: string, check: () => Promise<boolean>) {
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    if (await check().catch(() => false)) return;
+    if (Date.now() > deadline) throw new Error(`${url} did not start within 60 s`);
+    await sleep(200);
+  }
+}
+
+async function stop(child: ChildProcess) {
+  if (child.exitCode !== null) return;
+  const exited = new Promise((resolve) => child.once("exit", resolve));
+  child.kill("SIGTERM");
+  await exited;
+}
+
+function percentile(sorted: number[], share: number): number {
+  if (sorted.length === 0) return Number.NaN;
+  return sorted[Math.min(sorted.length - 1, Math.floor(share * sorted.length))];
+}
+
+type Phone = { socket: Socket; token: string; matchup: number[] };
+type Measured = { acked: string[]; failed: number; latencies: number[]; measuredAcks: number; seconds: number; failures: Map<string, number> };
+
+function openPhoneSocket(baseUrl: string, cookie?: string): Promise<Socket> {
+  const socket = connect(baseUrl, { transports: ["websocket"], forceNew: true, reconnection: false, extraHeaders: cookie ? { cookie } : undefined });
+  return new Promise((resolve, reject) => {
+    socket.once("connect", () => resolve(socket));
+    socket.once("connect_error", reject);
+  });
+}
+
+/** Every phone sends one roll, waits for its acknowledgement, and sends the next, until the time is up. */
+async function load(phones: Phone[]): Promise<Measured> {
+  const acked: string[] = [];
+  const latencies: number[] = [];
+  const failures = new Map<string, number>();
+  let failed = 0;
+  let measuredAcks = 0;
+  const start = performance.now();
+  const measureFrom = start + WARM_UP_SECONDS * 1000;
+  const end = measureFrom + SECONDS * 1000;
+  await Promise.all(
+    phones.map(async (phone, index) => {
+      let step = index;
+      while (performance.now() < end) {
+        step += 1;
+        const faces = phone.matchup.map((dieIndex) => [dice[dieIndex].faces[(step * 7 + dieIndex) % 6]]);
+        const roll = { id: uuidv4(), tally: 1, matchup: phone.matchup, faces, recordedAt: new Date().toISOString() };
+        const sent = performance.now();
+        try {
+          const ack = await phone.socket.timeout(10_000).emitWithAck("roll:record", { token: phone.token, roll });
+          const done = performance.now();
+          if (ack.ok) {
+            acked.push(roll.id);
+            if (sent >= measureFrom && done <= end) {
+              measuredAcks += 1;
+              latencies.push(done - sent);
+            }
+          } else {
+            failed += 1;
+            failures.set(ack.error.code, (failures.get(ack.error.code) ?? 0) + 1);
+          }
+        } catch {
+          failed += 1;
+          failures.set("timeout", (failures.get("timeout") ?? 0) + 1);
+        }
+      }
+    }),
+  );
+  latencies.sort((x, y) => x - y);
+  return { acked, failed, latencies, measuredAcks, seconds: SECONDS, failures };
+}
+
+async function main() {
+  console.log(`Class run load: ${PHONES} phones in ${RUNS} runs, ${SECONDS} s measured after ${WARM_UP_SECONDS} s warm-up${WITH_BOARDS ? ", one Run board watching each run" : ""}.`);
+  execFileSync("node", ["--import", "tsx", "seed/index.ts"], { env: serverEnv, stdio: ["ignore", "ignore", "inherit"] });
+
+  const { db, pool } = await import("../../server/db/client");
+  const { insertRunWithJoinCode } = await import("../../server/services/class-runs.service");
+  const { user, roll } = await import("../../server/db/schema/index");
+  const { eq, inArray, sql } = await import("drizzle-orm");
+  const { demoPassword, demoTeachers } = await import("../../seed/demo-scenario");
+  const owner = demoTeachers.find((teacher) => teacher.role === "teacher")!;
+  const [ownerRow] = await db.select({ id: user.id }).from(user).where(eq(user.email, owner.email));
+  const runs = [];
+  for (let index = 0; index < RUNS; index += 1) {
+    runs.push(
+      await insertRunWithJoinCode(db, {
+        ownerId: ownerRow.id,
+        departmentId: null,
+        lessonId: null,
+        title: `Load run ${index + 1}`,
+        classGroup: "8K",
+        diceSetName: "Cliff-top three",
+        dice,
+        dicePerPlayer: 1,
+        players: 2,
+        tieRule: "re-roll-ties",
+        matchupChoice: "assigned",
+        phases: ["Roll"],
+        phase: "Roll",
+        status: "open",
+        currentTally: 1,
+        tallies: [{ tally: 1, dicePerPlayer: 1, players: 2, startedAt: new Date().toISOString() }],
+      }),
+    );
+  }
+
+  // Outroll: the real server process with PostgreSQL.
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  // BENCH_PROFILE_DIR=/some/folder writes a CPU profile of the server process there, to see where the time goes.
+  const profile = process.env.BENCH_PROFILE_DIR ? ["--cpu-prof", `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : [];
+  const server = spawn("node", [...profile, "--import", "tsx", "server/index.ts"], {
+    env: { ...serverEnv, PORT: String(port), HOST: "127.0.0.1", APP_ORIGIN: baseUrl },
+    stdio: ["ignore", "ignore", "inherit"],
+  });
+  await waitFor(baseUrl, async () => (await fetch(`${baseUrl}/api/health`)).ok);
+  const phones: Phone[] = [];
+  for (let index = 0; index < PHONES; index += 1) {
+    const socket = await openPhoneSocket(baseUrl);
+    const ack = await socket.emitWithAck("group:join", { code: runs[index % RUNS].joinCode, nickname: `Load group ${index + 1}` });
+    if (!ack.ok) throw new Error(`join failed: ${ack.error.message}`);
+    phones.push({ socket, token: ack.token, matchup: ack.state.group.matchup });
+  }
+  const boards: Socket[] = [];
+  let boardUpdates = 0;
+  if (WITH_BOARDS) {
+    const signIn = await fetch(`${baseUrl}/api/auth/sign-in/email`, {
+      method: "POST",
+      headers: { "content-type": "application/json", origin: baseUrl },
+      body: JSON.stringify({ email: owner.email, password: demoPassword }),
+    });
+    const cookie = signIn.headers.getSetCookie().map((entry) => entry.split(";")[0]).join("; ");
+    for (const run of runs) {
+      const board = await openPhoneSocket(baseUrl, cookie);
+      const ack = await board.emitWithAck("board:snapshot", { runId: run.id });
+      if (!ack.ok) throw new Error(`board failed: ${ack.error.message}`);
+      board.on("board:update", () => (boardUpdates += 1));
+      boards.push(board);
+    }
+  }
+  const ours = await load(phones);
+  const totalSeconds = SECONDS + WARM_UP_SECONDS;
+  const updatesPerRunPerSecond = boards.length ? boardUpdates / boards.length / totalSeconds : 0;
+  for (const socket of [...phones.map((phone) => phone.socket), ...boards]) socket.disconnect();
+  await stop(server);
+
+  const runIds = runs.map((run) => run.id);
+  const [{ rows, distinct }] = await db
+    .select({ rows: sql<number>`count(*)::int`, distinct: sql<number>`count(distinct ${roll.id})::int` })
+    .from(roll)
+    .where(inArray(roll.runId, runIds));
+  const stored = new Set((await db.select({ id: roll.id }).from(roll).where(inArray(roll.runId, runIds))).map((row) => row.id));
+  const lost = ours.acked.filter((id) => !stored.has(id)).length;
+  const duplicated = rows - distinct;
+  const unacknowledged = rows - ours.acked.length;
+  await pool.end();
+
+  // The ceiling: the same clients against a bare socket.io server that only acknowledges.
+  const barePort = await freePort();
+  const bareUrl = `http://127.0.0.1:${barePort}`;
+  const bare = spawn("node", ["--import", "tsx", "scripts/bench/bare-ack-server.ts"], { env: { ...process.env, PORT: String(barePort) }, stdio: ["ignore", "ignore", "inherit"] });
+  await waitFor(bareUrl, async () => {
+    const probe = await openPhoneSocket(bareUrl).catch(() => null);
+    probe?.disconnect();
+    return probe !== null;
+  });
+  const barePhones: Phone[] = [];
+  for (let index = 0; index < PHONES; index += 1) {
+    const socket = await openPhoneSocket(bareUrl);
+    barePhones.push({ socket, token: phones[index].token, matchup: phones[index].matchup });
+  }
+  const ceiling = await load(barePhones);
+  for (const phone of barePhones) phone.socket.disconnect();
+  await stop(bare);
+
+  const rate = (measured: Measured) => measured.measuredAcks / measured.seconds;
+  const row = (name: string, measured: Measured, lostCount: string, duplicateCount: string) =>
+    `| ${name} | ${PHONES} | ${measured.acked.length} | ${rate(measured).toFixed(0)} | ${percentile(measured.latencies, 0.5).toFixed(1)} | ${percentile(measured.latencies, 0.99).toFixed(1)} | ${measured.failed} | ${lostCount} | ${duplicateCount} |`;
+  console.log("");
+  console.log("| case | phones | rolls acknowledged | rolls/s (measured window) | p50 ack ms | p99 ack ms | refused or timed out | lost | duplicated |");
+  console.log("| --- | --- | --- | --- | --- | --- | --- | --- | --- |");
+  console.log(row("Outroll: validation, batching, PostgreSQL", ours, String(lost), String(duplicated)));
+  console.log(row("bare socket.io, acknowledge only", ceiling, "n/a", "n/a"));
+  console.log("");
+  const spread = (measured: Measured) => [0.9, 0.95, 0.999].map((share) => `p${share * 100} ${percentile(measured.latencies, share).toFixed(1)} ms`).join(", ");
+  console.log(`Acknowledgement latency, Outroll: ${spread(ours)}, max ${(ours.latencies.at(-1) ?? Number.NaN).toFixed(1)} ms; bare: ${spread(ceiling)}.`);
+  const ratio = rate(ours) / rate(ceiling);
+  console.log(`Outroll acknowledges ${(ratio * 100).toFixed(0)}% of the bare ceiling (aim: at least 50%).`);
+  if (ours.failures.size) console.log(`Refusals: ${[...ours.failures].map(([code, count]) => `${code} ${count}`).join(", ")}`);
+  console.log(`Rows stored ${rows}, acknowledged ${ours.acked.length}: lost ${lost}, duplicated ${duplicated}, stored without an acknowledgement ${unacknowledged}.`);
+  if (WITH_BOARDS) console.log(`Run boards received ${updatesPerRunPerSecond.toFixed(1)} updates per run per second (throttled; never one per roll).`);
+  const targets = [
+    [`${PHONES} connected phones`, PHONES >= 300],
+    ["at least 1000 rolls/s acknowledged", rate(ours) >= 1000],
+    ["p99 under 100 ms", percentile(ours.latencies, 0.99) < 100],
+    ["0 lost", lost === 0],
+    ["0 duplicated", duplicated === 0],
+    ["half the bare ceiling", ratio >= 0.5],
+  ] as const;
+  console.log(`Machine load average (1, 5, 15 min) at the end: ${loadavg().map((value) => value.toFixed(1)).join(", ")} on ${cpus().length} cores.`);
+  console.log(`Targets: ${targets.map(([name, met]) => `${met ? "met" : "NOT met"}: ${name}`).join("; ")}.`);
+}
+
+await main();

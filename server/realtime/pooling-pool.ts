@@ -1,0 +1,96 @@
+import { Worker } from "node:worker_threads";
+import { poolBoard, type BoardPools } from "@shared/class-results/board-pool";
+import type { PoolRow } from "../db/queries/class-runs";
+import { logger } from "../logger";
+
+/**
+ * One board refresh to pool. With `keep`, the worker holds the run's rolls between refreshes: `reset` sends them all,
+ * otherwise `rows` are only the new ones, added to what the worker holds for that `generation`.
+ */
+export type BoardPoolRequest = Omit<Parameters<typeof poolBoard>[0], "rolls"> & {
+  rows: PoolRow[];
+  keep?: { runId: string; generation: number; reset: boolean };
+};
+
+/** The worker could not add new rows (it was restarted, or lost the run): send every row again. */
+export class NeedsResetError extends Error {}
+
+type Waiting = { resolve: (result: BoardPools) => void; reject: (error: Error) => void };
+
+let worker: Worker | null = null;
+let unavailable = false;
+let ready = false;
+let nextId = 1;
+const beforeReady: (() => void)[] = [];
+const waiting = new Map<number, Waiting>();
+
+function giveUp(reason: string, error?: unknown) {
+  logger.warn({ err: error }, `${reason}; Run boards pool on the main thread from now on`);
+  unavailable = true;
+  worker = null;
+  for (const entry of waiting.values()) entry.reject(new Error(reason));
+  waiting.clear();
+  for (const send of beforeReady.splice(0)) send();
+}
+
+function startWorker(): Worker | null {
+  if (unavailable) return null;
+  if (worker) return worker;
+  try {
+    // The worker is TypeScript like the server; Node 20 workers ignore --import tsx, so a two-line bootstrap registers it.
+    const script = new URL("./pooling-worker.ts", import.meta.url).href;
+    const started = new Worker(`import("tsx/esm/api").then(({ register }) => { register(); return import(${JSON.stringify(script)}); });`, { eval: true });
+    worker = started;
+    started.unref();
+    started.on("message", (message: { ready?: boolean; id: number; result?: BoardPools; needsReset?: boolean; error?: string }) => {
+      if (message.ready) {
+        ready = true;
+        for (const send of beforeReady.splice(0)) send();
+        return;
+      }
+      const entry = waiting.get(message.id);
+      if (!entry) return;
+      waiting.delete(message.id);
+      if (message.result) entry.resolve(message.result);
+      else if (message.needsReset) entry.reject(new NeedsResetError("the pooling worker needs every row again"));
+      else entry.reject(new Error(message.error ?? "pooling failed"));
+    });
+    started.on("error", (error) => giveUp("pooling worker stopped", error));
+    started.on("exit", () => {
+      if (worker === started) giveUp("pooling worker exited");
+    });
+    // A worker that never says it is ready is given up on.
+    setTimeout(() => {
+      if (!ready && worker === started) {
+        void started.terminate();
+        giveUp("pooling worker did not start in time");
+      }
+    }, 15_000).unref();
+    return started;
+  } catch (error) {
+    giveUp("pooling worker did not start", error);
+    return null;
+  }
+}
+
+/** Pools a board refresh on the worker thread; rejects with NeedsResetError when the worker lacks the run's rows. */
+export function poolBoardOffThread(request: BoardPoolRequest): Promise<BoardPools> {
+  const running = startWorker();
+  if (!running) {
+    // Without the worker nobody holds the run's earlier rolls: new rows alone cannot be pooled.
+    if (request.keep && !request.keep.reset) return Promise.reject(new NeedsResetError("no pooling worker holds this run's rolls"));
+    return Promise.resolve(poolBoard({ ...request, rolls: request.rows }));
+  }
+  const id = nextId++;
+  return new Promise<BoardPools>((resolve, reject) => {
+    waiting.set(id, { resolve, reject });
+    const send = () => (unavailable ? reject(new Error("pooling worker unavailable")) : running.postMessage({ id, request }));
+    if (ready) send();
+    else beforeReady.push(send);
+  });
+}
+
+/** Lets the worker drop a run nobody watches any more. */
+export function forgetBoardRun(runId: string) {
+  if (worker && ready) worker.postMessage({ forget: runId });
+}

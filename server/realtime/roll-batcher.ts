@@ -1,0 +1,69 @@
+import type { NewRoll, RollWriteOutcome } from "../db/queries/class-runs";
+
+type Pending = { roll: NewRoll; resolve: (outcome: RollWriteOutcome) => void; reject: (error: unknown) => void };
+
+/**
+ * Group commit for rolls: rolls arriving within `windowMs` of each other are written in one transaction with one
+ * multi-row insert, and each caller's promise settles only after that transaction has committed (or failed).
+ * Up to `concurrency` batches are written at once, so one batch's commit (its WAL flush) overlaps the next batch.
+ */
+export class RollBatcher {
+  private queue: Pending[] = [];
+  private timer: NodeJS.Timeout | null = null;
+  private writing = 0;
+
+  constructor(
+    private readonly write: (rolls: NewRoll[]) => Promise<Map<string, RollWriteOutcome>>,
+    private readonly options: {
+      windowMs: number;
+      maxBatch: number;
+      concurrency: number;
+      onWritten?: (rolls: NewRoll[], outcomes: Map<string, RollWriteOutcome>) => void;
+    },
+  ) {}
+
+  /** Queues a roll; resolves with what became of it once its batch has committed. */
+  submit(roll: NewRoll): Promise<RollWriteOutcome> {
+    return new Promise((resolve, reject) => {
+      this.queue.push({ roll, resolve, reject });
+      this.schedule();
+    });
+  }
+
+  private schedule() {
+    if (this.queue.length === 0 || this.writing >= this.options.concurrency) return;
+    if (this.queue.length >= this.options.maxBatch) {
+      if (this.timer) clearTimeout(this.timer);
+      this.timer = null;
+      void this.flush();
+      return;
+    }
+    if (!this.timer) this.timer = setTimeout(() => void this.flush(), this.options.windowMs);
+  }
+
+  private async flush() {
+    if (this.timer) clearTimeout(this.timer);
+    this.timer = null;
+    if (this.queue.length === 0) return;
+    this.writing += 1;
+    const batch = this.queue.splice(0, this.options.maxBatch);
+    // The same id twice in one batch (a resend racing its original) is written once and both callers get the answer.
+    const unique = new Map<string, NewRoll>();
+    for (const entry of batch) if (!unique.has(entry.roll.id)) unique.set(entry.roll.id, entry.roll);
+    try {
+      const outcomes = await this.write([...unique.values()]);
+      const answered = new Set<string>();
+      for (const entry of batch) {
+        const outcome = outcomes.get(entry.roll.id) ?? "run_closed";
+        entry.resolve(answered.has(entry.roll.id) && outcome === "stored" ? "duplicate" : outcome);
+        answered.add(entry.roll.id);
+      }
+      this.options.onWritten?.([...unique.values()], outcomes);
+    } catch (error) {
+      for (const entry of batch) entry.reject(error);
+    } finally {
+      this.writing -= 1;
+      this.schedule();
+    }
+  }
+}

@@ -1,0 +1,480 @@
+import { assignedMatchup } from "@shared/class-results/assigned-matchups";
+import { poolBoard, type BoardPools } from "@shared/class-results/board-pool";
+import { simulatedMatchupRolls, winnerSeatOf } from "@shared/class-results/virtual-class";
+import type { TieRule } from "@shared/probability/index";
+import {
+  type BoardGroup,
+  type BoardSnapshot,
+  type ClassRun,
+  type ClassRunSummary,
+  type PadRunPreview,
+  type RunnableLesson,
+  type RunPhase,
+  type RunPhaseChange,
+  type RunStatus,
+  type RunTally,
+  type SimulatedGroupsInput,
+} from "@shared/schemas/class-runs";
+import { lessonPlanSchema, type LessonPlan } from "@shared/schemas/lessons";
+import { db, type Executor } from "../db/client";
+import {
+  bumpBoardVersion,
+  countUndoneRolls,
+  findClassRun,
+  findGroup,
+  findLessonForRun,
+  findRunByJoinCode,
+  insertClassRun,
+  insertGroups,
+  insertRolls,
+  listClassRunsForOwner,
+  listGroups,
+  listLessonsForRuns,
+  listVotes,
+  lockClassRun,
+  openRunsByLesson,
+  runRollsForPooling,
+  setGroupMatchup,
+  setGroupMatchups,
+  updateRunPhase,
+  updateRunStatus,
+  countKeptRolls,
+  type ClassRunRecord,
+  type ClassRunRow,
+  type LessonForRun,
+  type NewRoll,
+} from "../db/queries/class-runs";
+import type { ClassRunTally } from "../db/schema/class-runs";
+import { env } from "../env";
+import { HttpError, notFound } from "../http-error";
+import type { TeacherContext } from "../middleware/require-teacher";
+import { notifyRunChanged } from "../realtime/run-notifier";
+import { logger } from "../logger";
+import { NeedsResetError, type BoardPoolRequest } from "../realtime/pooling-pool";
+import { generateJoinCode, isUniqueViolation } from "./join-code";
+
+const JOIN_CODE_ATTEMPTS = 8;
+
+/** The tallies of a run, with the first one filled in for runs stored before tallies were kept. */
+export function talliesOf(run: Pick<ClassRunRow, "tallies" | "dicePerPlayer" | "players" | "createdAt">): RunTally[] {
+  if (run.tallies.length > 0) return run.tallies;
+  return [{ tally: 1, dicePerPlayer: run.dicePerPlayer, players: run.players, startedAt: run.createdAt.toISOString() }];
+}
+
+/** The API shape of a run for the teacher `viewerId`. */
+export function classRunView(run: ClassRunRecord, viewerId: string | null): ClassRun {
+  return {
+    id: run.id,
+    title: run.title,
+    classGroup: run.classGroup,
+    lessonId: run.lessonId,
+    diceSetName: run.diceSetName,
+    dice: run.dice,
+    dicePerPlayer: run.dicePerPlayer,
+    players: run.players,
+    tieRule: run.tieRule as TieRule,
+    matchupChoice: run.matchupChoice,
+    phases: run.phases as RunPhase[],
+    phase: run.phase as RunPhase,
+    status: run.status,
+    joinCode: run.joinCode,
+    joinPath: `/pad/${run.joinCode}`,
+    configuredOrigin: env.APP_ORIGIN ?? null,
+    currentTally: run.currentTally,
+    tallies: talliesOf(run),
+    boardVersion: run.boardVersion,
+    ownerId: run.ownerId,
+    isOwner: run.ownerId === viewerId,
+    ownerName: run.ownerName,
+    createdAt: run.createdAt.toISOString(),
+    closedAt: run.closedAt?.toISOString() ?? null,
+  };
+}
+
+/**
+ * A run the teacher may see ("view": its owner, or the head of its department) or change ("manage": its owner only).
+ * Runs of another department answer 404, so their existence is not revealed.
+ */
+export async function runForTeacher(teacher: TeacherContext, runId: string, access: "view" | "manage", executor: Executor = db): Promise<ClassRunRecord> {
+  const run = await findClassRun(executor, runId);
+  if (!run) throw notFound("The class run");
+  if (run.ownerId === teacher.user.id) return run;
+  const sameDepartment = run.departmentId !== null && run.departmentId === teacher.department?.id;
+  if (!sameDepartment) throw notFound("The class run");
+  if (access === "view" && teacher.role === "head") return run;
+  throw new HttpError(
+    403,
+    "forbidden",
+    access === "view" ? "This class run belongs to another teacher." : "Only the teacher who opened this class run can change it.",
+  );
+}
+
+function planProblem(lesson: LessonForRun): { plan: LessonPlan | null; problem: string | null } {
+  const parsed = lessonPlanSchema.safeParse(lesson.plan);
+  if (!parsed.success) return { plan: null, problem: "The lesson plan does not check: open it in Lessons and save it again." };
+  if (!lesson.diceSet) return { plan: parsed.data, problem: "Choose a dice set for the lesson first." };
+  if (parsed.data.mode.players > lesson.diceSet.dice.length) return { plan: parsed.data, problem: "The lesson has more players than its set has dice." };
+  return { plan: parsed.data, problem: null };
+}
+
+/** The teacher's lessons, each saying whether it can be run now and which run of it is still open. */
+export async function listRunnableLessons(teacher: TeacherContext): Promise<{ lessons: RunnableLesson[] }> {
+  const [lessons, open] = await Promise.all([listLessonsForRuns(db, teacher.user.id), openRunsByLesson(db, teacher.user.id)]);
+  return {
+    lessons: lessons.map((lesson) => ({
+      id: lesson.id,
+      title: lesson.title,
+      classGroup: lesson.classGroup,
+      diceSetName: lesson.diceSet?.name ?? null,
+      problem: planProblem(lesson).problem,
+      openRunId: open.get(lesson.id) ?? null,
+    })),
+  };
+}
+
+export async function listClassRuns(teacher: TeacherContext): Promise<{ runs: ClassRunSummary[] }> {
+  const rows = await listClassRunsForOwner(db, teacher.user.id);
+  return {
+    runs: rows.map((row) => ({
+      ...row,
+      phase: row.phase as RunPhase,
+      createdAt: row.createdAt.toISOString(),
+      closedAt: row.closedAt?.toISOString() ?? null,
+    })),
+  };
+}
+
+/** The included phases of a lesson plan, in order (Roll alone when a plan skips them all). */
+function includedPhases(plan: LessonPlan): RunPhase[] {
+  const phases = plan.phases.filter((entry) => entry.included).map((entry) => entry.phase);
+  return phases.length > 0 ? phases : ["Roll"];
+}
+
+/** The values a run copies from a lesson and its set (used by the route and by the demo seed). */
+export function runValuesFromLesson(lesson: LessonForRun, plan: LessonPlan, ownerId: string, departmentId: string | null) {
+  const diceSet = lesson.diceSet!;
+  const phases = includedPhases(plan);
+  const tallies: ClassRunTally[] = [{ tally: 1, dicePerPlayer: plan.mode.dicePerPlayer, players: plan.mode.players, startedAt: new Date().toISOString() }];
+  return {
+    ownerId,
+    departmentId,
+    lessonId: lesson.id,
+    title: lesson.title,
+    classGroup: lesson.classGroup,
+    diceSetName: diceSet.name,
+    dice: diceSet.dice,
+    dicePerPlayer: plan.mode.dicePerPlayer,
+    players: plan.mode.players,
+    tieRule: plan.tieRule,
+    matchupChoice: plan.matchupChoice,
+    phases,
+    phase: phases[0],
+    status: "open" as const,
+    currentTally: 1,
+    tallies,
+  };
+}
+
+/** Inserts a run with a fresh join code, drawing again when the code is taken by another run that is not closed. */
+export async function insertRunWithJoinCode(executor: Executor, values: Omit<Parameters<typeof insertClassRun>[1], "joinCode">): Promise<ClassRunRow> {
+  for (let attempt = 1; ; attempt += 1) {
+    try {
+      return await executor.transaction((tx) => insertClassRun(tx, { ...values, joinCode: generateJoinCode() }));
+    } catch (error) {
+      if (!isUniqueViolation(error, "class_run_open_join_code_idx") || attempt >= JOIN_CODE_ATTEMPTS) throw error;
+    }
+  }
+}
+
+/** Opens a class run of the teacher's own lesson: copies its set, mode, tie rule and phases, and gives it a join code. */
+export async function openClassRun(teacher: TeacherContext, lessonId: string): Promise<ClassRun> {
+  const lesson = await findLessonForRun(db, lessonId);
+  if (!lesson) throw notFound("The lesson");
+  if (lesson.ownerId !== teacher.user.id) {
+    if (lesson.departmentId && lesson.departmentId === teacher.department?.id) {
+      throw new HttpError(403, "forbidden", "Only the teacher who owns a lesson can open a class run of it. Duplicate the lesson to run it yourself.");
+    }
+    throw notFound("The lesson");
+  }
+  if (lesson.archivedAt) throw new HttpError(409, "lesson_archived", "The lesson is archived: restore it in Lessons before running it.");
+  const { plan, problem } = planProblem(lesson);
+  if (!plan || problem) throw new HttpError(422, "lesson_not_ready", problem ?? "The lesson cannot be run yet.");
+  const row = await insertRunWithJoinCode(db, runValuesFromLesson(lesson, plan, teacher.user.id, teacher.department?.id ?? null));
+  return classRunView({ ...row, ownerName: teacher.user.name }, teacher.user.id);
+}
+
+export async function getClassRun(teacher: TeacherContext, runId: string): Promise<ClassRun> {
+  return classRunView(await runForTeacher(teacher, runId, "view"), teacher.user.id);
+}
+
+const allowedStatusChanges: Record<RunStatus, RunStatus[]> = { open: ["paused", "closed"], paused: ["open", "closed"], closed: [] };
+
+/** Pauses, resumes or closes a run; a closed run stays closed and takes no more rolls. */
+export async function changeRunStatus(teacher: TeacherContext, runId: string, status: RunStatus): Promise<ClassRun> {
+  const updated = await db.transaction(async (tx) => {
+    const run = await runForTeacher(teacher, runId, "manage", tx);
+    const locked = (await lockClassRun(tx, run.id))!;
+    if (locked.status === status) return { ...locked, ownerName: run.ownerName };
+    if (!allowedStatusChanges[locked.status].includes(status)) {
+      throw new HttpError(409, "run_closed", "This class run is closed. Open a new run of the lesson to record more rolls.");
+    }
+    return { ...(await updateRunStatus(tx, run.id, status)), ownerName: run.ownerName };
+  });
+  notifyRunChanged({ runId, kind: "status" });
+  return classRunView(updated, teacher.user.id);
+}
+
+/** The mode a Twist plays: two dice each, or three players (the set needs three dice). */
+function twistTally(run: ClassRunRow, change: RunPhaseChange): ClassRunTally {
+  const base = talliesOf(run)[0];
+  const twist = change.twist ?? (base.dicePerPlayer === 1 ? "two-dice-each" : "three-players");
+  if (twist === "three-players") {
+    if (run.dice.length < 3) throw new HttpError(422, "twist_not_possible", "Three players need a set of at least three dice.");
+    if (base.players === 3) throw new HttpError(422, "twist_not_possible", "This run already plays with three players; choose two dice each.");
+    return { tally: run.currentTally + 1, dicePerPlayer: base.dicePerPlayer, players: 3, startedAt: new Date().toISOString() };
+  }
+  if (base.dicePerPlayer === 2) throw new HttpError(422, "twist_not_possible", "This run already plays two dice each; choose three players.");
+  return { tally: run.currentTally + 1, dicePerPlayer: 2, players: base.players, startedAt: new Date().toISOString() };
+}
+
+/**
+ * Moves the run to one of the lesson's phases. The first move to Twist starts a fresh tally in the twisted mode:
+ * assigned groups get new matchups, groups that choose their own choose again.
+ */
+export async function changeRunPhase(teacher: TeacherContext, runId: string, change: RunPhaseChange): Promise<ClassRun> {
+  const updated = await db.transaction(async (tx) => {
+    const run = await runForTeacher(teacher, runId, "manage", tx);
+    const locked = (await lockClassRun(tx, run.id))!;
+    if (locked.status === "closed") throw new HttpError(409, "run_closed", "This class run is closed; its phase can no longer change.");
+    if (!locked.phases.includes(change.phase)) {
+      throw new HttpError(422, "phase_skipped", `This lesson skips the ${change.phase} phase.`);
+    }
+    const tallies = talliesOf(locked);
+    if (change.phase === "Twist" && tallies.length === 1) {
+      const tally = twistTally(locked, change);
+      const groups = await listGroups(tx, run.id);
+      await setGroupMatchups(
+        tx,
+        groups.map((group, index) => ({
+          groupId: group.id,
+          matchup: locked.matchupChoice === "assigned" || group.source !== "phone" ? assignedMatchup(locked.dice.length, tally.players, index) : null,
+        })),
+      );
+      return {
+        ...(await updateRunPhase(tx, run.id, {
+          phase: change.phase,
+          currentTally: tally.tally,
+          tallies: [...tallies, tally],
+          dicePerPlayer: tally.dicePerPlayer,
+          players: tally.players,
+        })),
+        ownerName: run.ownerName,
+      };
+    }
+    return { ...(await updateRunPhase(tx, run.id, { phase: change.phase, tallies })), ownerName: run.ownerName };
+  });
+  notifyRunChanged({ runId, kind: "phase" });
+  return classRunView(updated, teacher.user.id);
+}
+
+function checkMatchupFits(run: ClassRunRow, matchup: number[]) {
+  if (matchup.length !== run.players) {
+    throw new HttpError(422, "wrong_mode", `This part of the run is played by ${run.players} players: choose ${run.players} dice.`);
+  }
+  if (matchup.some((index) => index >= run.dice.length)) {
+    throw new HttpError(422, "invalid_input", `The set has ${run.dice.length} dice; choose among them.`);
+  }
+}
+
+/** The teacher sets a group's matchup for the current tally. */
+export async function assignGroupMatchup(teacher: TeacherContext, runId: string, groupId: string, matchup: number[]): Promise<BoardGroup> {
+  const group = await db.transaction(async (tx) => {
+    const run = await runForTeacher(teacher, runId, "manage", tx);
+    if (run.status === "closed") throw new HttpError(409, "run_closed", "This class run is closed.");
+    const existing = await findGroup(tx, groupId);
+    if (!existing || existing.runId !== run.id) throw notFound("The group");
+    checkMatchupFits(run, matchup);
+    return setGroupMatchup(tx, groupId, matchup);
+  });
+  notifyRunChanged({ runId, kind: "group", groupId });
+  return { id: group.id, nickname: group.nickname, source: group.source, matchup: group.matchup, rolls: 0, vote: null, createdAt: group.createdAt.toISOString() };
+}
+
+/**
+ * Adds the virtual class: simulated groups (marked simulated) whose rolls come from the engine's seeded simulation,
+ * in the current tally and mode, so a class without dice still sees thousands of rolls converge.
+ */
+export async function addSimulatedGroups(teacher: TeacherContext, runId: string, input: SimulatedGroupsInput) {
+  const seed = input.seed ?? Math.floor(Math.random() * 2 ** 32);
+  const result = await db.transaction(async (tx) => {
+    const run = await runForTeacher(teacher, runId, "manage", tx);
+    const locked = (await lockClassRun(tx, run.id))!;
+    if (locked.status === "closed") throw new HttpError(409, "run_closed", "This class run is closed: it takes no more rolls.");
+    const existing = await listGroups(tx, run.id);
+    const simulatedSoFar = existing.filter((group) => group.source === "simulated").length;
+    const groups = await insertGroups(
+      tx,
+      Array.from({ length: input.groups }, (_, index) => ({
+        runId: run.id,
+        nickname: `Virtual group ${simulatedSoFar + index + 1}`,
+        source: "simulated" as const,
+        matchup: assignedMatchup(locked.dice.length, locked.players, existing.length + index),
+      })),
+    );
+    const start = Date.now();
+    const rolls: NewRoll[] = groups.flatMap((group, groupIndex) =>
+      simulatedMatchupRolls({
+        dice: group.matchup!.map((index) => locked.dice[index].faces),
+        dicePerPlayer: locked.dicePerPlayer,
+        rolls: input.rollsPerGroup,
+        seed: (seed + groupIndex * 7919) >>> 0,
+      }).map((entry, rollIndex) => ({
+        id: crypto.randomUUID(),
+        runId: run.id,
+        groupId: group.id,
+        tally: locked.currentTally,
+        dicePerPlayer: locked.dicePerPlayer,
+        matchup: group.matchup!,
+        faces: entry.faces,
+        totals: entry.totals,
+        winnerSeat: winnerSeatOf(entry.totals),
+        source: "simulated" as const,
+        // Interleaves the groups' rolls a millisecond apart, so the convergence chart mixes them as a real class would.
+        recordedAt: new Date(start + rollIndex * input.groups + groupIndex),
+      })),
+    );
+    const stored = await insertRolls(tx, rolls);
+    await bumpBoardVersion(tx, run.id);
+    return { groups, stored };
+  });
+  notifyRunChanged({ runId, kind: "rolls" });
+  return {
+    seed,
+    rolls: result.stored,
+    groups: result.groups.map((group) => ({
+      id: group.id,
+      nickname: group.nickname,
+      source: group.source,
+      matchup: group.matchup,
+      rolls: input.rollsPerGroup,
+      vote: null,
+      createdAt: group.createdAt.toISOString(),
+    })),
+  };
+}
+
+/** What a Run board broadcaster remembers of a run between refreshes (the rolls themselves stay on the pooling worker). */
+export type BoardRollCache = Map<string, { generation: number; boardVersion: number; ids: Set<string>; newestReceivedAt: string }>;
+
+// A roll's received_at is its transaction's start, so a batch may commit a little after a later one; new rolls are
+// looked for from this long before the newest one seen, and a count check catches anything older.
+const RECEIVED_OVERLAP_MILLISECONDS = 2_000;
+let nextGeneration = 1;
+
+/** How the board's rolls are pooled: inline, or on the worker thread (which may keep them between refreshes). */
+export type BoardPooling = {
+  pool: (request: BoardPoolRequest) => Promise<BoardPools>;
+  cache?: BoardRollCache;
+};
+
+const inlinePooling: BoardPooling = { pool: async (request) => poolBoard({ ...request, rolls: request.rows }) };
+
+/** The rows to pool: only those new since the cached refresh when nothing else changed, else every kept roll. */
+async function rowsToPool(tx: Executor, run: ClassRunRow, undoneRolls: number, cache?: BoardRollCache) {
+  const cached = cache?.get(run.id);
+  if (cached && cached.boardVersion === run.boardVersion) {
+    const since = new Date(Date.parse(cached.newestReceivedAt) - RECEIVED_OVERLAP_MILLISECONDS).toISOString();
+    const fresh = (await runRollsForPooling(tx, run.id, since)).filter((entry) => !cached.ids.has(entry.id));
+    const kept = await countKeptRolls(tx, run.id);
+    if (cached.ids.size + fresh.length === kept) return { rows: fresh, reset: false, kept, undoneRolls };
+  }
+  const rows = await runRollsForPooling(tx, run.id);
+  return { rows, reset: true, kept: rows.length, undoneRolls };
+}
+
+/**
+ * Everything the Run board shows: read in one repeatable-read transaction so the version matches the figures, then
+ * pooled after the transaction (inline, or on the worker thread), so no database connection waits on the arithmetic.
+ */
+export async function readBoardSnapshot(runId: string, viewerId: string | null, pooling: BoardPooling = inlinePooling): Promise<BoardSnapshot | null> {
+  const { cache } = pooling;
+  const read = await db.transaction(
+    async (tx) => {
+      const run = await findClassRun(tx, runId);
+      if (!run) return null;
+      // One transaction is one connection: its queries run one after another.
+      const groups = await listGroups(tx, runId);
+      const votes = await listVotes(tx, runId);
+      const undoneRolls = await countUndoneRolls(tx, runId);
+      const rows = await rowsToPool(tx, run, undoneRolls, cache);
+      return { run, groups, votes, ...rows };
+    },
+    { isolationLevel: "repeatable read", accessMode: "read only" },
+  );
+  if (!read) return null;
+  const { run, groups, votes, rows, undoneRolls, kept } = read;
+  const common = {
+    dice: run.dice.map((die) => ({ name: die.name, faces: die.faces })),
+    tieRule: run.tieRule as TieRule,
+    tallies: talliesOf(run),
+    nicknames: Object.fromEntries(groups.map((group) => [group.id, group.nickname])),
+  };
+  let pools: BoardPools;
+  if (cache) {
+    const previous = cache.get(runId);
+    const generation = read.reset || !previous ? nextGeneration++ : previous.generation;
+    try {
+      pools = await pooling.pool({ ...common, rows, keep: { runId, generation, reset: read.reset || !previous } });
+    } catch (error) {
+      cache.delete(runId);
+      // The worker lost the run's rolls (or stopped): read them all again and pool here.
+      if (!(error instanceof NeedsResetError)) logger.warn({ err: error }, "board pooling fell back to the main thread");
+      return readBoardSnapshot(runId, viewerId, inlinePooling);
+    }
+    const ids = read.reset || !previous ? new Set<string>() : previous.ids;
+    let newest = read.reset || !previous ? new Date(0).toISOString() : previous.newestReceivedAt;
+    for (const entry of rows) {
+      ids.add(entry.id);
+      if (entry.receivedAt > newest) newest = entry.receivedAt;
+    }
+    cache.set(runId, { generation, boardVersion: run.boardVersion, ids, newestReceivedAt: newest });
+  } else {
+    pools = await pooling.pool({ ...common, rows });
+  }
+  const voteByGroup = new Map(votes.map((vote) => [vote.groupId, vote.dieIndex]));
+  const voteCounts = run.dice.map(() => 0);
+  for (const vote of votes) if (vote.dieIndex < voteCounts.length) voteCounts[vote.dieIndex] += 1;
+  return {
+    runId,
+    // Every change the board shows bumps board_version, except a new roll, which adds a row; the sum only grows.
+    version: run.boardVersion + kept + undoneRolls,
+    run: classRunView(run, viewerId),
+    groups: groups.map((group) => ({
+      id: group.id,
+      nickname: group.nickname,
+      source: group.source,
+      matchup: group.matchup,
+      rolls: pools.rollsByGroup[group.id] ?? 0,
+      vote: voteByGroup.get(group.id) ?? null,
+      createdAt: group.createdAt.toISOString(),
+    })),
+    votes: voteCounts,
+    tallies: pools.tallies,
+    undoneRolls,
+    generatedAt: new Date().toISOString(),
+  };
+}
+
+export async function getBoardSnapshot(teacher: TeacherContext, runId: string): Promise<BoardSnapshot> {
+  await runForTeacher(teacher, runId, "view");
+  const snapshot = await readBoardSnapshot(runId, teacher.user.id);
+  if (!snapshot) throw notFound("The class run");
+  return snapshot;
+}
+
+/** What the Roll pad's code box shows before a group joins; closed runs and unknown codes are one 404. */
+export async function previewRunByCode(code: string): Promise<PadRunPreview> {
+  const run = await findRunByJoinCode(db, code);
+  if (!run) throw new HttpError(404, "unknown_code", "No open class run has that code. Check the code on the board and try again.");
+  return { runId: run.id, title: run.title, classGroup: run.classGroup, status: run.status, phase: run.phase as RunPhase, joinCode: run.joinCode };
+}

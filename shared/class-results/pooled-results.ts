@@ -1,0 +1,464 @@
+import Fraction from "fraction.js";
+import {
+  binomialTest,
+  countsBelow,
+  criticalValueForConfidence,
+  fractionToDecimal,
+  fractionToNumber,
+  fractionToString,
+  logGamma,
+  multiPlayerMatchup,
+  sumCountDistribution,
+  type ProportionInterval,
+  type TieRule,
+  wilsonInterval,
+  wilsonIntervalFromProportion,
+} from "../probability/index";
+
+/** Where a roll came from: a group's phone, the virtual class (seeded simulation) or a Paper import. */
+export type RollSource = "phone" | "simulated" | "paper";
+
+/** One stored roll, as much of it as pooling needs. */
+export interface PoolableRoll {
+  groupId: string;
+  groupNickname?: string;
+  tally: number;
+  dicePerPlayer: number;
+  /** Die indexes (into `dice`), one per seat, in the order the group recorded them. */
+  matchup: number[];
+  /** Each seat's total (the sum of its dicePerPlayer faces), in the same seat order as `matchup`. */
+  totals: number[];
+  /** Seat with the highest total, null when the highest total is shared; pooling re-derives it from `totals`. */
+  winnerSeat: number | null;
+  source: RollSource;
+  /** ISO timestamp; the convergence series follows this order. */
+  recordedAt: string;
+}
+
+/** An exact probability for display: the fraction "a/b", a 3-place decimal string and the nearest double. */
+export interface ExactValue {
+  fraction: string;
+  decimal: string;
+  value: number;
+}
+
+/** One seat's counts: wins = the highest total outright, ties = sharing the highest total, losses = the rest. */
+export interface SeatCounts {
+  seat: number;
+  dieIndex: number;
+  dieName: string;
+  wins: number;
+  ties: number;
+  losses: number;
+}
+
+/** One point of the convergence chart: after `rolls` rolls, the running frequency and the 95% band around the exact value. */
+export interface ConvergencePoint {
+  rolls: number;
+  /** The first seat's running relative frequency under the tie rule; null while no roll counts (only ties, re-roll-ties). */
+  frequency: number | null;
+  /** The band exact ± z·σ/√m in which the running frequency falls about 95% of the time for fair dice; null with m = 0. */
+  bandLower: number | null;
+  bandUpper: number | null;
+}
+
+/** Exact probabilities of one matchup from the first seat's side. */
+export interface MatchupExact {
+  /** P(the first seat's total is the highest outright). */
+  win: ExactValue;
+  /** P(the first seat shares the highest total with another seat). */
+  tie: ExactValue;
+  /** P(another seat is strictly higher than the first seat). */
+  loss: ExactValue;
+  /** P(the highest total is shared by any seats): the chance a roll is re-rolled under "re-roll ties". */
+  sharedHighest: ExactValue;
+  /** The first seat's winning chance under the tie rule; null when every roll ties under "re-roll ties". */
+  underTieRule: ExactValue | null;
+  /** Each seat's exact chance of the highest total outright. */
+  seatWins: ExactValue[];
+}
+
+/** The class's pooled results for one matchup (one ordered set of dice and one number of dice each). */
+export interface PooledMatchup {
+  /** `${dicePerPlayer}:${matchup.join("-")}`, e.g. "1:0-2". */
+  key: string;
+  /** Die indexes in ascending order; rolls recorded in another seat order are pooled here with their seats reordered. */
+  matchup: number[];
+  /** Dice names joined by " v ", e.g. "Puffin v Gannet". */
+  label: string;
+  dicePerPlayer: number;
+  players: number;
+  rolls: number;
+  /** Rolls with one outright highest total (the rolls that count under "re-roll ties"). */
+  decidedRolls: number;
+  seats: SeatCounts[];
+  /** The first seat's outright wins / rolls. */
+  frequency: number;
+  /** The first seat's relative frequency under the tie rule (see `scoreUnderTieRule`); null when no roll counts yet. */
+  frequencyUnderTieRule: number | null;
+  exact: MatchupExact;
+  /** Wilson 95% score interval around `frequencyUnderTieRule`; null when no roll counts yet. */
+  interval: ProportionInterval | null;
+  /** Running frequency after each roll in recordedAt order, evenly downsampled to at most CONVERGENCE_POINTS_MAX points (the last roll always kept). */
+  convergence: ConvergencePoint[];
+}
+
+/** How a group's results were tested against the exact probability. */
+export type PlausibilityMethod = "exact binomial test (whole numbers)" | "exact binomial test (floating point)";
+
+/** One group's results for one matchup, with a plausibility check of its recording. */
+export interface PooledGroup {
+  groupId: string;
+  groupNickname: string | null;
+  matchupKey: string;
+  matchup: number[];
+  label: string;
+  dicePerPlayer: number;
+  players: number;
+  rolls: number;
+  decidedRolls: number;
+  seats: SeatCounts[];
+  sources: RollSource[];
+  frequency: number;
+  frequencyUnderTieRule: number | null;
+  /**
+   * Two-sided binomial test (R's binom.test rule) of the first seat's outright wins among all the group's rolls of this
+   * matchup against the exact P(first seat wins outright); `implausible` when p < IMPLAUSIBLE_P_VALUE.
+   */
+  test: {
+    method: PlausibilityMethod;
+    successes: number;
+    trials: number;
+    nullProbability: ExactValue;
+    pValue: number;
+    implausible: boolean;
+  };
+}
+
+/** Everything the Run board, exports and the class report show about a set of rolls. */
+export interface PooledResults {
+  tieRule: TieRule;
+  matchups: PooledMatchup[];
+  groups: PooledGroup[];
+  totals: {
+    rolls: number;
+    bySource: Record<RollSource, number>;
+    /** Distinct groups with at least one roll. */
+    groups: number;
+    matchups: number;
+    implausibleGroups: number;
+  };
+}
+
+/** A group's result is flagged when its binomial test gives p below this (1%, common practice for a stricter flag than 5%). */
+export const IMPLAUSIBLE_P_VALUE = 0.01;
+/** Most points a convergence series keeps, so a chart stays light after thousands of rolls. */
+export const CONVERGENCE_POINTS_MAX = 200;
+/** Above this many trials × denominator bits, the binomial test sums in floating point (the whole-number sum grows too slow). */
+const WHOLE_NUMBER_TEST_BUDGET = 6_000;
+
+interface ExactFractions {
+  seatWins: Fraction[];
+  firstTie: Fraction;
+  sharedHighest: Fraction;
+}
+
+/** The outcome of one roll for the first seat: "win" outright, "tie" sharing the top, "loss"; and whether any seats shared the top. */
+function rollOutcome(totals: readonly number[]): { seatOutcomes: ("win" | "tie" | "loss")[]; shared: boolean } {
+  let highest = totals[0];
+  for (let seat = 1; seat < totals.length; seat += 1) if (totals[seat] > highest) highest = totals[seat];
+  let atTop = 0;
+  for (const total of totals) if (total === highest) atTop += 1;
+  return {
+    seatOutcomes: totals.map((total) => (total < highest ? "loss" : atTop === 1 ? "win" : "tie")),
+    shared: atTop > 1,
+  };
+}
+
+/** ISO timestamps in one format sort as plain strings; localeCompare would be far slower on thousands of rolls. */
+function byRecordedAt(x: OrderedRoll, y: OrderedRoll): number {
+  const a = x.roll.recordedAt;
+  const b = y.roll.recordedAt;
+  return a < b ? -1 : a > b ? 1 : x.order - y.order;
+}
+
+/** A roll's score for the first seat under a tie rule; null when the roll does not count (a tie under "re-roll ties"). */
+export function scoreUnderTieRule(totals: readonly number[], tieRule: TieRule): number | null {
+  const { seatOutcomes, shared } = rollOutcome(totals);
+  const first = seatOutcomes[0];
+  if (tieRule === "re-roll-ties") return shared ? null : first === "win" ? 1 : 0;
+  if (tieRule === "ties-score-half") return first === "win" ? 1 : first === "tie" ? 0.5 : 0;
+  return first === "win" ? 1 : 0;
+}
+
+/**
+ * Exact outcome probabilities of dice `faces` (one list per seat), each seat summing `dicePerPlayer` dice: each seat's chance
+ * of the highest total outright (the engine's multiPlayerMatchup) and the first seat's chance of sharing the top,
+ * Σₓ P(X = x)·[∏ P(Yᵢ ≤ x) − ∏ P(Yᵢ < x)] over the other seats (distribution of the maximum).
+ */
+function exactFractions(faces: number[][], dicePerPlayer: number): ExactFractions {
+  const outcome = multiPlayerMatchup(faces, { dicePerPlayer });
+  const distributions = faces.map((die) => sumCountDistribution(die, dicePerPlayer));
+  const [first, ...others] = distributions;
+  const sweeps = others.map((other) => countsBelow(other, first.values));
+  let shared = 0n;
+  first.counts.forEach((ways, index) => {
+    let atMost = ways;
+    let below = ways;
+    for (const sweep of sweeps) {
+      atMost *= sweep.below[index] + sweep.equal[index];
+      below *= sweep.below[index];
+    }
+    shared += atMost - below;
+  });
+  const total = distributions.reduce((product, distribution) => product * distribution.total, 1n);
+  return { seatWins: outcome.highestOutright, firstTie: new Fraction(shared, total), sharedHighest: outcome.sharedHighest };
+}
+
+/** The first seat's exact winning chance under a tie rule, the same rules as `scoreUnderTieRule`. */
+function exactUnderTieRule(exact: ExactFractions, tieRule: TieRule): Fraction | null {
+  const win = exact.seatWins[0];
+  if (tieRule === "ties-score-half") return win.add(exact.firstTie.div(2));
+  if (tieRule === "ties-score-nothing") return win;
+  const decided = new Fraction(1).sub(exact.sharedHighest);
+  return decided.equals(0) ? null : win.div(decided);
+}
+
+/** Variance of one roll's score under the tie rule, for the convergence band: E[S²] − E[S]², with S ∈ {0, ½, 1}. */
+function scoreVariance(exact: ExactFractions, tieRule: TieRule, mean: Fraction): number {
+  const p = fractionToNumber(mean);
+  if (tieRule !== "ties-score-half") return p * (1 - p);
+  return fractionToNumber(exact.seatWins[0].add(exact.firstTie.div(4))) - p * p;
+}
+
+/** An exact fraction for display. */
+export function exactValue(value: Fraction): ExactValue {
+  return { fraction: fractionToString(value), decimal: fractionToDecimal(value, 3), value: fractionToNumber(value) };
+}
+
+/**
+ * Two-sided binomial p-value, R's binom.test rule (sum of P(X = k) over every k no more likely than the observed count):
+ * exact in whole numbers through the engine's binomialTest when that is quick, otherwise the same sum in floating point
+ * with log-gamma terms and R's relative tolerance of 1 + 10⁻⁷.
+ */
+export function binomialPValue(successes: number, trials: number, probability: Fraction): { pValue: number; method: PlausibilityMethod } {
+  const bits = probability.d.toString(2).length;
+  if (trials * bits <= WHOLE_NUMBER_TEST_BUDGET) {
+    return { pValue: binomialTest(successes, trials, probability).pValueNumber, method: "exact binomial test (whole numbers)" };
+  }
+  const p = fractionToNumber(probability);
+  if (p === 0 || p === 1) {
+    const certain = p === 0 ? 0 : trials;
+    return { pValue: successes === certain ? 1 : 0, method: "exact binomial test (floating point)" };
+  }
+  const logCombinations = (k: number) => logGamma(trials + 1) - logGamma(k + 1) - logGamma(trials - k + 1);
+  const logProbability = (k: number) => logCombinations(k) + k * Math.log(p) + (trials - k) * Math.log(1 - p);
+  const observed = logProbability(successes);
+  const threshold = observed + Math.log(1 + 1e-7);
+  let total = 0;
+  for (let k = 0; k <= trials; k += 1) {
+    const term = logProbability(k);
+    if (term <= threshold) total += Math.exp(term);
+  }
+  return { pValue: Math.min(1, total), method: "exact binomial test (floating point)" };
+}
+
+/** The indexes 1 … n (as roll counts) kept in a convergence series: every one up to the limit, else evenly spaced, ending at n. */
+function convergenceRollCounts(rolls: number): number[] {
+  if (rolls <= CONVERGENCE_POINTS_MAX) return Array.from({ length: rolls }, (_, index) => index + 1);
+  const kept = new Set<number>();
+  for (let step = 1; step <= CONVERGENCE_POINTS_MAX; step += 1) kept.add(Math.round((step * rolls) / CONVERGENCE_POINTS_MAX));
+  return [...kept].filter((count) => count >= 1).sort((x, y) => x - y);
+}
+
+interface OrderedRoll {
+  roll: PoolableRoll;
+  /** Totals in ascending die-index order. */
+  totals: number[];
+  order: number;
+}
+
+function emptySeats(matchup: number[], names: string[]): SeatCounts[] {
+  return matchup.map((dieIndex, seat) => ({ seat, dieIndex, dieName: names[dieIndex], wins: 0, ties: 0, losses: 0 }));
+}
+
+/** Adds one roll to the seat counts without allocating (this runs for every roll on every board refresh); true when decided. */
+function countInto(seats: SeatCounts[], totals: number[]): boolean {
+  let highest = totals[0];
+  for (let seat = 1; seat < totals.length; seat += 1) if (totals[seat] > highest) highest = totals[seat];
+  let atTop = 0;
+  for (let seat = 0; seat < totals.length; seat += 1) if (totals[seat] === highest) atTop += 1;
+  for (let seat = 0; seat < totals.length; seat += 1) {
+    if (totals[seat] < highest) seats[seat].losses += 1;
+    else if (atTop === 1) seats[seat].wins += 1;
+    else seats[seat].ties += 1;
+  }
+  return atTop === 1;
+}
+
+function frequencyUnder(seats: SeatCounts[], rolls: number, decided: number, tieRule: TieRule): number | null {
+  const first = seats[0];
+  if (tieRule === "re-roll-ties") return decided === 0 ? null : first.wins / decided;
+  if (tieRule === "ties-score-half") return rolls === 0 ? null : (first.wins + first.ties / 2) / rolls;
+  return rolls === 0 ? null : first.wins / rolls;
+}
+
+/**
+ * Pools a class's rolls per matchup against the exact probabilities from the engine: counts per seat, the first seat's
+ * relative frequency (raw and under the tie rule) beside the exact fraction, a Wilson 95% interval, a downsampled
+ * convergence series with its 95% band, and per group an exact two-sided binomial test flagging implausible recording.
+ * Rolls of the same dice in another seat order pool together, seats reordered by ascending die index.
+ * Callers choose the rolls (one tally, with or without simulated rolls); undone rolls must be left out.
+ */
+export function poolRolls(input: { dice: { name: string; faces: number[] }[]; tieRule: TieRule; rolls: PoolableRoll[] }): PooledResults {
+  const { dice, tieRule } = input;
+  const names = dice.map((die) => die.name);
+  const z = criticalValueForConfidence(0.95);
+  const exactCache = new Map<string, ExactFractions>();
+  const byMatchup = new Map<string, OrderedRoll[]>();
+  const byGroup = new Map<string, OrderedRoll[]>();
+  const bySource: Record<RollSource, number> = { phone: 0, simulated: 0, paper: 0 };
+
+  // Keys are built once per distinct seat order, not once per roll: a board re-pools thousands of rolls a few times a second.
+  const orderKeys = new Map<string, { key: string; seats: number[] }>();
+  for (let order = 0; order < input.rolls.length; order += 1) {
+    const roll = input.rolls[order];
+    const recorded = `${roll.dicePerPlayer}:${roll.matchup.join("-")}`;
+    let known = orderKeys.get(recorded);
+    if (!known) {
+      if (roll.matchup.length < 2) throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
+      if (roll.matchup.some((index) => !Number.isInteger(index) || index < 0 || index >= dice.length)) {
+        throw new RangeError(`A roll names a die that is not in the set (the set has ${dice.length} dice).`);
+      }
+      const seats = roll.matchup.map((dieIndex, seat) => ({ dieIndex, seat })).sort((x, y) => x.dieIndex - y.dieIndex || x.seat - y.seat);
+      known = { key: `${roll.dicePerPlayer}:${seats.map((entry) => entry.dieIndex).join("-")}`, seats: seats.map((entry) => entry.seat) };
+      orderKeys.set(recorded, known);
+    }
+    if (roll.totals.length !== known.seats.length) throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
+    const ordered: OrderedRoll = { roll, totals: known.seats.map((seat) => roll.totals[seat]), order };
+    let ofMatchup = byMatchup.get(known.key);
+    if (!ofMatchup) byMatchup.set(known.key, (ofMatchup = []));
+    ofMatchup.push(ordered);
+    const groupKey = `${roll.groupId} ${known.key}`;
+    let ofGroup = byGroup.get(groupKey);
+    if (!ofGroup) byGroup.set(groupKey, (ofGroup = []));
+    ofGroup.push(ordered);
+    bySource[roll.source] += 1;
+  }
+
+  const exactFor = (key: string, matchup: number[], dicePerPlayer: number): ExactFractions => {
+    if (!exactCache.has(key)) exactCache.set(key, exactFractions(matchup.map((index) => dice[index].faces), dicePerPlayer));
+    return exactCache.get(key)!;
+  };
+  const keyParts = (key: string) => {
+    const [perPlayer, indexes] = key.split(":");
+    return { dicePerPlayer: Number(perPlayer), matchup: indexes.split("-").map(Number) };
+  };
+
+  const matchups: PooledMatchup[] = [...byMatchup.entries()].map(([key, rolls]) => {
+    const { dicePerPlayer, matchup } = keyParts(key);
+    const exact = exactFor(key, matchup, dicePerPlayer);
+    const underTieRule = exactUnderTieRule(exact, tieRule);
+    const sigma = underTieRule === null ? 0 : Math.sqrt(Math.max(0, scoreVariance(exact, tieRule, underTieRule)));
+    const centre = underTieRule === null ? null : fractionToNumber(underTieRule);
+    const sorted = [...rolls].sort(byRecordedAt);
+    const seats = emptySeats(matchup, names);
+    const kept = new Set(convergenceRollCounts(sorted.length));
+    const convergence: ConvergencePoint[] = [];
+    let decided = 0;
+    sorted.forEach((entry, index) => {
+      if (countInto(seats, entry.totals)) decided += 1;
+      const count = index + 1;
+      if (!kept.has(count)) return;
+      const counted = tieRule === "re-roll-ties" ? decided : count;
+      const half = centre === null || counted === 0 ? null : (z * sigma) / Math.sqrt(counted);
+      convergence.push({
+        rolls: count,
+        frequency: frequencyUnder(seats, count, decided, tieRule),
+        bandLower: half === null || centre === null ? null : Math.max(0, centre - half),
+        bandUpper: half === null || centre === null ? null : Math.min(1, centre + half),
+      });
+    });
+    const frequencyUnderTieRule = frequencyUnder(seats, sorted.length, decided, tieRule);
+    const interval =
+      frequencyUnderTieRule === null
+        ? null
+        : tieRule === "re-roll-ties"
+          ? wilsonInterval(seats[0].wins, decided)
+          : tieRule === "ties-score-half"
+            ? wilsonIntervalFromProportion(frequencyUnderTieRule, sorted.length)
+            : wilsonInterval(seats[0].wins, sorted.length);
+    const tie = exact.firstTie;
+    return {
+      key,
+      matchup,
+      label: matchup.map((index) => names[index]).join(" v "),
+      dicePerPlayer,
+      players: matchup.length,
+      rolls: sorted.length,
+      decidedRolls: decided,
+      seats,
+      frequency: seats[0].wins / sorted.length,
+      frequencyUnderTieRule,
+      exact: {
+        win: exactValue(exact.seatWins[0]),
+        tie: exactValue(tie),
+        loss: exactValue(new Fraction(1).sub(exact.seatWins[0]).sub(tie)),
+        sharedHighest: exactValue(exact.sharedHighest),
+        underTieRule: underTieRule === null ? null : exactValue(underTieRule),
+        seatWins: exact.seatWins.map(exactValue),
+      },
+      interval,
+      convergence,
+    };
+  });
+  matchups.sort((x, y) => x.dicePerPlayer - y.dicePerPlayer || x.players - y.players || x.key.localeCompare(y.key, "en", { numeric: true }));
+
+  const groups: PooledGroup[] = [...byGroup.entries()].map(([groupKey, rolls]) => {
+    const key = groupKey.slice(groupKey.indexOf(" ") + 1);
+    const { dicePerPlayer, matchup } = keyParts(key);
+    const exact = exactFor(key, matchup, dicePerPlayer);
+    const seats = emptySeats(matchup, names);
+    let decided = 0;
+    for (const entry of rolls) if (countInto(seats, entry.totals)) decided += 1;
+    const { pValue, method } = binomialPValue(seats[0].wins, rolls.length, exact.seatWins[0]);
+    const first = rolls[0].roll;
+    return {
+      groupId: first.groupId,
+      groupNickname: rolls.find((entry) => entry.roll.groupNickname)?.roll.groupNickname ?? null,
+      matchupKey: key,
+      matchup,
+      label: matchup.map((index) => names[index]).join(" v "),
+      dicePerPlayer,
+      players: matchup.length,
+      rolls: rolls.length,
+      decidedRolls: decided,
+      seats,
+      sources: [...new Set(rolls.map((entry) => entry.roll.source))],
+      frequency: seats[0].wins / rolls.length,
+      frequencyUnderTieRule: frequencyUnder(seats, rolls.length, decided, tieRule),
+      test: {
+        method,
+        successes: seats[0].wins,
+        trials: rolls.length,
+        nullProbability: exactValue(exact.seatWins[0]),
+        pValue,
+        implausible: pValue < IMPLAUSIBLE_P_VALUE,
+      },
+    };
+  });
+  groups.sort((x, y) => (x.groupNickname ?? x.groupId).localeCompare(y.groupNickname ?? y.groupId) || x.matchupKey.localeCompare(y.matchupKey));
+
+  return {
+    tieRule,
+    matchups,
+    groups,
+    totals: {
+      rolls: input.rolls.length,
+      bySource,
+      groups: new Set(input.rolls.map((roll) => roll.groupId)).size,
+      matchups: matchups.length,
+      implausibleGroups: new Set(groups.filter((group) => group.test.implausible).map((group) => group.groupId)).size,
+    },
+  };
+}

@@ -1,0 +1,158 @@
+import { z } from "zod";
+import { faceValueSchema } from "./probability/die";
+import type { SetDie } from "./schemas/dice-sets";
+import { joinCodeSchema, matchupSchema, nicknameSchema, type BoardSnapshot, type RunPhase, type RunStatus, type RunTally } from "./schemas/class-runs";
+
+/**
+ * Every socket.io event of a class run, named resource:verb. Pupils' events carry the group's signed guest token,
+ * so each one is checked on its own and a reconnect needs no server-side session.
+ */
+export const EVENTS = {
+  /** pad → server: join a run by its code with a new group nickname; answers the guest token. */
+  groupJoin: "group:join",
+  /** pad → server: rejoin with a stored token after a reload or a dropped connection; answers the pad's state. */
+  groupResume: "group:resume",
+  /** pad → server: the group's Guess vote (one per group; a new vote replaces the old). */
+  voteCast: "vote:cast",
+  /** pad → server: the group chooses its matchup, where the lesson lets groups choose. */
+  matchupChoose: "matchup:choose",
+  /** pad → server: one roll, with the id the phone gave it; acknowledged only once committed (a resend is acknowledged too). */
+  rollRecord: "roll:record",
+  /** pad → server: undo one of the group's rolls (the row stays, marked undone). */
+  rollUndo: "roll:undo",
+  /** board → server: start watching a run; answers the versioned snapshot read from the database. */
+  boardSnapshot: "board:snapshot",
+  /** server → board: the aggregates again, at most a few times a second, each with a newer version. */
+  boardUpdate: "board:update",
+  /** server → pads and boards: the teacher moved the run to another phase (a Twist starts a fresh tally). */
+  runPhase: "run:phase",
+  /** server → pads and boards: the run was opened, paused or closed. */
+  runStatus: "run:status",
+  /** server → pads: the teacher changed a group (its matchup); the pad refreshes its state. */
+  groupUpdate: "group:update",
+} as const;
+
+/** Error codes an acknowledgement may carry. Retryable ones leave the roll in the phone's outbox. */
+export const eventErrorCodes = [
+  "invalid_input",
+  "unknown_code",
+  "nickname_taken",
+  "bad_token",
+  "run_closed",
+  "run_paused",
+  "voting_closed",
+  "matchup_assigned",
+  "no_matchup",
+  "wrong_matchup",
+  "wrong_mode",
+  "bad_faces",
+  "id_taken",
+  "not_found",
+  "rate_limited",
+  "unauthenticated",
+  "forbidden",
+  "server_error",
+] as const;
+export type EventErrorCode = (typeof eventErrorCodes)[number];
+
+/** Codes after which the same event may succeed later unchanged, so the outbox keeps it and tries again. */
+export const RETRYABLE_ERROR_CODES: readonly EventErrorCode[] = ["run_paused", "rate_limited", "server_error"];
+
+export type EventError = { code: EventErrorCode; message: string; retryAfterMs?: number };
+/** Every acknowledgement: `{ ok: true, … }` or `{ ok: false, error: { code, message } }`. */
+export type Ack<T extends object = object> = ({ ok: true } & T) | { ok: false; error: EventError };
+
+const token = z.string({ error: "This phone has no group token: join the run again." }).min(20).max(600);
+const uuid = (what: string) => z.uuid({ error: `That is not a ${what} id.` });
+
+export const groupJoinPayloadSchema = z.object({ code: joinCodeSchema, nickname: nicknameSchema });
+export type GroupJoinPayload = z.input<typeof groupJoinPayloadSchema>;
+
+export const groupResumePayloadSchema = z.object({ token });
+export type GroupResumePayload = z.infer<typeof groupResumePayloadSchema>;
+
+export const voteCastPayloadSchema = z.object({
+  token,
+  dieIndex: z.number({ error: "Vote for one of the dice." }).int().min(0, { error: "Vote for one of the dice." }),
+});
+export type VoteCastPayload = z.infer<typeof voteCastPayloadSchema>;
+
+export const matchupChoosePayloadSchema = z.object({ token, matchup: matchupSchema });
+export type MatchupChoosePayload = z.infer<typeof matchupChoosePayloadSchema>;
+
+/** Faces rolled: one list per player (2 or 3), each of dicePerPlayer faces (1 or 2). */
+export const rolledFacesSchema = z
+  .array(z.array(faceValueSchema, { error: "Faces are numbers." }).min(1).max(2, { error: "Each player rolls one or two dice." }), {
+    error: "Send the faces rolled, one list per player.",
+  })
+  .min(2, { error: "A roll has two or three players." })
+  .max(3, { error: "A roll has two or three players." });
+
+/** One roll as the phone sends it. The id comes from the phone (uuid v4), so a resend is stored once. */
+export const rollPayloadSchema = z.object({
+  id: uuid("roll"),
+  tally: z.number().int().min(1).max(50),
+  matchup: matchupSchema,
+  faces: rolledFacesSchema,
+  recordedAt: z.iso.datetime({ offset: true, error: "recordedAt must be an ISO date and time." }),
+});
+export type RollPayload = z.infer<typeof rollPayloadSchema>;
+
+export const rollRecordPayloadSchema = z.object({ token, roll: rollPayloadSchema });
+export type RollRecordPayload = z.infer<typeof rollRecordPayloadSchema>;
+
+export const rollUndoPayloadSchema = z.object({ token, rollId: uuid("roll") });
+export type RollUndoPayload = z.infer<typeof rollUndoPayloadSchema>;
+
+export const boardSnapshotPayloadSchema = z.object({ runId: uuid("class run") });
+export type BoardSnapshotPayload = z.infer<typeof boardSnapshotPayloadSchema>;
+
+/** The run as a group's phone sees it. */
+export type PadRun = {
+  id: string;
+  title: string;
+  classGroup: string;
+  status: RunStatus;
+  phase: RunPhase;
+  phases: RunPhase[];
+  tally: number;
+  tallies: RunTally[];
+  dicePerPlayer: number;
+  players: number;
+  tieRule: "re-roll-ties" | "ties-score-half" | "ties-score-nothing";
+  matchupChoice: "assigned" | "group-choice";
+  dice: SetDie[];
+};
+
+/** A stored roll as the pad lists it. */
+export type PadRoll = { id: string; tally: number; matchup: number[]; faces: number[][]; totals: number[]; winnerSeat: number | null; recordedAt: string };
+
+/** What group:join and group:resume answer: everything the Roll pad shows. */
+export type PadState = {
+  run: PadRun;
+  group: { id: string; nickname: string; matchup: number[] | null };
+  vote: number | null;
+  /** The group's rolls kept on the server in the current tally (undone ones left out). */
+  savedRolls: number;
+  /** The group's latest saved rolls in the current tally, newest first (at most 20). */
+  recentRolls: PadRoll[];
+};
+
+export type GroupJoinAck = Ack<{ token: string; state: PadState }>;
+export type GroupResumeAck = Ack<{ state: PadState }>;
+export type VoteCastAck = Ack<{ dieIndex: number }>;
+export type MatchupChooseAck = Ack<{ matchup: number[] }>;
+/** `duplicate` is true when the id was already stored (a resend): the roll is saved once either way. */
+export type RollRecordAck = Ack<{ id: string; duplicate: boolean }>;
+export type RollUndoAck = Ack<{ id: string }>;
+export type BoardSnapshotAck = Ack<{ snapshot: BoardSnapshot }>;
+
+export type RunPhaseBroadcast = { runId: string; phase: RunPhase; tally: number; dicePerPlayer: number; players: number };
+export type RunStatusBroadcast = { runId: string; status: RunStatus };
+export type GroupUpdateBroadcast = { runId: string; groupId: string };
+
+/** A readable message for a zod error on a socket payload: the first issue, with its path. */
+export function payloadProblem(error: z.ZodError): string {
+  const issue = error.issues[0];
+  return issue ? issue.message : "The message was not understood.";
+}

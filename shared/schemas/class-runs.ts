@@ -1,0 +1,210 @@
+import { z } from "zod";
+import type { PooledResults } from "../class-results/pooled-results";
+import type { SetDie } from "./dice-sets";
+import { LESSON_PHASES, type LessonPhaseName } from "./lessons";
+
+/** A class run's status: open takes rolls, paused keeps phones waiting, closed takes nothing more. */
+export const runStatusSchema = z.enum(["open", "paused", "closed"], { error: "A run is open, paused or closed." });
+export type RunStatus = z.infer<typeof runStatusSchema>;
+export const runStatusLabels: Record<RunStatus, string> = { open: "Open", paused: "Paused", closed: "Closed" };
+
+export const runPhaseSchema = z.enum(LESSON_PHASES, { error: `The phase is one of ${LESSON_PHASES.join(", ")}.` });
+export type RunPhase = LessonPhaseName;
+
+/** What a phase asks of pupils, shown on the Roll pad and the Wall view. */
+export const runPhaseHints: Record<RunPhase, string> = {
+  Guess: "Vote for the die you think is best.",
+  Roll: "Play your matchup and record every roll.",
+  Pool: "The class's rolls are put together.",
+  Prove: "The tree diagram gives the exact chances.",
+  Twist: "A new way to play: record again from zero.",
+  Reflect: "Talk it through: was there a best die?",
+};
+
+/** Join codes use no look-alike characters (no 0/O, 1/I/L), so a code read from the back of a room is typed right. */
+export const JOIN_CODE_ALPHABET = "ABCDEFGHJKMNPQRSTUVWXYZ23456789";
+export const JOIN_CODE_LENGTH = 6;
+
+/** A typed join code: spaces and dashes dropped, letters upper-cased, then checked against the alphabet. */
+export const joinCodeSchema = z
+  .string({ error: "Type the join code." })
+  .transform((value) => value.replace(/[\s-]/g, "").toUpperCase())
+  .pipe(
+    z
+      .string()
+      .length(JOIN_CODE_LENGTH, { error: `A join code has ${JOIN_CODE_LENGTH} characters.` })
+      .regex(new RegExp(`^[${JOIN_CODE_ALPHABET}]+$`), { error: "A join code uses letters and the digits 2 to 9 only." }),
+  );
+
+export const NICKNAME_MIN = 2;
+export const NICKNAME_MAX = 24;
+
+// Short lists of rude words pupils might try, checked after undoing common letter swaps (sh1t, @rse). Strong words are
+// refused anywhere, even across spaces; milder ones only as a word of their own, so "Essex" or "Dickens" stay allowed.
+const strongWords = ["fuck", "shit", "cunt", "wank", "twat", "slut", "whore", "nazi", "porn"];
+const mildWords = ["arse", "bastard", "bitch", "bollock", "bollocks", "bugger", "cock", "crap", "dick", "knob", "penis", "piss", "prick", "sex", "sexy", "slag", "tit", "tits", "poo", "bum"];
+const mildEndings = ["", "s", "es", "head", "face", "hole", "wipe", "ing", "er", "ed"];
+const letterSwaps: Record<string, string> = { "0": "o", "1": "i", "3": "e", "4": "a", "5": "s", "7": "t", "@": "a", $: "s", "!": "i" };
+const unswapped = (text: string) => [...text.toLowerCase()].map((character) => letterSwaps[character] ?? character).join("");
+
+/** Why a nickname is refused, or null when it is fine: length, characters, rude words, things that look like personal data. */
+export function nicknameProblem(nickname: string): string | null {
+  const trimmed = nickname.trim();
+  if (trimmed.length < NICKNAME_MIN) return `A group nickname needs at least ${NICKNAME_MIN} characters.`;
+  if (trimmed.length > NICKNAME_MAX) return `Keep the group nickname to ${NICKNAME_MAX} characters or fewer.`;
+  if (/\S+@\S+/.test(trimmed)) return "That looks like an e-mail address. Choose a made-up group nickname instead.";
+  if ((trimmed.match(/\d/g) ?? []).length >= 5) return "That looks like a phone number. Choose a made-up group nickname without long numbers.";
+  if (/(https?:|www\.|\.(com|net|org|uk|io)\b)/i.test(trimmed)) return "Web addresses are not nicknames. Choose a made-up group nickname.";
+  if (/[#/\\<>{}[\]=_^~`|"]/.test(trimmed)) return "Use letters, numbers, spaces and simple punctuation ( ' - ! ? . & ) only.";
+  // A word of digits alone is a number ("Group 717"), not letters in disguise.
+  const words = trimmed
+    .split(/[\s'.&?-]+/)
+    .filter((word) => /\p{L}/u.test(word))
+    .map((word) => unswapped(word).replace(/[^a-z]/g, ""))
+    .filter(Boolean);
+  const joined = unswapped(trimmed).replace(/[^a-z]/g, "");
+  const rude =
+    strongWords.some((word) => joined.includes(word)) ||
+    words.some((word) => mildWords.some((mild) => word.startsWith(mild) && mildEndings.includes(word.slice(mild.length))));
+  if (rude) return "Please choose a friendlier nickname.";
+  return null;
+}
+
+/** A group nickname: 2 to 24 characters, no rude words, nothing that looks like a name's e-mail or phone number. */
+export const nicknameSchema = z
+  .string({ error: "Choose a group nickname." })
+  .transform((value) => value.trim().replace(/\s+/g, " "))
+  .check((context) => {
+    const problem = nicknameProblem(context.value);
+    if (problem) context.issues.push({ code: "custom", message: problem, input: context.value });
+  });
+
+export const classRunIdParamsSchema = z.object({ id: z.uuid({ error: "That is not a class run id." }) });
+export const runGroupParamsSchema = classRunIdParamsSchema.extend({ groupId: z.uuid({ error: "That is not a group id." }) });
+export const padCodeParamsSchema = z.object({ code: joinCodeSchema });
+
+/** Body of POST /api/class-runs: open a run of one of the teacher's lessons. */
+export const openClassRunSchema = z.object({ lessonId: z.uuid({ error: "Pick one of your lessons." }) });
+export type OpenClassRunInput = z.infer<typeof openClassRunSchema>;
+
+/** Body of POST /api/class-runs/:id/status. */
+export const runStatusChangeSchema = z.object({ status: runStatusSchema });
+
+/** How the Twist phase changes the game. */
+export const twistModeSchema = z.enum(["two-dice-each", "three-players"], { error: "The twist is two dice each or three players." });
+export type TwistMode = z.infer<typeof twistModeSchema>;
+export const twistModeLabels: Record<TwistMode, string> = { "two-dice-each": "Two dice each", "three-players": "Three players" };
+
+/** Body of POST /api/class-runs/:id/phase; entering Twist names the twist (a fresh tally starts). */
+export const runPhaseChangeSchema = z.object({ phase: runPhaseSchema, twist: twistModeSchema.optional() });
+export type RunPhaseChange = z.infer<typeof runPhaseChangeSchema>;
+
+/** A matchup: die indexes into the run's dice, one per player, all different. */
+export const matchupSchema = z
+  .array(z.number().int({ error: "Name each die by its number in the set." }).min(0, { error: "Name each die by its number in the set." }), {
+    error: "A matchup lists one die per player.",
+  })
+  .min(2, { error: "A matchup needs two or three dice." })
+  .max(3, { error: "A matchup needs two or three dice." })
+  .refine((matchup) => new Set(matchup).size === matchup.length, { error: "Each player in a matchup uses a different die." });
+
+/** Body of PUT /api/class-runs/:id/groups/:groupId/matchup (the teacher assigns a group's matchup). */
+export const groupMatchupSchema = z.object({ matchup: matchupSchema });
+
+export const SIMULATED_ROLLS_MAX = 20_000;
+/** Body of POST /api/class-runs/:id/simulated-groups: the virtual class. */
+export const simulatedGroupsSchema = z
+  .object({
+    groups: z.number({ error: "Say how many simulated groups." }).int().min(1, { error: "Add at least 1 group." }).max(20, { error: "Add at most 20 groups at once." }),
+    rollsPerGroup: z
+      .number({ error: "Say how many rolls each group makes." })
+      .int({ error: "Rolls must be a whole number." })
+      .min(1, { error: "Each group makes at least 1 roll." })
+      .max(5000, { error: "Each group makes at most 5000 rolls." }),
+    seed: z.number().int().min(0).max(2 ** 32 - 1).optional(),
+  })
+  .refine((input) => input.groups * input.rollsPerGroup <= SIMULATED_ROLLS_MAX, {
+    error: `Simulate at most ${SIMULATED_ROLLS_MAX} rolls at once.`,
+    path: ["rollsPerGroup"],
+  });
+export type SimulatedGroupsInput = z.infer<typeof simulatedGroupsSchema>;
+
+/** One tally of a run and the mode its rolls were recorded in. */
+export type RunTally = { tally: number; dicePerPlayer: number; players: number; startedAt: string };
+
+/** A class run as the teacher's screens see it. */
+export type ClassRun = {
+  id: string;
+  title: string;
+  classGroup: string;
+  lessonId: string | null;
+  diceSetName: string;
+  dice: SetDie[];
+  dicePerPlayer: number;
+  players: number;
+  tieRule: "re-roll-ties" | "ties-score-half" | "ties-score-nothing";
+  matchupChoice: "assigned" | "group-choice";
+  phases: RunPhase[];
+  phase: RunPhase;
+  status: RunStatus;
+  joinCode: string;
+  /** The Roll pad's path for this run, e.g. "/pad/KX7RTM"; the screens add the address phones use. */
+  joinPath: string;
+  /** APP_ORIGIN when the server was given one (the address phones can reach); otherwise null and the browser's own is used. */
+  configuredOrigin: string | null;
+  currentTally: number;
+  tallies: RunTally[];
+  boardVersion: number;
+  ownerId: string;
+  /** Whether the teacher asking opened this run (board updates pushed to every watcher say false; compare ownerId instead). */
+  isOwner: boolean;
+  ownerName: string;
+  createdAt: string;
+  closedAt: string | null;
+};
+
+/** One row of the Class runs list. */
+export type ClassRunSummary = Pick<ClassRun, "id" | "title" | "classGroup" | "diceSetName" | "phase" | "status" | "joinCode" | "createdAt" | "closedAt"> & {
+  groupCount: number;
+  rollCount: number;
+};
+
+/** A lesson the teacher may open a run of. */
+export type RunnableLesson = {
+  id: string;
+  title: string;
+  classGroup: string;
+  diceSetName: string | null;
+  /** Why the lesson cannot be run yet (no dice set, or a plan that does not check), or null. */
+  problem: string | null;
+  openRunId: string | null;
+};
+
+/** A group as the Run board lists it. */
+export type BoardGroup = {
+  id: string;
+  nickname: string;
+  source: "phone" | "simulated" | "paper";
+  matchup: number[] | null;
+  rolls: number;
+  vote: number | null;
+  createdAt: string;
+};
+
+/** The Run board's whole state, read from the database at `version` (class_run.board_version). */
+export type BoardSnapshot = {
+  runId: string;
+  version: number;
+  run: ClassRun;
+  groups: BoardGroup[];
+  /** Guess votes per die index. */
+  votes: number[];
+  /** Per tally: every roll pooled, and the class's own rolls without the virtual class's (null when there are no simulated rolls). */
+  tallies: { tally: RunTally; pooled: PooledResults; withoutSimulated: PooledResults | null }[];
+  /** Undone rolls are kept (so a resend cannot revive them) and counted here. */
+  undoneRolls: number;
+  generatedAt: string;
+};
+
+/** What the Roll pad's code box looks up (GET /api/pad/:code): enough to show the run before a group joins. */
+export type PadRunPreview = { runId: string; title: string; classGroup: string; status: RunStatus; phase: RunPhase; joinCode: string };

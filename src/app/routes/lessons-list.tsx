@@ -1,0 +1,5 @@
+import { LessonsTable } from "@/features/lessons/components/lessons-table";
+
+export function LessonsListRoute() {
+  return <LessonsTable />;
+}

@@ -1,0 +1,37 @@
+import { tieRuleLabels } from "@shared/schemas/lessons";
+
+/** A probability or frequency as three decimal places ("0.556"); a dash when there is none yet. */
+export function three(value: number | null | undefined): string {
+  return value === null || value === undefined ? "—" : value.toFixed(3);
+}
+
+/** A day as teachers write it, e.g. "12 Mar 2026". */
+export function dayText(iso: string): string {
+  return new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
+}
+
+/** The glossary's name of a tie rule ("Re-roll ties"), or the stored text when unknown. */
+export function tieRuleText(rule: string): string {
+  return (tieRuleLabels as Record<string, string>)[rule] ?? rule;
+}
+
+/** "two players" or "three players". */
+export function playersText(players: number): string {
+  return players === 3 ? "three players" : "two players";
+}
+
+/** "1 roll", "12 rolls". */
+export function plural(count: number, one: string, many = `${one}s`): string {
+  return `${count.toLocaleString("en-GB")} ${count === 1 ? one : many}`;
+}
+
+const tieRulePhrases: Record<string, string> = {
+  "re-roll-ties": "with ties re-rolled",
+  "ties-score-half": "with a tie scoring half",
+  "ties-score-nothing": "with a tie scoring nothing",
+};
+
+/** A tie rule as a phrase for sentences: "with ties re-rolled". */
+export function tieRulePhrase(rule: string): string {
+  return tieRulePhrases[rule] ?? `under the rule ${rule}`;
+}
