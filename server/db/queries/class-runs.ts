@@ -21,52 +21,45 @@ export type LessonForRun = {
   diceSet: { id: string; name: string; dice: SetDie[] } | null;
 };
 
+const lessonForRunColumns = {
+  id: lesson.id,
+  ownerId: lesson.ownerId,
+  departmentId: lesson.departmentId,
+  title: lesson.title,
+  classGroup: lesson.classGroup,
+  archivedAt: lesson.archivedAt,
+  plan: lesson.plan,
+  diceSetId: diceSet.id,
+  diceSetName: diceSet.name,
+  dice: diceSet.dice,
+};
+
+type DiceSetColumns = { diceSetId: string | null; diceSetName: string | null; dice: SetDie[] | null };
+
+/** Folds the left-joined dice set columns into one `diceSet`, null when the lesson has none. */
+function lessonForRunFromRow<Row extends DiceSetColumns>({ diceSetId, diceSetName, dice, ...rest }: Row) {
+  return { ...rest, diceSet: diceSetId && diceSetName && dice ? { id: diceSetId, name: diceSetName, dice } : null };
+}
+
 export async function findLessonForRun(executor: Executor, lessonId: string): Promise<LessonForRun | null> {
   const [row] = await executor
-    .select({
-      id: lesson.id,
-      ownerId: lesson.ownerId,
-      departmentId: lesson.departmentId,
-      title: lesson.title,
-      classGroup: lesson.classGroup,
-      archivedAt: lesson.archivedAt,
-      plan: lesson.plan,
-      diceSetId: diceSet.id,
-      diceSetName: diceSet.name,
-      dice: diceSet.dice,
-    })
+    .select(lessonForRunColumns)
     .from(lesson)
     .leftJoin(diceSet, eq(lesson.diceSetId, diceSet.id))
     .where(eq(lesson.id, lessonId))
     .limit(1);
-  if (!row) return null;
-  const { diceSetId, diceSetName, dice, ...rest } = row;
-  return { ...rest, diceSet: diceSetId && diceSetName && dice ? { id: diceSetId, name: diceSetName, dice } : null };
+  return row ? lessonForRunFromRow(row) : null;
 }
 
 /** The teacher's lessons that are not archived, with their dice sets, newest first. */
 export async function listLessonsForRuns(executor: Executor, ownerId: string): Promise<LessonForRun[]> {
   const rows = await executor
-    .select({
-      id: lesson.id,
-      ownerId: lesson.ownerId,
-      departmentId: lesson.departmentId,
-      title: lesson.title,
-      classGroup: lesson.classGroup,
-      archivedAt: lesson.archivedAt,
-      plan: lesson.plan,
-      diceSetId: diceSet.id,
-      diceSetName: diceSet.name,
-      dice: diceSet.dice,
-    })
+    .select(lessonForRunColumns)
     .from(lesson)
     .leftJoin(diceSet, eq(lesson.diceSetId, diceSet.id))
     .where(and(eq(lesson.ownerId, ownerId), isNull(lesson.archivedAt)))
     .orderBy(desc(lesson.updatedAt));
-  return rows.map(({ diceSetId, diceSetName, dice, ...rest }) => ({
-    ...rest,
-    diceSet: diceSetId && diceSetName && dice ? { id: diceSetId, name: diceSetName, dice } : null,
-  }));
+  return rows.map(lessonForRunFromRow);
 }
 
 /** Lesson id → the id of its newest run that is not closed, for the teacher's lessons. */

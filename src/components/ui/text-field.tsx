@@ -1,4 +1,5 @@
-import { forwardRef, useId, type InputHTMLAttributes } from "react";
+import { forwardRef, type InputHTMLAttributes } from "react";
+import { controlBorder, FieldFrame } from "./field-frame";
 
 type TextFieldProps = InputHTMLAttributes<HTMLInputElement> & { label: string; hint?: string; error?: string };
 
@@ -7,33 +8,16 @@ export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function T
   { label, hint, error, className = "", id, ...props },
   ref,
 ) {
-  const autoId = useId();
-  const inputId = id ?? autoId;
-  const hintId = hint ? `${inputId}-hint` : undefined;
-  const errorId = error ? `${inputId}-error` : undefined;
   return (
-    <div className={`flex flex-col gap-1 ${className}`}>
-      <label htmlFor={inputId} className="font-bold">
-        {label}
-      </label>
-      {hint && (
-        <p id={hintId} className="text-sm text-ink-soft">
-          {hint}
-        </p>
+    <FieldFrame id={id} label={label} hint={hint} error={error} className={className}>
+      {(control) => (
+        <input
+          ref={ref}
+          {...control}
+          className={`min-h-11 rounded-lg border-2 bg-white px-3 py-2 text-base text-ink ${controlBorder(error)}`}
+          {...props}
+        />
       )}
-      <input
-        ref={ref}
-        id={inputId}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={[hintId, errorId].filter(Boolean).join(" ") || undefined}
-        className={`min-h-11 rounded-lg border-2 bg-white px-3 py-2 text-base text-ink ${error ? "border-alarm" : "border-line focus:border-tide"}`}
-        {...props}
-      />
-      {error && (
-        <p id={errorId} className="text-sm font-bold text-alarm">
-          {error}
-        </p>
-      )}
-    </div>
+    </FieldFrame>
   );
 });

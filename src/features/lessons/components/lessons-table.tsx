@@ -29,6 +29,7 @@ import { useDeleteLesson } from "../api/delete-lesson";
 import { useDuplicateLesson } from "../api/duplicate-lesson";
 import { useLessons } from "../api/list-lessons";
 import { StatusBadge } from "./status-badge";
+import { SortHeading } from "@/components/ui/sort-heading";
 
 const features = tableFeatures({
   rowSortingFeature,
@@ -185,32 +186,17 @@ export function LessonsTable() {
               <thead>
                 {table.getHeaderGroups().map((group) => (
                   <tr key={group.id} className="border-b-2 border-line">
-                    {group.headers.map((header) => {
-                      const sorted = header.column.getIsSorted();
-                      const canSort = header.column.getCanSort() && header.column.id !== "actions";
-                      return (
-                        <th
-                          key={header.id}
-                          scope="col"
-                          aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}
-                          className={`px-3 py-2 align-bottom text-sm ${cellVisibility(header.column.id)}`}
-                        >
-                          {canSort ? (
-                            <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex min-h-11 items-center gap-1 font-bold hover:underline">
-                              <table.FlexRender header={header} />
-                              <span aria-hidden="true" className="w-4 text-tide">
-                                {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}
-                              </span>
-                              <span className="sr-only">{sorted ? `, sorted ${sorted === "asc" ? "ascending" : "descending"}` : ", sort"}</span>
-                            </button>
-                          ) : (
-                            <span className="font-bold">
-                              <table.FlexRender header={header} />
-                            </span>
-                          )}
-                        </th>
-                      );
-                    })}
+                    {group.headers.map((header) => (
+                      <SortHeading
+                        key={header.id}
+                        sorted={header.column.getIsSorted()}
+                        canSort={header.column.getCanSort() && header.column.id !== "actions"}
+                        onToggle={header.column.getToggleSortingHandler()}
+                        className={cellVisibility(header.column.id)}
+                      >
+                        <table.FlexRender header={header} />
+                      </SortHeading>
+                    ))}
                   </tr>
                 ))}
               </thead>

@@ -27,6 +27,7 @@ import { modeLabel } from "@/lib/probability-text";
 import { useResultsRuns } from "../api/list-results-runs";
 import { dayText, playersText, plural } from "./figures";
 import { PupilDataNote } from "./pupil-data-note";
+import { SortHeading } from "@/components/ui/sort-heading";
 
 const features = tableFeatures({
   rowSortingFeature,
@@ -207,32 +208,17 @@ export function ResultsArchive({ canSeeDepartment }: { canSeeDepartment: boolean
               <thead>
                 {table.getHeaderGroups().map((group) => (
                   <tr key={group.id} className="border-b-2 border-line">
-                    {group.headers.map((header) => {
-                      const sorted = header.column.getIsSorted();
-                      const canSort = header.column.id !== "actions";
-                      return (
-                        <th
-                          key={header.id}
-                          scope="col"
-                          aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}
-                          className={`px-3 py-2 align-bottom text-sm ${hidden(header.column.id)}`}
-                        >
-                          {canSort ? (
-                            <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex min-h-11 items-center gap-1 font-bold hover:underline">
-                              <table.FlexRender header={header} />
-                              <span aria-hidden="true" className="w-4 text-tide">
-                                {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}
-                              </span>
-                              <span className="sr-only">{sorted ? `, sorted ${sorted === "asc" ? "ascending" : "descending"}` : ", sort"}</span>
-                            </button>
-                          ) : (
-                            <span className="font-bold">
-                              <table.FlexRender header={header} />
-                            </span>
-                          )}
-                        </th>
-                      );
-                    })}
+                    {group.headers.map((header) => (
+                      <SortHeading
+                        key={header.id}
+                        sorted={header.column.getIsSorted()}
+                        canSort={header.column.id !== "actions"}
+                        onToggle={header.column.getToggleSortingHandler()}
+                        className={hidden(header.column.id)}
+                      >
+                        <table.FlexRender header={header} />
+                      </SortHeading>
+                    ))}
                   </tr>
                 ))}
               </thead>
