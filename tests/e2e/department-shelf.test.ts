@@ -50,14 +50,14 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
     await page.waitForURL(`${appUrl}/app/shelf/colleagues`);
 
     await page.getByRole("button", { name: "Send invitation" }).click();
-    await expect(page.getByText("Enter an e-mail address such as name@school.test.").isVisible()).resolves.toBe(true);
+    await page.getByText("Enter an e-mail address such as name@school.test.").waitFor();
 
     await page.getByLabel("Colleague's school e-mail").fill(email);
     await page.getByRole("button", { name: "Send invitation" }).click();
     await page.getByText("Invitation sent").waitFor();
     const waiting = page.getByRole("list", { name: "Invitations waiting" });
-    await expect(waiting.getByText(email).isVisible()).resolves.toBe(true);
-    await expect(waiting.getByText(/Expires in 6 days|Expires in 7 days/).isVisible()).resolves.toBe(true);
+    await waiting.getByText(email).waitFor();
+    await waiting.getByText(/Expires in 6 days|Expires in 7 days/).waitFor();
     await screenshot(page, "shelf-colleagues-head-laptop");
 
     const message = await mailFor(email, /invites you to join/);
@@ -67,7 +67,7 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
 
     await page.goto(`${appUrl}/dev/mail`);
     await page.getByRole("heading", { name: message.subject }).waitFor();
-    await expect(page.getByRole("link", { name: joinLink }).isVisible()).resolves.toBe(true);
+    await page.getByRole("link", { name: joinLink }).waitFor();
     await page.getByText("Show the HTML version").click();
     await page.frameLocator("iframe").getByText("Join the department").waitFor();
     await screenshot(page, "dev-mail-laptop");
@@ -78,7 +78,7 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
     const page = await phone.context.newPage();
     await page.goto(joinLink);
     await page.getByText("Priya Castellanos", { exact: true }).waitFor();
-    await expect(page.getByText("Maths, Harbourside Academy", { exact: true }).isVisible()).resolves.toBe(true);
+    await page.getByText("Maths, Harbourside Academy", { exact: true }).waitFor();
     await expect(page.getByLabel("E-mail").inputValue()).resolves.toBe(email);
     await noSideways(page, viewports.phone.width);
     await screenshot(page, "join-phone");
@@ -87,10 +87,10 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
     await page.getByLabel("Choose a password").fill("a-long-password-2026");
     await page.getByRole("button", { name: "Create account and join" }).click();
     await page.waitForURL(`${appUrl}/app/shelf`);
-    await expect(page.getByText("Teacher · Maths, Harbourside Academy").isVisible()).resolves.toBe(true);
+    await page.getByText("Teacher · Maths, Harbourside Academy").waitFor();
     await page.getByRole("list", { name: "Templates" }).waitFor();
     for (const demo of demoTemplates) {
-      await expect(page.getByRole("link", { name: demo.lessonTitle }).isVisible()).resolves.toBe(true);
+      await page.getByRole("link", { name: demo.lessonTitle }).waitFor();
     }
     await noSideways(page, viewports.phone.width);
     await screenshot(page, "shelf-teacher-phone");
@@ -107,7 +107,7 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
     const title = demoTemplates[0].lessonTitle;
     await page.getByRole("link", { name: title }).click();
     await page.getByRole("heading", { name: "Versions" }).waitFor();
-    await expect(page.getByText(demoTemplates[0].earlier[0].changeNote).first().isVisible()).resolves.toBe(true);
+    await page.getByText(demoTemplates[0].earlier[0].changeNote).first().waitFor();
     await noSideways(page, viewports.phone.width);
     await screenshot(page, "shelf-template-phone");
 
@@ -168,7 +168,7 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
 
     await page.goto(`${appUrl}/app/shelf/proposals`);
     await page.getByRole("heading", { name: "Waiting for your decision (1)" }).waitFor();
-    await expect(page.getByText("Four fewer groups suits a small set.").isVisible()).resolves.toBe(true);
+    await page.getByText("Four fewer groups suits a small set.").waitFor();
     await page.getByText("Read the lesson as it stands").click();
     await screenshot(page, "shelf-proposals-head-laptop");
 
@@ -184,7 +184,7 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
     await page.goto(`${appUrl}/app/shelf`);
     const card = page.getByRole("listitem").filter({ hasText: demoTemplates[0].lessonTitle });
     await card.getByText("Version 3").waitFor();
-    await expect(card.getByText("Smaller classes: four fewer groups", { exact: false }).isVisible()).resolves.toBe(true);
+    await card.getByText("Smaller classes: four fewer groups", { exact: false }).waitFor();
     await screenshot(page, "shelf-after-approval-laptop");
     await page.close();
   });
@@ -216,7 +216,7 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
       await page.close();
 
       const signedIn = await signInThroughUi(fresh.context, appUrl, email, "a-fresh-tide-password");
-      await expect(signedIn.getByText("Teacher · Maths, Harbourside Academy").isVisible()).resolves.toBe(true);
+      await signedIn.getByText("Teacher · Maths, Harbourside Academy").waitFor();
 
       // The link works once.
       await signedIn.goto(link);
