@@ -147,6 +147,22 @@ export type RollRecordAck = Ack<{ id: string; duplicate: boolean }>;
 export type RollUndoAck = Ack<{ id: string }>;
 export type BoardSnapshotAck = Ack<{ snapshot: BoardSnapshot }>;
 
+/**
+ * A board:update as sent: the snapshot with its pooled tallies as UTF-8 JSON bytes, which socket.io carries as a binary
+ * attachment, so the server passes on the pools its worker thread encoded without walking or re-encoding them.
+ * Browsers receive the bytes as an ArrayBuffer, Node as a Buffer; `decodeBoardUpdate` turns either into the snapshot.
+ */
+export type BoardUpdateMessage = Omit<BoardSnapshot, "tallies"> & { tallies: Uint8Array | ArrayBuffer };
+
+export function encodeBoardTallies(tallies: BoardSnapshot["tallies"]): Uint8Array {
+  return new TextEncoder().encode(JSON.stringify(tallies));
+}
+
+export function decodeBoardUpdate(message: BoardUpdateMessage): BoardSnapshot {
+  const bytes = message.tallies instanceof ArrayBuffer ? new Uint8Array(message.tallies) : message.tallies;
+  return { ...message, tallies: JSON.parse(new TextDecoder().decode(bytes)) as BoardSnapshot["tallies"] };
+}
+
 export type RunPhaseBroadcast = { runId: string; phase: RunPhase; tally: number; dicePerPlayer: number; players: number };
 export type RunStatusBroadcast = { runId: string; status: RunStatus };
 export type GroupUpdateBroadcast = { runId: string; groupId: string };

@@ -1,15 +1,18 @@
 import type { Server } from "socket.io";
 import { EVENTS } from "@shared/events";
-import { readBoardSnapshot, type BoardRollCache } from "../services/class-runs.service";
+import type { PoolRow } from "../db/queries/class-runs";
+import { readBoardUpdate, refreshBoardWithRolls, type BoardRollCache } from "../services/class-runs.service";
 import { logger } from "../logger";
-import { forgetBoardRun, poolBoardOffThread } from "./pooling-pool";
+import { forgetBoardRun } from "./pooling-pool";
 
 export const boardRoom = (runId: string) => `board:${runId}`;
 
 /**
  * Pushes a run's aggregates to its Run boards at most once per `intervalMs` (or eight times the time the last snapshot
- * took to build, if longer), however many rolls arrive: a change marks
- * the run dirty, and one fresh snapshot from the database goes out when the interval allows. Runs nobody watches cost nothing.
+ * took to build, if longer), however many rolls arrive. New rolls come straight from the roll batcher once committed
+ * (`addRolls`) and are added to the pooling worker's running pool for the run, so a refresh after rolls reads nothing
+ * from the database. Any other change (`markDirty`: an undo, a group, a vote, a phase, a Paper import, the virtual
+ * class) reads the run in full from the database. Runs nobody watches cost nothing.
  */
 export class BoardBroadcaster {
   private readonly timers = new Map<string, NodeJS.Timeout>();
@@ -17,18 +20,42 @@ export class BoardBroadcaster {
   private readonly lastCost = new Map<string, number>();
   private readonly busy = new Set<string>();
   private readonly again = new Set<string>();
-  private readonly rolls: BoardRollCache = new Map();
+  /** Runs whose next refresh reads everything from the database. */
+  private readonly fullRead = new Set<string>();
+  /** Rolls committed since the run's last refresh. */
+  private readonly pending = new Map<string, PoolRow[]>();
+  private readonly kept: BoardRollCache = new Map();
 
   constructor(
     private readonly io: Server,
     private readonly intervalMs: number,
   ) {}
 
+  private watched(runId: string): boolean {
+    if (this.io.sockets.adapter.rooms.get(boardRoom(runId))?.size) return true;
+    this.pending.delete(runId);
+    this.fullRead.delete(runId);
+    if (this.kept.delete(runId)) forgetBoardRun(runId);
+    return false;
+  }
+
+  /** Rolls the batcher has just committed for a run. */
+  addRolls(runId: string, rows: PoolRow[]) {
+    if (!this.watched(runId)) return;
+    const pending = this.pending.get(runId);
+    if (pending) pending.push(...rows);
+    else this.pending.set(runId, rows);
+    this.schedule(runId);
+  }
+
+  /** Something besides new rolls changed in a run: its next refresh reads it in full. */
   markDirty(runId: string) {
-    if (!this.io.sockets.adapter.rooms.get(boardRoom(runId))?.size) {
-      if (this.rolls.delete(runId)) forgetBoardRun(runId);
-      return;
-    }
+    if (!this.watched(runId)) return;
+    this.fullRead.add(runId);
+    this.schedule(runId);
+  }
+
+  private schedule(runId: string) {
     if (this.busy.has(runId)) {
       this.again.add(runId);
       return;
@@ -44,25 +71,34 @@ export class BoardBroadcaster {
     this.timers.delete(runId);
     this.busy.add(runId);
     const started = performance.now();
+    // Every roll taken here was committed before the full read below starts, so that read holds it; a roll reported
+    // while the read runs waits for the next refresh, where the worker pools it once even if the read held it too.
+    const rows = this.pending.get(runId) ?? [];
+    this.pending.delete(runId);
+    const full = this.fullRead.delete(runId) || !this.kept.has(runId);
     try {
-      const snapshot = await readBoardSnapshot(runId, null, { pool: poolBoardOffThread, cache: this.rolls });
-      if (snapshot) {
+      const update = (!full && (await refreshBoardWithRolls(runId, rows, this.kept))) || (await readBoardUpdate(runId, this.kept));
+      if (update) {
         // isOwner depends on the viewer; each board already knows it from its own first snapshot.
-        this.io.to(boardRoom(runId)).emit(EVENTS.boardUpdate, snapshot);
+        this.io.to(boardRoom(runId)).emit(EVENTS.boardUpdate, update);
       }
     } catch (error) {
       logger.error({ err: error, runId }, "board update failed");
+      // The rolls taken above may not have reached the worker: the next refresh reads the run in full.
+      this.kept.delete(runId);
+      this.fullRead.add(runId);
     } finally {
       this.lastCost.set(runId, performance.now() - started);
       this.lastSent.set(runId, Date.now());
       this.busy.delete(runId);
-      if (this.again.delete(runId)) this.markDirty(runId);
+      if (this.again.delete(runId) && this.watched(runId)) this.schedule(runId);
     }
   }
 
   close() {
     for (const timer of this.timers.values()) clearTimeout(timer);
     this.timers.clear();
-    this.rolls.clear();
+    this.pending.clear();
+    this.kept.clear();
   }
 }

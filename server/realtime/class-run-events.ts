@@ -19,14 +19,14 @@ import {
   type RunStatusBroadcast,
 } from "@shared/events";
 import { auth } from "../auth";
-import { findClassRun, writeRollBatch, type RollWriteOutcome } from "../db/queries/class-runs";
+import { findClassRun, writeRollBatch, type PoolRow, type RollWriteOutcome } from "../db/queries/class-runs";
 import { db } from "../db/client";
 import { findMembershipForUser } from "../db/queries/memberships";
 import { env } from "../env";
 import { HttpError } from "../http-error";
 import { logger } from "../logger";
 import type { TeacherContext } from "../middleware/require-teacher";
-import { readBoardSnapshot, runForTeacher } from "../services/class-runs.service";
+import { poolRowFromRoll, readBoardSnapshot, runForTeacher } from "../services/class-runs.service";
 import { castVote, checkedRoll, chooseMatchup, GroupRateLimiter, joinRun, PadError, resumeGroup, undoRoll } from "../services/roll-pad.service";
 import { verifyGuestToken } from "../services/guest-token";
 import { BoardBroadcaster, boardRoom } from "./board-broadcaster";
@@ -97,8 +97,14 @@ export function registerClassRunEvents(io: Server) {
     maxBatch: 500,
     concurrency: 3,
     onWritten: (rolls, outcomes) => {
-      const runs = new Set(rolls.filter((entry) => outcomes.get(entry.id) === "stored").map((entry) => entry.runId));
-      for (const runId of runs) broadcaster.markDirty(runId);
+      const stored = new Map<string, PoolRow[]>();
+      for (const entry of rolls) {
+        if (outcomes.get(entry.id) !== "stored") continue;
+        const ofRun = stored.get(entry.runId);
+        if (ofRun) ofRun.push(poolRowFromRoll(entry));
+        else stored.set(entry.runId, [poolRowFromRoll(entry)]);
+      }
+      for (const [runId, rows] of stored) broadcaster.addRolls(runId, rows);
     },
   });
 
@@ -184,7 +190,7 @@ export function registerClassRunEvents(io: Server) {
         await runForTeacher(teacher, runId, "view");
         // Join before reading, so no update committed after the snapshot's read can be missed.
         await socket.join(boardRoom(runId));
-        const snapshot = await readBoardSnapshot(runId, teacher.user.id, { pool: poolBoardOffThread });
+        const snapshot = await readBoardSnapshot(runId, teacher.user.id, poolBoardOffThread);
         if (!snapshot) throw new HttpError(404, "not_found", "The class run was not found.");
         return { snapshot };
       }),

@@ -1,21 +1,24 @@
 import { Worker } from "node:worker_threads";
-import { poolBoard, type BoardPools } from "@shared/class-results/board-pool";
+import { poolBoard, type BoardPools, type BoardPoolSettings } from "@shared/class-results/board-pool";
+import { encodeBoardTallies } from "@shared/events";
 import type { PoolRow } from "../db/queries/class-runs";
 import { logger } from "../logger";
 
+/** One board's rolls to pool at once. */
+export type BoardPoolRequest = BoardPoolSettings & { nicknames: Record<string, string>; rows: PoolRow[] };
+
 /**
- * One board refresh to pool. With `keep`, the worker holds the run's rolls between refreshes: `reset` sends them all,
- * otherwise `rows` are only the new ones, added to what the worker holds for that `generation`.
+ * One refresh of a watched run: the worker holds the run's running pool between refreshes. `reset` sends every kept
+ * roll, otherwise `rows` are only the new ones, added (once each) to what the worker holds for that `generation`.
+ * The answer's tallies are the UTF-8 JSON bytes a board:update carries.
  */
-export type BoardPoolRequest = Omit<Parameters<typeof poolBoard>[0], "rolls"> & {
-  rows: PoolRow[];
-  keep?: { runId: string; generation: number; reset: boolean };
-};
+export type KeptBoardPoolRequest = BoardPoolRequest & { keep: { runId: string; generation: number; reset: boolean } };
 
 /** The worker could not add new rows (it was restarted, or lost the run): send every row again. */
 export class NeedsResetError extends Error {}
 
-type Waiting = { resolve: (result: BoardPools) => void; reject: (error: Error) => void };
+type Result = BoardPools | BoardPools<Uint8Array>;
+type Waiting = { resolve: (result: Result) => void; reject: (error: Error) => void };
 
 let worker: Worker | null = null;
 let unavailable = false;
@@ -42,7 +45,7 @@ function startWorker(): Worker | null {
     const started = new Worker(`import("tsx/esm/api").then(({ register }) => { register(); return import(${JSON.stringify(script)}); });`, { eval: true });
     worker = started;
     started.unref();
-    started.on("message", (message: { ready?: boolean; id: number; result?: BoardPools; needsReset?: boolean; error?: string }) => {
+    started.on("message", (message: { ready?: boolean; id: number; result?: Result; needsReset?: boolean; error?: string }) => {
       if (message.ready) {
         ready = true;
         for (const send of beforeReady.splice(0)) send();
@@ -73,21 +76,33 @@ function startWorker(): Worker | null {
   }
 }
 
-/** Pools a board refresh on the worker thread; rejects with NeedsResetError when the worker lacks the run's rows. */
-export function poolBoardOffThread(request: BoardPoolRequest): Promise<BoardPools> {
-  const running = startWorker();
-  if (!running) {
-    // Without the worker nobody holds the run's earlier rolls: new rows alone cannot be pooled.
-    if (request.keep && !request.keep.reset) return Promise.reject(new NeedsResetError("no pooling worker holds this run's rolls"));
-    return Promise.resolve(poolBoard({ ...request, rolls: request.rows }));
-  }
+function postToWorker(running: Worker, request: BoardPoolRequest | KeptBoardPoolRequest): Promise<Result> {
   const id = nextId++;
-  return new Promise<BoardPools>((resolve, reject) => {
+  return new Promise<Result>((resolve, reject) => {
     waiting.set(id, { resolve, reject });
     const send = () => (unavailable ? reject(new Error("pooling worker unavailable")) : running.postMessage({ id, request }));
     if (ready) send();
     else beforeReady.push(send);
   });
+}
+
+/** Pools one board's rolls on the worker thread (on this thread when the worker is unavailable). */
+export async function poolBoardOffThread(request: BoardPoolRequest): Promise<BoardPools> {
+  const running = startWorker();
+  if (!running) return poolBoard({ ...request, rolls: request.rows });
+  return (await postToWorker(running, request)) as BoardPools;
+}
+
+/** Pools a watched run's refresh on the worker thread; rejects with NeedsResetError when the worker lacks the run's rows. */
+export async function poolKeptBoardOffThread(request: KeptBoardPoolRequest): Promise<BoardPools<Uint8Array>> {
+  const running = startWorker();
+  if (!running) {
+    // Without the worker nobody holds the run's earlier rolls: new rows alone cannot be pooled.
+    if (!request.keep.reset) throw new NeedsResetError("no pooling worker holds this run's rolls");
+    const pools = poolBoard({ ...request, rolls: request.rows });
+    return { ...pools, tallies: encodeBoardTallies(pools.tallies) };
+  }
+  return (await postToWorker(running, request)) as BoardPools<Uint8Array>;
 }
 
 /** Lets the worker drop a run nobody watches any more. */

@@ -1,11 +1,33 @@
 // A worker thread that pools rolls for Run boards, so a board refresh over thousands of rolls never holds up the
-// event loop that acknowledges pupils' rolls. It keeps each watched run's rolls, so a refresh sends only new ones.
-// Started by pooling-pool.ts.
+// event loop that acknowledges pupils' rolls. It keeps each watched run's running pool, so a refresh sends only the
+// new rolls and pools only those. Started by pooling-pool.ts.
 import { parentPort } from "node:worker_threads";
-import { poolBoard } from "../../shared/class-results/board-pool";
-import type { BoardPoolRequest } from "./pooling-pool";
+import { BoardPool, poolBoard, type BoardPools } from "../../shared/class-results/board-pool";
+import { encodeBoardTallies } from "../../shared/events";
+import type { BoardPoolRequest, KeptBoardPoolRequest } from "./pooling-pool";
 
-const runs = new Map<string, { generation: number; rolls: BoardPoolRequest["rows"] }>();
+const runs = new Map<string, { generation: number; ids: Set<string>; pool: BoardPool }>();
+
+/** A watched run's figures, with the tallies encoded here so the main thread sends them on untouched. */
+function encoded(pools: BoardPools): BoardPools<Uint8Array> {
+  return { ...pools, tallies: encodeBoardTallies(pools.tallies) };
+}
+
+function pooled(request: BoardPoolRequest | KeptBoardPoolRequest): BoardPools | BoardPools<Uint8Array> | null {
+  if (!("keep" in request)) return poolBoard({ ...request, rolls: request.rows });
+  const { keep, rows, nicknames, ...settings } = request;
+  if (keep.reset) {
+    const run = { generation: keep.generation, ids: new Set(rows.map((row) => row.id)), pool: new BoardPool(settings).add(rows) };
+    runs.set(keep.runId, run);
+    return encoded(run.pool.result(nicknames));
+  }
+  const run = runs.get(keep.runId);
+  if (!run || run.generation !== keep.generation) return null;
+  // A roll the batcher reported while the last full read was running may be in both: it is pooled once.
+  const fresh = rows.filter((row) => !run.ids.has(row.id));
+  for (const row of fresh) run.ids.add(row.id);
+  return encoded(run.pool.add(fresh).result(nicknames));
+}
 
 parentPort?.on("message", (message: { forget?: string; id: number; request: BoardPoolRequest }) => {
   if (message.forget) {
@@ -14,17 +36,11 @@ parentPort?.on("message", (message: { forget?: string; id: number; request: Boar
   }
   const { id, request } = message;
   try {
-    let rolls = request.rows;
-    if (request.keep) {
-      const held = runs.get(request.keep.runId);
-      if (request.keep.reset) runs.set(request.keep.runId, { generation: request.keep.generation, rolls: [...request.rows] });
-      else if (!held || held.generation !== request.keep.generation) {
-        parentPort!.postMessage({ id, needsReset: true });
-        return;
-      } else held.rolls.push(...request.rows);
-      rolls = runs.get(request.keep.runId)!.rolls;
-    }
-    parentPort!.postMessage({ id, result: poolBoard({ ...request, rolls }) });
+    const result = pooled(request);
+    if (!result) parentPort!.postMessage({ id, needsReset: true });
+    // The encoded tallies' memory moves to the main thread rather than being copied.
+    else if (result.tallies instanceof Uint8Array) parentPort!.postMessage({ id, result }, [result.tallies.buffer as ArrayBuffer]);
+    else parentPort!.postMessage({ id, result });
   } catch (error) {
     parentPort!.postMessage({ id, error: error instanceof Error ? error.message : String(error) });
   }

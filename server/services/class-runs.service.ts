@@ -1,5 +1,5 @@
 import { assignedMatchup } from "@shared/class-results/assigned-matchups";
-import { poolBoard, type BoardPools } from "@shared/class-results/board-pool";
+import { poolBoard, type BoardPools, type BoardPoolSettings } from "@shared/class-results/board-pool";
 import { simulatedMatchupRolls, winnerSeatOf } from "@shared/class-results/virtual-class";
 import type { TieRule } from "@shared/probability/index";
 import {
@@ -38,11 +38,11 @@ import {
   setGroupMatchups,
   updateRunPhase,
   updateRunStatus,
-  countKeptRolls,
   type ClassRunRecord,
   type ClassRunRow,
   type LessonForRun,
   type NewRoll,
+  type PoolRow,
 } from "../db/queries/class-runs";
 import type { ClassRunTally } from "../db/schema/class-runs";
 import { env } from "../env";
@@ -50,8 +50,9 @@ import { HttpError, notFound } from "../http-error";
 import type { TeacherContext } from "../middleware/require-teacher";
 import { notifyRunChanged } from "../realtime/run-notifier";
 import { logger } from "../logger";
-import { NeedsResetError, type BoardPoolRequest } from "../realtime/pooling-pool";
+import { NeedsResetError, poolKeptBoardOffThread, type BoardPoolRequest } from "../realtime/pooling-pool";
 import { generateJoinCode, isUniqueViolation } from "./join-code";
+import type { BoardUpdateMessage } from "@shared/events";
 
 const JOIN_CODE_ATTEMPTS = 8;
 
@@ -363,41 +364,43 @@ export async function addSimulatedGroups(teacher: TeacherContext, runId: string,
   };
 }
 
-/** What a Run board broadcaster remembers of a run between refreshes (the rolls themselves stay on the pooling worker). */
-export type BoardRollCache = Map<string, { generation: number; boardVersion: number; ids: Set<string>; newestReceivedAt: string }>;
+/**
+ * What a Run board broadcaster remembers of a run between refreshes: the last update and what it was read from (the
+ * rolls themselves stay in the pooling worker's running pool, under `generation`).
+ */
+export type BoardRunState = {
+  generation: number;
+  boardVersion: number;
+  settings: BoardPoolSettings;
+  nicknames: Record<string, string>;
+  update: BoardUpdateMessage;
+};
+export type BoardRollCache = Map<string, BoardRunState>;
 
-// A roll's received_at is its transaction's start, so a batch may commit a little after a later one; new rolls are
-// looked for from this long before the newest one seen, and a count check catches anything older.
-const RECEIVED_OVERLAP_MILLISECONDS = 2_000;
 let nextGeneration = 1;
 
-/** How the board's rolls are pooled: inline, or on the worker thread (which may keep them between refreshes). */
-export type BoardPooling = {
-  pool: (request: BoardPoolRequest) => Promise<BoardPools>;
-  cache?: BoardRollCache;
-};
-
-const inlinePooling: BoardPooling = { pool: async (request) => poolBoard({ ...request, rolls: request.rows }) };
-
-/** The rows to pool: only those new since the cached refresh when nothing else changed, else every kept roll. */
-async function rowsToPool(tx: Executor, run: ClassRunRow, undoneRolls: number, cache?: BoardRollCache) {
-  const cached = cache?.get(run.id);
-  if (cached && cached.boardVersion === run.boardVersion) {
-    const since = new Date(Date.parse(cached.newestReceivedAt) - RECEIVED_OVERLAP_MILLISECONDS).toISOString();
-    const fresh = (await runRollsForPooling(tx, run.id, since)).filter((entry) => !cached.ids.has(entry.id));
-    const kept = await countKeptRolls(tx, run.id);
-    if (cached.ids.size + fresh.length === kept) return { rows: fresh, reset: false, kept, undoneRolls };
-  }
-  const rows = await runRollsForPooling(tx, run.id);
-  return { rows, reset: true, kept: rows.length, undoneRolls };
+/** A stored roll as the Run board pools it, from the row the roll batcher has just committed. */
+export function poolRowFromRoll(entry: NewRoll): PoolRow {
+  return {
+    id: entry.id,
+    groupId: entry.groupId,
+    tally: entry.tally,
+    dicePerPlayer: entry.dicePerPlayer,
+    matchup: entry.matchup,
+    totals: entry.totals,
+    winnerSeat: entry.winnerSeat,
+    source: entry.source,
+    recordedAt: entry.recordedAt.toISOString(),
+  };
 }
 
+type BoardParts = Omit<BoardSnapshot, "version" | "tallies" | "generatedAt">;
+
 /**
- * Everything the Run board shows: read in one repeatable-read transaction so the version matches the figures, then
- * pooled after the transaction (inline, or on the worker thread), so no database connection waits on the arithmetic.
+ * Everything the Run board shows, read from the database in one repeatable-read transaction so the version matches
+ * the figures; the rolls are pooled afterwards, so no database connection waits on the arithmetic.
  */
-export async function readBoardSnapshot(runId: string, viewerId: string | null, pooling: BoardPooling = inlinePooling): Promise<BoardSnapshot | null> {
-  const { cache } = pooling;
+async function readBoardState(runId: string, viewerId: string | null) {
   const read = await db.transaction(
     async (tx) => {
       const run = await findClassRun(tx, runId);
@@ -406,63 +409,101 @@ export async function readBoardSnapshot(runId: string, viewerId: string | null, 
       const groups = await listGroups(tx, runId);
       const votes = await listVotes(tx, runId);
       const undoneRolls = await countUndoneRolls(tx, runId);
-      const rows = await rowsToPool(tx, run, undoneRolls, cache);
-      return { run, groups, votes, ...rows };
+      const rows = await runRollsForPooling(tx, run.id);
+      return { run, groups, votes, undoneRolls, rows };
     },
     { isolationLevel: "repeatable read", accessMode: "read only" },
   );
   if (!read) return null;
-  const { run, groups, votes, rows, undoneRolls, kept } = read;
-  const common = {
+  const { run, groups, votes, rows, undoneRolls } = read;
+  const settings: BoardPoolSettings = {
     dice: run.dice.map((die) => ({ name: die.name, faces: die.faces })),
     tieRule: run.tieRule as TieRule,
     tallies: talliesOf(run),
-    nicknames: Object.fromEntries(groups.map((group) => [group.id, group.nickname])),
   };
-  let pools: BoardPools;
-  if (cache) {
-    const previous = cache.get(runId);
-    const generation = read.reset || !previous ? nextGeneration++ : previous.generation;
-    try {
-      pools = await pooling.pool({ ...common, rows, keep: { runId, generation, reset: read.reset || !previous } });
-    } catch (error) {
-      cache.delete(runId);
-      // The worker lost the run's rolls (or stopped): read them all again and pool here.
-      if (!(error instanceof NeedsResetError)) logger.warn({ err: error }, "board pooling fell back to the main thread");
-      return readBoardSnapshot(runId, viewerId, inlinePooling);
-    }
-    const ids = read.reset || !previous ? new Set<string>() : previous.ids;
-    let newest = read.reset || !previous ? new Date(0).toISOString() : previous.newestReceivedAt;
-    for (const entry of rows) {
-      ids.add(entry.id);
-      if (entry.receivedAt > newest) newest = entry.receivedAt;
-    }
-    cache.set(runId, { generation, boardVersion: run.boardVersion, ids, newestReceivedAt: newest });
-  } else {
-    pools = await pooling.pool({ ...common, rows });
-  }
+  const nicknames = Object.fromEntries(groups.map((group) => [group.id, group.nickname]));
   const voteByGroup = new Map(votes.map((vote) => [vote.groupId, vote.dieIndex]));
   const voteCounts = run.dice.map(() => 0);
   for (const vote of votes) if (vote.dieIndex < voteCounts.length) voteCounts[vote.dieIndex] += 1;
-  return {
+  const parts: BoardParts = {
     runId,
-    // Every change the board shows bumps board_version, except a new roll, which adds a row; the sum only grows.
-    version: run.boardVersion + kept + undoneRolls,
     run: classRunView(run, viewerId),
     groups: groups.map((group) => ({
       id: group.id,
       nickname: group.nickname,
       source: group.source,
       matchup: group.matchup,
-      rolls: pools.rollsByGroup[group.id] ?? 0,
+      rolls: 0,
       vote: voteByGroup.get(group.id) ?? null,
       createdAt: group.createdAt.toISOString(),
     })),
     votes: voteCounts,
-    tallies: pools.tallies,
     undoneRolls,
+  };
+  return { boardVersion: run.boardVersion, settings, nicknames, rows, parts };
+}
+
+/** The snapshot's figures from pooled rolls: each group's count, and a version that only grows. */
+function withPools<Tallies>(boardVersion: number, parts: BoardParts, pools: BoardPools<Tallies>) {
+  return {
+    ...parts,
+    // Every change the board shows bumps board_version, except a new roll, which adds a row; the sum only grows.
+    version: boardVersion + pools.kept + parts.undoneRolls,
+    groups: parts.groups.map((group) => ({ ...group, rolls: pools.rollsByGroup[group.id] ?? 0 })),
+    tallies: pools.tallies,
     generatedAt: new Date().toISOString(),
   };
+}
+
+/** The Run board's snapshot (the first thing a board loads, and GET …/board), pooled inline or on the worker thread. */
+export async function readBoardSnapshot(
+  runId: string,
+  viewerId: string | null,
+  pool: (request: BoardPoolRequest) => Promise<BoardPools> = async (request) => poolBoard({ ...request, rolls: request.rows }),
+): Promise<BoardSnapshot | null> {
+  const state = await readBoardState(runId, viewerId);
+  if (!state) return null;
+  return withPools(state.boardVersion, state.parts, await pool({ ...state.settings, nicknames: state.nicknames, rows: state.rows }));
+}
+
+/**
+ * A watched run's board:update read in full from the database; the worker starts a running pool of its rolls for
+ * later `refreshBoardWithRolls` calls, remembered in `cache`.
+ */
+export async function readBoardUpdate(runId: string, cache: BoardRollCache): Promise<BoardUpdateMessage | null> {
+  const state = await readBoardState(runId, null);
+  if (!state) {
+    cache.delete(runId);
+    return null;
+  }
+  const generation = nextGeneration++;
+  const { settings, nicknames } = state;
+  const pools = await poolKeptBoardOffThread({ ...settings, nicknames, rows: state.rows, keep: { runId, generation, reset: true } });
+  const update = withPools(state.boardVersion, state.parts, pools);
+  cache.set(runId, { generation, boardVersion: state.boardVersion, settings, nicknames, update });
+  return update;
+}
+
+/**
+ * A watched run's board:update after new rolls only, without reading the database: the rolls the batcher has committed
+ * since the last refresh go to the worker's running pool for the run, and the rest of the last update stands (every
+ * other change bumps board_version, and the broadcaster answers those with `readBoardUpdate`). Null when nothing is
+ * kept for the run (no earlier full read, or the worker lost it): the caller reads in full.
+ */
+export async function refreshBoardWithRolls(runId: string, rows: PoolRow[], cache: BoardRollCache): Promise<BoardUpdateMessage | null> {
+  const state = cache.get(runId);
+  if (!state) return null;
+  let pools: BoardPools<Uint8Array>;
+  try {
+    pools = await poolKeptBoardOffThread({ ...state.settings, nicknames: state.nicknames, rows, keep: { runId, generation: state.generation, reset: false } });
+  } catch (error) {
+    cache.delete(runId);
+    if (!(error instanceof NeedsResetError)) logger.warn({ err: error }, "board pooling failed; the refresh reads the run in full");
+    return null;
+  }
+  const { version: _version, tallies: _tallies, generatedAt: _generatedAt, ...parts } = state.update;
+  state.update = withPools(state.boardVersion, parts, pools);
+  return state.update;
 }
 
 export async function getBoardSnapshot(teacher: TeacherContext, runId: string): Promise<BoardSnapshot> {

@@ -1,40 +1,64 @@
-import { poolRolls, type PoolableRoll, type PooledResults } from "./pooled-results";
+import { RollPool, type PoolableRoll, type PooledResults } from "./pooled-results";
 import type { TieRule } from "../probability/index";
 
 /** One tally of a run as the board pools it. */
 export type BoardTally = { tally: number; dicePerPlayer: number; players: number; startedAt: string };
 
-/** What a Run board shows from a run's kept rolls. */
-export type BoardPools = {
-  tallies: { tally: BoardTally; pooled: PooledResults; withoutSimulated: PooledResults | null }[];
+/** One tally's pooled results: every roll, and the class's own without the virtual class's (null when there are none). */
+export type BoardTallyPools = { tally: BoardTally; pooled: PooledResults; withoutSimulated: PooledResults | null };
+
+/** What a Run board shows from a run's kept rolls; the tallies as objects, or as the UTF-8 JSON bytes a board:update carries. */
+export type BoardPools<Tallies = BoardTallyPools[]> = {
+  tallies: Tallies;
   /** Kept rolls per group id. */
   rollsByGroup: Record<string, number>;
+  /** Kept rolls pooled in all. */
+  kept: number;
 };
 
+export type BoardPoolSettings = { dice: { name: string; faces: number[] }[]; tieRule: TieRule; tallies: BoardTally[] };
+
 /**
- * Pools a run's kept rolls the way the Run board shows them: each tally on its own, with every roll and (when the
- * virtual class took part) without the simulated ones, and the number of kept rolls per group.
+ * A run's kept rolls pooled the way the Run board shows them, as they come: each tally on its own, with every roll and
+ * without the virtual class's simulated ones, and the number of kept rolls per group. Adding a roll costs the same
+ * however many came before it, so a board refresh pools only the rolls that are new since the last one.
  */
-export function poolBoard(input: {
-  rolls: PoolableRoll[];
-  dice: { name: string; faces: number[] }[];
-  tieRule: TieRule;
-  tallies: BoardTally[];
-  nicknames: Record<string, string>;
-}): BoardPools {
-  const rollsByGroup: Record<string, number> = {};
-  for (const entry of input.rolls) {
-    rollsByGroup[entry.groupId] = (rollsByGroup[entry.groupId] ?? 0) + 1;
-    entry.groupNickname = input.nicknames[entry.groupId];
+export class BoardPool {
+  private readonly everyRoll = new Map<number, RollPool>();
+  private readonly classOnly = new Map<number, RollPool>();
+  private readonly rollsByGroup: Record<string, number> = {};
+  private kept = 0;
+
+  constructor(private readonly settings: BoardPoolSettings) {
+    for (const { tally } of settings.tallies) {
+      this.everyRoll.set(tally, new RollPool(settings.dice, settings.tieRule));
+      this.classOnly.set(tally, new RollPool(settings.dice, settings.tieRule));
+    }
   }
-  const tallies = input.tallies.map((tally) => {
-    const ofTally = input.rolls.filter((entry) => entry.tally === tally.tally);
-    const classOnly = ofTally.filter((entry) => entry.source !== "simulated");
-    return {
-      tally,
-      pooled: poolRolls({ dice: input.dice, tieRule: input.tieRule, rolls: ofTally }),
-      withoutSimulated: classOnly.length === ofTally.length ? null : poolRolls({ dice: input.dice, tieRule: input.tieRule, rolls: classOnly }),
-    };
-  });
-  return { tallies, rollsByGroup };
+
+  add(rolls: Iterable<PoolableRoll>): this {
+    for (const roll of rolls) {
+      this.rollsByGroup[roll.groupId] = (this.rollsByGroup[roll.groupId] ?? 0) + 1;
+      this.kept += 1;
+      // A roll of a tally the run no longer lists is counted for its group but pooled nowhere.
+      this.everyRoll.get(roll.tally)?.addOne(roll);
+      if (roll.source !== "simulated") this.classOnly.get(roll.tally)?.addOne(roll);
+    }
+    return this;
+  }
+
+  /** The board's figures now; `nicknames` (group id → nickname) names the groups in the per-group tables. */
+  result(nicknames: Record<string, string>): BoardPools {
+    const tallies = this.settings.tallies.map((tally) => {
+      const every = this.everyRoll.get(tally.tally)!;
+      const own = this.classOnly.get(tally.tally)!;
+      return { tally, pooled: every.result(nicknames), withoutSimulated: own.size === every.size ? null : own.result(nicknames) };
+    });
+    return { tallies, rollsByGroup: { ...this.rollsByGroup }, kept: this.kept };
+  }
+}
+
+/** Pools a run's kept rolls at once the way the Run board shows them (a BoardPool given every roll). */
+export function poolBoard(input: BoardPoolSettings & { rolls: PoolableRoll[]; nicknames: Record<string, string> }): BoardPools {
+  return new BoardPool(input).add(input.rolls).result(input.nicknames);
 }

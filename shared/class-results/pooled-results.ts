@@ -175,13 +175,6 @@ function rollOutcome(totals: readonly number[]): { seatOutcomes: ("win" | "tie" 
   };
 }
 
-/** ISO timestamps in one format sort as plain strings; localeCompare would be far slower on thousands of rolls. */
-function byRecordedAt(x: OrderedRoll, y: OrderedRoll): number {
-  const a = x.roll.recordedAt;
-  const b = y.roll.recordedAt;
-  return a < b ? -1 : a > b ? 1 : x.order - y.order;
-}
-
 /** A roll's score for the first seat under a tie rule; null when the roll does not count (a tie under "re-roll ties"). */
 export function scoreUnderTieRule(totals: readonly number[], tieRule: TieRule): number | null {
   const { seatOutcomes, shared } = rollOutcome(totals);
@@ -271,13 +264,6 @@ function convergenceRollCounts(rolls: number): number[] {
   return [...kept].filter((count) => count >= 1).sort((x, y) => x - y);
 }
 
-interface OrderedRoll {
-  roll: PoolableRoll;
-  /** Totals in ascending die-index order. */
-  totals: number[];
-  order: number;
-}
-
 function emptySeats(matchup: number[], names: string[]): SeatCounts[] {
   return matchup.map((dieIndex, seat) => ({ seat, dieIndex, dieName: names[dieIndex], wins: 0, ties: 0, losses: 0 }));
 }
@@ -303,102 +289,238 @@ function frequencyUnder(seats: SeatCounts[], rolls: number, decided: number, tie
   return rolls === 0 ? null : first.wins / rolls;
 }
 
-/**
- * Pools a class's rolls per matchup against the exact probabilities from the engine: counts per seat, the first seat's
- * relative frequency (raw and under the tie rule) beside the exact fraction, a Wilson 95% interval, a downsampled
- * convergence series with its 95% band, and per group an exact two-sided binomial test flagging implausible recording.
- * Rolls of the same dice in another seat order pool together, seats reordered by ascending die index.
- * Callers choose the rolls (one tally, with or without simulated rolls); undone rolls must be left out.
- */
-export function poolRolls(input: { dice: { name: string; faces: number[] }[]; tieRule: TieRule; rolls: PoolableRoll[] }): PooledResults {
-  const { dice, tieRule } = input;
-  const names = dice.map((die) => die.name);
-  const z = criticalValueForConfidence(0.95);
-  const exactCache = new Map<string, ExactFractions>();
-  const byMatchup = new Map<string, OrderedRoll[]>();
-  const byGroup = new Map<string, OrderedRoll[]>();
-  const bySource: Record<RollSource, number> = { phone: 0, simulated: 0, paper: 0 };
+/** First-seat outcome codes kept per roll for the convergence series: bit 0–1 the outcome, bit 2 a shared top total. */
+const FIRST_LOSS = 0;
+const FIRST_TIE = 1;
+const FIRST_WIN = 2;
+const SHARED_TOP = 4;
 
-  // Keys are built once per distinct seat order, not once per roll: a board re-pools thousands of rolls a few times a second.
-  const orderKeys = new Map<string, { key: string; seats: number[] }>();
-  for (let order = 0; order < input.rolls.length; order += 1) {
-    const roll = input.rolls[order];
-    const recorded = `${roll.dicePerPlayer}:${roll.matchup.join("-")}`;
-    let known = orderKeys.get(recorded);
-    if (!known) {
-      if (roll.matchup.length < 2) throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
-      if (roll.matchup.some((index) => !Number.isInteger(index) || index < 0 || index >= dice.length)) {
-        throw new RangeError(`A roll names a die that is not in the set (the set has ${dice.length} dice).`);
-      }
-      const seats = roll.matchup.map((dieIndex, seat) => ({ dieIndex, seat })).sort((x, y) => x.dieIndex - y.dieIndex || x.seat - y.seat);
-      known = { key: `${roll.dicePerPlayer}:${seats.map((entry) => entry.dieIndex).join("-")}`, seats: seats.map((entry) => entry.seat) };
-      orderKeys.set(recorded, known);
-    }
-    if (roll.totals.length !== known.seats.length) throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
-    const ordered: OrderedRoll = { roll, totals: known.seats.map((seat) => roll.totals[seat]), order };
-    let ofMatchup = byMatchup.get(known.key);
-    if (!ofMatchup) byMatchup.set(known.key, (ofMatchup = []));
-    ofMatchup.push(ordered);
-    const groupKey = `${roll.groupId} ${known.key}`;
-    let ofGroup = byGroup.get(groupKey);
-    if (!ofGroup) byGroup.set(groupKey, (ofGroup = []));
-    ofGroup.push(ordered);
-    bySource[roll.source] += 1;
+/** The first seat's outcome code of one roll (totals in the matchup's seat order). */
+function firstSeatCode(totals: readonly number[]): number {
+  let highest = totals[0];
+  for (let seat = 1; seat < totals.length; seat += 1) if (totals[seat] > highest) highest = totals[seat];
+  let atTop = 0;
+  for (const total of totals) if (total === highest) atTop += 1;
+  const first = totals[0] < highest ? FIRST_LOSS : atTop === 1 ? FIRST_WIN : FIRST_TIE;
+  return first | (atTop > 1 ? SHARED_TOP : 0);
+}
+
+/** One matchup's running figures: seat counts, and per roll its time, arrival order and first-seat code for the convergence series. */
+interface MatchupTally {
+  key: string;
+  matchup: number[];
+  dicePerPlayer: number;
+  seats: SeatCounts[];
+  decided: number;
+  times: number[];
+  arrivals: number[];
+  codes: number[];
+  /** False once a roll arrived with an earlier time than the last one: the series is re-sorted before it is read. */
+  inOrder: boolean;
+}
+
+/** One group's running figures for one matchup. */
+interface GroupTally {
+  groupId: string;
+  nickname: string | null;
+  key: string;
+  matchup: number[];
+  dicePerPlayer: number;
+  seats: SeatCounts[];
+  decided: number;
+  rolls: number;
+  sources: Set<RollSource>;
+}
+
+/**
+ * A class's rolls pooled as they come: `add` counts each roll into its matchup and group in constant time (keeping
+ * two numbers and a code per roll for the convergence series), and `result` reads the pooled figures at any moment,
+ * the same as poolRolls over every roll added so far. The Run board adds only the new rolls on each refresh, and the
+ * summary export adds rolls from a database cursor without holding them.
+ */
+export class RollPool {
+  private readonly names: string[];
+  private readonly z = criticalValueForConfidence(0.95);
+  private readonly exactCache = new Map<string, ExactFractions>();
+  private readonly matchups = new Map<string, MatchupTally>();
+  private readonly groups = new Map<string, GroupTally>();
+  // Keys are built once per distinct seat order, not once per roll.
+  private readonly orderKeys = new Map<string, { key: string; seats: number[]; matchup: number[] }>();
+  private readonly groupIds = new Set<string>();
+  private readonly bySource: Record<RollSource, number> = { phone: 0, simulated: 0, paper: 0 };
+  private count = 0;
+
+  constructor(
+    private readonly dice: { name: string; faces: number[] }[],
+    private readonly tieRule: TieRule,
+  ) {
+    this.names = dice.map((die) => die.name);
   }
 
-  const exactFor = (key: string, matchup: number[], dicePerPlayer: number): ExactFractions => {
-    if (!exactCache.has(key)) exactCache.set(key, exactFractions(matchup.map((index) => dice[index].faces), dicePerPlayer));
-    return exactCache.get(key)!;
-  };
-  const keyParts = (key: string) => {
-    const [perPlayer, indexes] = key.split(":");
-    return { dicePerPlayer: Number(perPlayer), matchup: indexes.split("-").map(Number) };
-  };
+  /** How many rolls have been added. */
+  get size(): number {
+    return this.count;
+  }
 
-  const matchups: PooledMatchup[] = [...byMatchup.entries()].map(([key, rolls]) => {
-    const { dicePerPlayer, matchup } = keyParts(key);
-    const exact = exactFor(key, matchup, dicePerPlayer);
+  /** Adds rolls (undone rolls must be left out); throws a RangeError, adding nothing of that roll, for a roll that does not fit the set. */
+  add(rolls: Iterable<PoolableRoll>): this {
+    for (const roll of rolls) this.addOne(roll);
+    return this;
+  }
+
+  addOne(roll: PoolableRoll): void {
+    const recorded = `${roll.dicePerPlayer}:${roll.matchup.join("-")}`;
+    let known = this.orderKeys.get(recorded);
+    if (!known) {
+      if (roll.matchup.length < 2) throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
+      if (roll.matchup.some((index) => !Number.isInteger(index) || index < 0 || index >= this.dice.length)) {
+        throw new RangeError(`A roll names a die that is not in the set (the set has ${this.dice.length} dice).`);
+      }
+      const seats = roll.matchup.map((dieIndex, seat) => ({ dieIndex, seat })).sort((x, y) => x.dieIndex - y.dieIndex || x.seat - y.seat);
+      const matchup = seats.map((entry) => entry.dieIndex);
+      known = { key: `${roll.dicePerPlayer}:${matchup.join("-")}`, seats: seats.map((entry) => entry.seat), matchup };
+      this.orderKeys.set(recorded, known);
+    }
+    if (roll.totals.length !== known.seats.length) throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
+    const totals = known.seats.map((seat) => roll.totals[seat]);
+
+    let ofMatchup = this.matchups.get(known.key);
+    if (!ofMatchup) {
+      ofMatchup = {
+        key: known.key,
+        matchup: known.matchup,
+        dicePerPlayer: roll.dicePerPlayer,
+        seats: emptySeats(known.matchup, this.names),
+        decided: 0,
+        times: [],
+        arrivals: [],
+        codes: [],
+        inOrder: true,
+      };
+      this.matchups.set(known.key, ofMatchup);
+    }
+    if (countInto(ofMatchup.seats, totals)) ofMatchup.decided += 1;
+    const time = Date.parse(roll.recordedAt);
+    if (ofMatchup.times.length > 0 && time < ofMatchup.times[ofMatchup.times.length - 1]) ofMatchup.inOrder = false;
+    ofMatchup.times.push(time);
+    ofMatchup.arrivals.push(this.count);
+    ofMatchup.codes.push(firstSeatCode(totals));
+
+    const groupKey = `${roll.groupId} ${known.key}`;
+    let ofGroup = this.groups.get(groupKey);
+    if (!ofGroup) {
+      ofGroup = {
+        groupId: roll.groupId,
+        nickname: null,
+        key: known.key,
+        matchup: known.matchup,
+        dicePerPlayer: roll.dicePerPlayer,
+        seats: emptySeats(known.matchup, this.names),
+        decided: 0,
+        rolls: 0,
+        sources: new Set(),
+      };
+      this.groups.set(groupKey, ofGroup);
+    }
+    if (countInto(ofGroup.seats, totals)) ofGroup.decided += 1;
+    ofGroup.rolls += 1;
+    ofGroup.sources.add(roll.source);
+    if (ofGroup.nickname === null && roll.groupNickname) ofGroup.nickname = roll.groupNickname;
+
+    this.groupIds.add(roll.groupId);
+    this.bySource[roll.source] += 1;
+    this.count += 1;
+  }
+
+  /** The pooled figures of every roll added so far; `nicknames` (group id → nickname) overrides those the rolls carried. */
+  result(nicknames?: Record<string, string>): PooledResults {
+    const matchups = [...this.matchups.values()].map((tally) => this.matchupResult(tally));
+    matchups.sort((x, y) => x.dicePerPlayer - y.dicePerPlayer || x.players - y.players || x.key.localeCompare(y.key, "en", { numeric: true }));
+    const groups = [...this.groups.values()].map((tally) => this.groupResult(tally, nicknames?.[tally.groupId] ?? tally.nickname));
+    groups.sort((x, y) => (x.groupNickname ?? x.groupId).localeCompare(y.groupNickname ?? y.groupId) || x.matchupKey.localeCompare(y.matchupKey));
+    return {
+      tieRule: this.tieRule,
+      matchups,
+      groups,
+      totals: {
+        rolls: this.count,
+        bySource: { ...this.bySource },
+        groups: this.groupIds.size,
+        matchups: matchups.length,
+        implausibleGroups: new Set(groups.filter((group) => group.test.implausible).map((group) => group.groupId)).size,
+      },
+    };
+  }
+
+  private exactFor(key: string, matchup: number[], dicePerPlayer: number): ExactFractions {
+    let exact = this.exactCache.get(key);
+    if (!exact) this.exactCache.set(key, (exact = exactFractions(matchup.map((index) => this.dice[index].faces), dicePerPlayer)));
+    return exact;
+  }
+
+  /** Puts a matchup's series back in recorded order (ties in arrival order) after a roll arrived out of order. */
+  private sortSeries(tally: MatchupTally) {
+    const order = tally.times.map((_, index) => index).sort((x, y) => tally.times[x] - tally.times[y] || tally.arrivals[x] - tally.arrivals[y]);
+    tally.times = order.map((index) => tally.times[index]);
+    tally.arrivals = order.map((index) => tally.arrivals[index]);
+    tally.codes = order.map((index) => tally.codes[index]);
+    tally.inOrder = true;
+  }
+
+  private matchupResult(tally: MatchupTally): PooledMatchup {
+    const { tieRule, z } = this;
+    const { key, matchup, dicePerPlayer, seats, decided } = tally;
+    if (!tally.inOrder) this.sortSeries(tally);
+    const rolls = tally.codes.length;
+    const exact = this.exactFor(key, matchup, dicePerPlayer);
     const underTieRule = exactUnderTieRule(exact, tieRule);
     const sigma = underTieRule === null ? 0 : Math.sqrt(Math.max(0, scoreVariance(exact, tieRule, underTieRule)));
     const centre = underTieRule === null ? null : fractionToNumber(underTieRule);
-    const sorted = [...rolls].sort(byRecordedAt);
-    const seats = emptySeats(matchup, names);
-    const kept = new Set(convergenceRollCounts(sorted.length));
+    const kept = convergenceRollCounts(rolls);
     const convergence: ConvergencePoint[] = [];
-    let decided = 0;
-    sorted.forEach((entry, index) => {
-      if (countInto(seats, entry.totals)) decided += 1;
+    // The running first-seat figures, replayed from the codes in recorded order.
+    let wins = 0;
+    let ties = 0;
+    let decidedSoFar = 0;
+    let next = 0;
+    for (let index = 0; index < rolls && next < kept.length; index += 1) {
+      const code = tally.codes[index];
+      const first = code & 3;
+      if (first === FIRST_WIN) wins += 1;
+      else if (first === FIRST_TIE) ties += 1;
+      if ((code & SHARED_TOP) === 0) decidedSoFar += 1;
       const count = index + 1;
-      if (!kept.has(count)) return;
-      const counted = tieRule === "re-roll-ties" ? decided : count;
+      if (count !== kept[next]) continue;
+      next += 1;
+      const counted = tieRule === "re-roll-ties" ? decidedSoFar : count;
       const half = centre === null || counted === 0 ? null : (z * sigma) / Math.sqrt(counted);
       convergence.push({
         rolls: count,
-        frequency: frequencyUnder(seats, count, decided, tieRule),
+        frequency: runningFrequency(wins, ties, count, decidedSoFar, tieRule),
         bandLower: half === null || centre === null ? null : Math.max(0, centre - half),
         bandUpper: half === null || centre === null ? null : Math.min(1, centre + half),
       });
-    });
-    const frequencyUnderTieRule = frequencyUnder(seats, sorted.length, decided, tieRule);
+    }
+    const frequencyUnderTieRule = frequencyUnder(seats, rolls, decided, tieRule);
     const interval =
       frequencyUnderTieRule === null
         ? null
         : tieRule === "re-roll-ties"
           ? wilsonInterval(seats[0].wins, decided)
           : tieRule === "ties-score-half"
-            ? wilsonIntervalFromProportion(frequencyUnderTieRule, sorted.length)
-            : wilsonInterval(seats[0].wins, sorted.length);
+            ? wilsonIntervalFromProportion(frequencyUnderTieRule, rolls)
+            : wilsonInterval(seats[0].wins, rolls);
     const tie = exact.firstTie;
     return {
       key,
       matchup,
-      label: matchup.map((index) => names[index]).join(" v "),
+      label: matchup.map((index) => this.names[index]).join(" v "),
       dicePerPlayer,
       players: matchup.length,
-      rolls: sorted.length,
+      rolls,
       decidedRolls: decided,
-      seats,
-      frequency: seats[0].wins / sorted.length,
+      seats: seats.map((seat) => ({ ...seat })),
+      frequency: seats[0].wins / rolls,
       frequencyUnderTieRule,
       exact: {
         win: exactValue(exact.seatWins[0]),
@@ -411,54 +533,53 @@ export function poolRolls(input: { dice: { name: string; faces: number[] }[]; ti
       interval,
       convergence,
     };
-  });
-  matchups.sort((x, y) => x.dicePerPlayer - y.dicePerPlayer || x.players - y.players || x.key.localeCompare(y.key, "en", { numeric: true }));
+  }
 
-  const groups: PooledGroup[] = [...byGroup.entries()].map(([groupKey, rolls]) => {
-    const key = groupKey.slice(groupKey.indexOf(" ") + 1);
-    const { dicePerPlayer, matchup } = keyParts(key);
-    const exact = exactFor(key, matchup, dicePerPlayer);
-    const seats = emptySeats(matchup, names);
-    let decided = 0;
-    for (const entry of rolls) if (countInto(seats, entry.totals)) decided += 1;
-    const { pValue, method } = binomialPValue(seats[0].wins, rolls.length, exact.seatWins[0]);
-    const first = rolls[0].roll;
+  private groupResult(tally: GroupTally, nickname: string | null): PooledGroup {
+    const { key, matchup, dicePerPlayer, seats, decided, rolls } = tally;
+    const exact = this.exactFor(key, matchup, dicePerPlayer);
+    const { pValue, method } = binomialPValue(seats[0].wins, rolls, exact.seatWins[0]);
     return {
-      groupId: first.groupId,
-      groupNickname: rolls.find((entry) => entry.roll.groupNickname)?.roll.groupNickname ?? null,
+      groupId: tally.groupId,
+      groupNickname: nickname,
       matchupKey: key,
       matchup,
-      label: matchup.map((index) => names[index]).join(" v "),
+      label: matchup.map((index) => this.names[index]).join(" v "),
       dicePerPlayer,
       players: matchup.length,
-      rolls: rolls.length,
+      rolls,
       decidedRolls: decided,
-      seats,
-      sources: [...new Set(rolls.map((entry) => entry.roll.source))],
-      frequency: seats[0].wins / rolls.length,
-      frequencyUnderTieRule: frequencyUnder(seats, rolls.length, decided, tieRule),
+      seats: seats.map((seat) => ({ ...seat })),
+      sources: [...tally.sources],
+      frequency: seats[0].wins / rolls,
+      frequencyUnderTieRule: frequencyUnder(seats, rolls, decided, this.tieRule),
       test: {
         method,
         successes: seats[0].wins,
-        trials: rolls.length,
+        trials: rolls,
         nullProbability: exactValue(exact.seatWins[0]),
         pValue,
         implausible: pValue < IMPLAUSIBLE_P_VALUE,
       },
     };
-  });
-  groups.sort((x, y) => (x.groupNickname ?? x.groupId).localeCompare(y.groupNickname ?? y.groupId) || x.matchupKey.localeCompare(y.matchupKey));
+  }
+}
 
-  return {
-    tieRule,
-    matchups,
-    groups,
-    totals: {
-      rolls: input.rolls.length,
-      bySource,
-      groups: new Set(input.rolls.map((roll) => roll.groupId)).size,
-      matchups: matchups.length,
-      implausibleGroups: new Set(groups.filter((group) => group.test.implausible).map((group) => group.groupId)).size,
-    },
-  };
+/** The first seat's running relative frequency under the tie rule, from its running wins and ties. */
+function runningFrequency(wins: number, ties: number, rolls: number, decided: number, tieRule: TieRule): number | null {
+  if (tieRule === "re-roll-ties") return decided === 0 ? null : wins / decided;
+  if (tieRule === "ties-score-half") return rolls === 0 ? null : (wins + ties / 2) / rolls;
+  return rolls === 0 ? null : wins / rolls;
+}
+
+/**
+ * Pools a class's rolls per matchup against the exact probabilities from the engine: counts per seat, the first seat's
+ * relative frequency (raw and under the tie rule) beside the exact fraction, a Wilson 95% interval, a downsampled
+ * convergence series with its 95% band, and per group an exact two-sided binomial test flagging implausible recording.
+ * Rolls of the same dice in another seat order pool together, seats reordered by ascending die index.
+ * Callers choose the rolls (one tally, with or without simulated rolls); undone rolls must be left out.
+ * The same as adding every roll to a RollPool and reading its result.
+ */
+export function poolRolls(input: { dice: { name: string; faces: number[] }[]; tieRule: TieRule; rolls: Iterable<PoolableRoll> }): PooledResults {
+  return new RollPool(input.dice, input.tieRule).add(input.rolls).result();
 }

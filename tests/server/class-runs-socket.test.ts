@@ -2,7 +2,7 @@ import { and, eq, isNull, sql } from "drizzle-orm";
 import type { Socket } from "socket.io-client";
 import { v4 as uuidv4 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { EVENTS, type BoardSnapshotAck, type GroupJoinAck, type GroupResumeAck, type RollUndoAck, type VoteCastAck } from "@shared/events";
+import { decodeBoardUpdate, EVENTS, type BoardSnapshotAck, type BoardUpdateMessage, type GroupJoinAck, type GroupResumeAck, type RollUndoAck, type VoteCastAck } from "@shared/events";
 import type { BoardSnapshot, ClassRun } from "@shared/schemas/class-runs";
 import { mulberry32 } from "@shared/probability/index";
 import { db } from "../../server/db/client";
@@ -287,7 +287,7 @@ describe("the Run board over socket.io", () => {
     const first: BoardSnapshotAck = await board.emitWithAck(EVENTS.boardSnapshot, { runId: run.id });
     if (!first.ok) throw new Error(first.error.message);
     const updates: BoardSnapshot[] = [];
-    board.on(EVENTS.boardUpdate, (snapshot: BoardSnapshot) => updates.push(snapshot));
+    board.on(EVENTS.boardUpdate, (message: BoardUpdateMessage) => updates.push(decodeBoardUpdate(message)));
     for (let index = 0; index < 40; index += 1) expect((await record(group, rollOf(group, [[6], [3]]))).ok).toBe(true);
     await new Promise((resolve) => setTimeout(resolve, 800));
     expect(updates.length).toBeGreaterThan(0);

@@ -241,50 +241,52 @@ export type NewRoll = {
 export type RollWriteOutcome = "stored" | "duplicate" | "run_closed" | "run_paused" | "id_taken";
 
 /**
- * Writes a batch of rolls in one transaction: reads their runs' status under a share lock (so closing a run waits for
- * the batch, and batches do not wait for each other), inserts the rolls of open runs in one multi-row
- * INSERT … SELECT FROM unnest(…) ON CONFLICT (id) DO NOTHING, and tells each roll's outcome (a roll already stored for
- * the same group is a duplicate, acknowledged as saved). The Run board's version counts roll rows, so no run row is
- * updated here and concurrent batches never queue on one hot row.
+ * Writes a batch of rolls in one statement (one round trip, its own transaction): a CTE reads the rolls' runs under a
+ * share lock (so closing a run waits for the batch, and batches do not wait for each other), inserts the rolls of open
+ * runs with one INSERT … SELECT FROM unnest(…) ON CONFLICT (id) DO NOTHING, and returns the inserted ids beside each
+ * run's status. Only when some roll was not inserted does a second query tell a duplicate (the same id already stored
+ * for the same group, acknowledged as saved) from an id taken by another group or a closed or paused run. The Run
+ * board's version counts roll rows, so no run row is updated here and concurrent batches never queue on one hot row.
  */
 export async function writeRollBatch(executor: Executor, rolls: NewRoll[]): Promise<Map<string, RollWriteOutcome>> {
   const outcomes = new Map<string, RollWriteOutcome>();
-  await executor.transaction(async (tx) => {
-    const runIds = [...new Set(rolls.map((entry) => entry.runId))];
-    const runs = await tx
-      .select({ id: classRun.id, status: classRun.status })
-      .from(classRun)
-      .where(inArray(classRun.id, runIds))
-      .for("share");
-    const status = new Map(runs.map((run) => [run.id, run.status]));
-    const insertable = rolls.filter((entry) => status.get(entry.runId) === "open");
-    if (insertable.length > 0) {
-      // sql.param keeps each array one parameter (a bare array would be spread into a list), so the statement has 11 parameters at any batch size.
-      const column = <T>(pick: (entry: NewRoll) => T) => sql.param(insertable.map(pick));
-      const inserted = await tx.execute<{ id: string }>(sql`
-        insert into roll (id, run_id, group_id, tally, dice_per_player, matchup, faces, totals, winner_seat, source, recorded_at)
-        select v.id, v.run_id, v.group_id, v.tally, v.dice_per_player, v.matchup::jsonb, v.faces::jsonb, v.totals::jsonb, v.winner_seat, v.source, v.recorded_at
-        from unnest(
-          ${column((entry) => entry.id)}::uuid[], ${column((entry) => entry.runId)}::uuid[], ${column((entry) => entry.groupId)}::uuid[],
-          ${column((entry) => entry.tally)}::int[], ${column((entry) => entry.dicePerPlayer)}::int[],
-          ${column((entry) => JSON.stringify(entry.matchup))}::text[], ${column((entry) => JSON.stringify(entry.faces))}::text[],
-          ${column((entry) => JSON.stringify(entry.totals))}::text[], ${column((entry) => entry.winnerSeat)}::int[],
-          ${column((entry) => entry.source)}::text[], ${column((entry) => entry.recordedAt.toISOString())}::timestamptz[]
-        ) as v(id, run_id, group_id, tally, dice_per_player, matchup, faces, totals, winner_seat, source, recorded_at)
-        on conflict (id) do nothing
-        returning id`);
-      for (const row of inserted.rows) outcomes.set(row.id, "stored");
-    }
-    const rest = rolls.filter((entry) => !outcomes.has(entry.id));
-    if (rest.length === 0) return;
-    const existing = await tx.select({ id: roll.id, groupId: roll.groupId }).from(roll).where(inArray(roll.id, rest.map((entry) => entry.id)));
-    const owner = new Map(existing.map((row) => [row.id, row.groupId]));
-    for (const entry of rest) {
-      const storedFor = owner.get(entry.id);
-      if (storedFor !== undefined) outcomes.set(entry.id, storedFor === entry.groupId ? "duplicate" : "id_taken");
-      else outcomes.set(entry.id, status.get(entry.runId) === "paused" ? "run_paused" : "run_closed");
-    }
-  });
+  const runIds = [...new Set(rolls.map((entry) => entry.runId))];
+  // sql.param keeps each array one parameter (a bare array would be spread into a list), so the statement has 12 parameters at any batch size.
+  const column = <T>(pick: (entry: NewRoll) => T) => sql.param(rolls.map(pick));
+  const written = await executor.execute<{ id: string; status: RunStatus | null }>(sql`
+    with runs as (
+      select id, status from class_run where id = any(${sql.param(runIds)}::uuid[]) for share
+    ), inserted as (
+      insert into roll (id, run_id, group_id, tally, dice_per_player, matchup, faces, totals, winner_seat, source, recorded_at)
+      select v.id, v.run_id, v.group_id, v.tally, v.dice_per_player, v.matchup::jsonb, v.faces::jsonb, v.totals::jsonb, v.winner_seat, v.source, v.recorded_at
+      from unnest(
+        ${column((entry) => entry.id)}::uuid[], ${column((entry) => entry.runId)}::uuid[], ${column((entry) => entry.groupId)}::uuid[],
+        ${column((entry) => entry.tally)}::int[], ${column((entry) => entry.dicePerPlayer)}::int[],
+        ${column((entry) => JSON.stringify(entry.matchup))}::text[], ${column((entry) => JSON.stringify(entry.faces))}::text[],
+        ${column((entry) => JSON.stringify(entry.totals))}::text[], ${column((entry) => entry.winnerSeat)}::int[],
+        ${column((entry) => entry.source)}::text[], ${column((entry) => entry.recordedAt.toISOString())}::timestamptz[]
+      ) as v(id, run_id, group_id, tally, dice_per_player, matchup, faces, totals, winner_seat, source, recorded_at)
+      where v.run_id in (select id from runs where status = 'open')
+      on conflict (id) do nothing
+      returning id
+    )
+    select id, null as status from inserted
+    union all
+    select id, status from runs`);
+  const status = new Map<string, RunStatus>();
+  for (const row of written.rows) {
+    if (row.status === null) outcomes.set(row.id, "stored");
+    else status.set(row.id, row.status);
+  }
+  const rest = rolls.filter((entry) => !outcomes.has(entry.id));
+  if (rest.length === 0) return outcomes;
+  const existing = await executor.select({ id: roll.id, groupId: roll.groupId }).from(roll).where(inArray(roll.id, rest.map((entry) => entry.id)));
+  const owner = new Map(existing.map((row) => [row.id, row.groupId]));
+  for (const entry of rest) {
+    const storedFor = owner.get(entry.id);
+    if (storedFor !== undefined) outcomes.set(entry.id, storedFor === entry.groupId ? "duplicate" : "id_taken");
+    else outcomes.set(entry.id, status.get(entry.runId) === "paused" ? "run_paused" : "run_closed");
+  }
   return outcomes;
 }
 
@@ -342,27 +344,17 @@ export type PoolRow = {
   winnerSeat: number | null;
   source: "phone" | "simulated" | "paper";
   recordedAt: string;
-  receivedAt: string;
 };
 
-/**
- * Kept (not undone) rolls of a run in the order recorded, as plain rows (boards read them often); with `receivedSince`,
- * only rolls stored from that moment on.
- */
-export async function runRollsForPooling(executor: Executor, runId: string, receivedSince?: string): Promise<PoolRow[]> {
+/** Kept (not undone) rolls of a run in the order recorded, as plain rows (a Run board reads them when it connects). */
+export async function runRollsForPooling(executor: Executor, runId: string): Promise<PoolRow[]> {
   const result = await executor.execute<PoolRow>(sql`
     select id, group_id as "groupId", tally, dice_per_player as "dicePerPlayer", matchup, totals, winner_seat as "winnerSeat", source,
-      to_json(recorded_at) #>> '{}' as "recordedAt", to_json(received_at) #>> '{}' as "receivedAt"
+      to_json(recorded_at) #>> '{}' as "recordedAt"
     from roll
-    where run_id = ${runId} and undone_at is null ${receivedSince === undefined ? sql`` : sql`and received_at >= ${receivedSince}::timestamptz`}
+    where run_id = ${runId} and undone_at is null
     order by recorded_at, received_at, id`);
   return result.rows;
-}
-
-/** How many kept (not undone) rolls a run has. */
-export async function countKeptRolls(executor: Executor, runId: string): Promise<number> {
-  const [row] = await executor.select({ kept: count() }).from(roll).where(and(eq(roll.runId, runId), isNull(roll.undoneAt)));
-  return row.kept;
 }
 
 /** Kept rolls per group of a run. */

@@ -1,6 +1,6 @@
 import { useQueryClient } from "@tanstack/react-query";
 import { useEffect, useState } from "react";
-import { EVENTS, type BoardSnapshotAck } from "@shared/events";
+import { decodeBoardUpdate, EVENTS, type BoardSnapshotAck, type BoardUpdateMessage } from "@shared/events";
 import type { BoardSnapshot } from "@shared/schemas/class-runs";
 import { openAppSocket } from "@/lib/socket";
 import { runBoardQueryOptions } from "../api/get-run-board";
@@ -18,7 +18,8 @@ export function useLiveBoard(runId: string): { live: LiveState; problem: string 
 
   useEffect(() => {
     const { queryKey } = runBoardQueryOptions(runId);
-    const apply = (snapshot: BoardSnapshot) => {
+    const apply = (message: BoardUpdateMessage) => {
+      const snapshot = decodeBoardUpdate(message);
       queryClient.setQueryData<BoardSnapshot>(queryKey, (current) => {
         if (current && current.version > snapshot.version) return current;
         // Pushed updates go to every watcher alike; who may manage the run comes from this teacher's own snapshot.
