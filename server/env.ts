@@ -25,7 +25,7 @@ const envSchema = z.object({
   ROLL_RATE_PER_GROUP: z.coerce.number().positive().default(4),
   ROLL_BURST_PER_GROUP: z.coerce.number().int().positive().default(60),
   ROLL_BATCH_MS: z.coerce.number().int().min(0).max(200).default(15),
-  BOARD_UPDATE_MS: z.coerce.number().int().min(50).max(5000).default(300),
+  BOARD_UPDATE_MS: z.coerce.number().int().min(50).max(5000).default(500),
 });
 
 export type Env = z.infer<typeof envSchema> & { appOrigin: string; authSecret: string; projectRoot: string };

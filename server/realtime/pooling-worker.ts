@@ -2,7 +2,7 @@
 // event loop that acknowledges pupils' rolls. It keeps each watched run's running pool, so a refresh sends only the
 // new rolls and pools only those. Started by pooling-pool.ts.
 import { parentPort } from "node:worker_threads";
-import { BoardPool, poolBoard, type BoardPools } from "../../shared/class-results/board-pool";
+import { BoardPool, poolBoard, SimulatedRollError, type BoardPools } from "../../shared/class-results/board-pool";
 import { encodeBoardTallies } from "../../shared/events";
 import type { BoardPoolRequest, KeptBoardPoolRequest } from "./pooling-pool";
 
@@ -17,7 +17,7 @@ function pooled(request: BoardPoolRequest | KeptBoardPoolRequest): BoardPools | 
   if (!("keep" in request)) return poolBoard({ ...request, rolls: request.rows });
   const { keep, rows, nicknames, ...settings } = request;
   if (keep.reset) {
-    const run = { generation: keep.generation, ids: new Set(rows.map((row) => row.id)), pool: new BoardPool(settings).add(rows) };
+    const run = { generation: keep.generation, ids: new Set(rows.map((row) => row.id)), pool: BoardPool.of(settings, rows) };
     runs.set(keep.runId, run);
     return encoded(run.pool.result(nicknames));
   }
@@ -26,7 +26,15 @@ function pooled(request: BoardPoolRequest | KeptBoardPoolRequest): BoardPools | 
   // A roll the batcher reported while the last full read was running may be in both: it is pooled once.
   const fresh = rows.filter((row) => !run.ids.has(row.id));
   for (const row of fresh) run.ids.add(row.id);
-  return encoded(run.pool.add(fresh).result(nicknames));
+  try {
+    run.pool.add(fresh);
+  } catch (error) {
+    // New rolls come from pupils' phones; simulated ones come with a full read. Pool the run again from the database.
+    if (!(error instanceof SimulatedRollError)) throw error;
+    runs.delete(keep.runId);
+    return null;
+  }
+  return encoded(run.pool.result(nicknames));
 }
 
 parentPort?.on("message", (message: { forget?: string; id: number; request: BoardPoolRequest }) => {

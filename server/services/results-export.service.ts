@@ -1,14 +1,14 @@
 import type { Writable } from "node:stream";
 import ExcelJS from "exceljs";
 import Papa from "papaparse";
-import { poolRolls, type PooledResults } from "@shared/class-results/pooled-results";
+import { RollPool, type PooledResults } from "@shared/class-results/pooled-results";
 import type { TieRule } from "@shared/probability/index";
 import { groupInterval } from "@shared/results/group-interval";
 import { rollsExportColumns, summaryExportColumns, type RollsExportRow, type SummaryExportRow } from "@shared/results/export-columns";
 import { db } from "../db/client";
 import { listRunGroups, streamRunRolls, type ResultsRunListRecord, type StreamedRoll } from "../db/queries/results";
 import type { TeacherContext } from "../middleware/require-teacher";
-import { compactRollCollector, visibleRun } from "./results.service";
+import { poolableRoll, poolRunRolls, visibleRun } from "./results.service";
 
 /** A download the route can send: its name, its type, and how to write it to the response. */
 export type ResultsDownload = { fileName: string; contentType: string; write: (out: Writable) => Promise<void> };
@@ -187,11 +187,11 @@ export async function rollsCsvDownload(teacher: TeacherContext, runId: string, i
   };
 }
 
-/** Pools a run's rolls from the cursor for the summary: poolRolls takes every roll at once, so compact copies (about 0.1 KB each) are held. */
+/** Pools a run's rolls from the cursor for the summary, keeping no roll and no convergence series: memory stays flat. */
 async function pooledForSummary(run: ResultsRunListRecord, nicknames: Map<string, string>, includeSimulated: boolean): Promise<PooledResults> {
-  const collector = compactRollCollector(nicknames, { keepTimes: false });
-  for await (const batch of streamRunRolls(run.id, { includeSimulated })) for (const stored of batch) collector.add(stored);
-  return poolRolls({ dice: run.dice, tieRule: run.tieRule as TieRule, rolls: collector.rolls });
+  const pool = new RollPool(run.dice, run.tieRule as TieRule, { series: false });
+  await poolRunRolls(run.id, [pool], { includeSimulated, nicknames });
+  return pool.result();
 }
 
 /** The summary CSV: per matchup and per group, counts, relative frequency, exact fraction and decimal, Wilson 95% interval. */
@@ -209,8 +209,8 @@ export async function summaryCsvDownload(teacher: TeacherContext, runId: string,
 }
 
 /**
- * The workbook: a Rolls sheet streamed row by row through exceljs's streaming WorkbookWriter, then a Summary sheet
- * pooled from compact copies gathered on the way (poolRolls takes every roll at once; a compact roll is about 0.1 KB).
+ * The workbook: a Rolls sheet streamed row by row through exceljs's streaming WorkbookWriter, each roll counted on the
+ * way into a RollPool (without a convergence series, so memory stays flat), then the Summary sheet from that pool.
  */
 export async function workbookDownload(teacher: TeacherContext, runId: string, includeSimulated: boolean): Promise<ResultsDownload> {
   const { run, names, nicknames } = await runContext(teacher, runId);
@@ -225,17 +225,16 @@ export async function workbookDownload(teacher: TeacherContext, runId: string, i
       const rollsSheet = workbook.addWorksheet("Rolls", { views: [{ state: "frozen", ySplit: 1 }] });
       rollsSheet.columns = rollsExportColumns.map((key) => ({ header: key, key, width: key === "roll_id" ? 38 : key === "roll_time" ? 26 : 14 }));
       rollsSheet.getRow(1).commit();
-      const collector = compactRollCollector(nicknames, { keepTimes: false });
+      const pool = new RollPool(run.dice, run.tieRule as TieRule, { series: false });
       for await (const batch of streamRunRolls(run.id, { includeSimulated })) {
         for (const stored of batch) {
           rollsSheet.addRow(rollsRow(stored, names, nicknames)).commit();
-          collector.add(stored);
+          pool.addOne(poolableRoll(stored, nicknames));
         }
         if (out.writableNeedDrain) await waitForDrain(out);
       }
       rollsSheet.commit();
-      const pooled = poolRolls({ dice: run.dice, tieRule: run.tieRule as TieRule, rolls: collector.rolls });
-      collector.rolls.length = 0;
+      const pooled = pool.result();
       const summarySheet = workbook.addWorksheet("Summary", { views: [{ state: "frozen", ySplit: 1 }] });
       summarySheet.columns = summaryExportColumns.map((key) => ({ header: key, key, width: key === "matchup" ? 24 : 14 }));
       summarySheet.getRow(1).commit();

@@ -1,5 +1,5 @@
 import { randomInt } from "node:crypto";
-import { poolRolls, type PoolableRoll } from "@shared/class-results/pooled-results";
+import { RollPool, type PoolableRoll } from "@shared/class-results/pooled-results";
 import { lessonPlanSchema } from "@shared/schemas/lessons";
 import { setDiceSchema } from "@shared/schemas/dice-sets";
 import type { TieRule } from "@shared/probability/index";
@@ -117,53 +117,40 @@ export async function visibleRun(teacher: TeacherContext, runId: string): Promis
   return run;
 }
 
-/**
- * Collects streamed rolls in the compact form poolRolls takes: one shared string per group and source, one shared array
- * per matchup and per totals. Without `keepTimes` every roll gets the same time, for figures that do not use the
- * convergence order (the summary export), saving a string per roll. `mapMatchup` re-indexes dice for pooling across runs.
- */
-export function compactRollCollector(nicknames: Map<string, string>, options: { keepTimes: boolean; mapMatchup?: (matchup: number[]) => number[] }) {
-  const rolls: PoolableRoll[] = [];
-  const arrays = new Map<string, number[]>();
-  const groupIds = new Map<string, string>();
-  const share = (prefix: string, list: number[]) => {
-    const key = `${prefix}${list.join(",")}`;
-    const found = arrays.get(key);
-    if (found) return found;
-    arrays.set(key, list);
-    return list;
-  };
-  const sources = { phone: "phone", simulated: "simulated", paper: "paper" } as const;
-  const sameTime = new Date(0).toISOString();
+/** A streamed roll as a RollPool takes it; `mapMatchup` re-indexes dice for pooling across runs. */
+export function poolableRoll(stored: StreamedRoll, nicknames: Map<string, string>, mapMatchup?: (matchup: number[]) => number[]): PoolableRoll {
   return {
-    rolls,
-    add(stored: StreamedRoll) {
-      if (!groupIds.has(stored.groupId)) groupIds.set(stored.groupId, stored.groupId);
-      rolls.push({
-        groupId: groupIds.get(stored.groupId)!,
-        groupNickname: nicknames.get(stored.groupId),
-        tally: stored.tally,
-        dicePerPlayer: stored.dicePerPlayer,
-        matchup: share("m", options.mapMatchup ? options.mapMatchup(stored.matchup) : stored.matchup),
-        totals: share("t", stored.totals),
-        winnerSeat: stored.winnerSeat,
-        source: sources[stored.source],
-        recordedAt: options.keepTimes ? stored.recordedAt.toISOString() : sameTime,
-      });
-    },
+    groupId: stored.groupId,
+    groupNickname: nicknames.get(stored.groupId),
+    tally: stored.tally,
+    dicePerPlayer: stored.dicePerPlayer,
+    matchup: mapMatchup ? mapMatchup(stored.matchup) : stored.matchup,
+    totals: stored.totals,
+    winnerSeat: stored.winnerSeat,
+    source: stored.source,
+    recordedAt: stored.recordedAt.toISOString(),
   };
 }
 
-/** Reads a run's rolls that count (undone rolls never) from the cursor into compact rolls with their times. */
-export async function loadPoolableRolls(
+/**
+ * Streams a run's rolls that count (undone rolls never) from the cursor into `pools`, keeping no roll once it is
+ * counted; answers how many rolls each group has among them.
+ */
+export async function poolRunRolls(
   runId: string,
+  pools: RollPool[],
   options: { includeSimulated: boolean; nicknames: Map<string, string>; dicePerPlayer?: number; mapMatchup?: (matchup: number[]) => number[] },
-): Promise<PoolableRoll[]> {
-  const collector = compactRollCollector(options.nicknames, { keepTimes: true, mapMatchup: options.mapMatchup });
+): Promise<Map<string, number>> {
+  const perGroup = new Map<string, number>();
   for await (const batch of streamRunRolls(runId, { includeSimulated: options.includeSimulated })) {
-    for (const stored of batch) if (options.dicePerPlayer === undefined || stored.dicePerPlayer === options.dicePerPlayer) collector.add(stored);
+    for (const stored of batch) {
+      if (options.dicePerPlayer !== undefined && stored.dicePerPlayer !== options.dicePerPlayer) continue;
+      const entry = poolableRoll(stored, options.nicknames, options.mapMatchup);
+      for (const pool of pools) pool.addOne(entry);
+      perGroup.set(stored.groupId, (perGroup.get(stored.groupId) ?? 0) + 1);
+    }
   }
-  return collector.rolls;
+  return perGroup;
 }
 
 /** A run's results page: pooled figures, convergence, per-group table, Guess votes and findings, from stored rolls. */
@@ -171,10 +158,9 @@ export async function getRunResults(teacher: TeacherContext, runId: string, incl
   const run = await visibleRun(teacher, runId);
   const groups = await listRunGroups(db, runId);
   const nicknames = new Map(groups.map((group) => [group.id, group.nickname]));
-  const rolls = await loadPoolableRolls(runId, { includeSimulated, nicknames });
-  const pooled = poolRolls({ dice: run.dice, tieRule: run.tieRule as TieRule, rolls });
-  const rollsPerGroup = new Map<string, number>();
-  for (const entry of rolls) rollsPerGroup.set(entry.groupId, (rollsPerGroup.get(entry.groupId) ?? 0) + 1);
+  const pool = new RollPool(run.dice, run.tieRule as TieRule);
+  const rollsPerGroup = await poolRunRolls(runId, [pool], { includeSimulated, nicknames });
+  const pooled = pool.result();
   const votes = await countGuessVotes(db, runId);
   const dieNames = run.dice.map((die) => die.name);
   return {
@@ -241,19 +227,20 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
   const referencePositions = canonicalDiePositions(reference.dice);
   const referenceIndexAt = new Map(referencePositions.map((position, index) => [position, index]));
   const tieRule = reference.tieRule as TieRule;
-  const allRolls: PoolableRoll[] = [];
+  const everyRun = new RollPool(reference.dice, tieRule);
   const contributions: PooledAcrossRuns["contributions"] = [];
   for (const run of chosen) {
     const positions = canonicalDiePositions(run.dice);
     const groups = await listRunGroups(db, run.id);
     const nicknames = new Map(groups.map((group) => [group.id, `${group.nickname} (${run.classGroup || run.title})`]));
-    const rolls = await loadPoolableRolls(run.id, {
+    const ownPool = new RollPool(reference.dice, tieRule);
+    await poolRunRolls(run.id, [ownPool, everyRun], {
       includeSimulated: query.includeSimulated,
       nicknames,
       dicePerPlayer: query.dicePerPlayer,
       mapMatchup: (matchup) => matchup.map((index) => referenceIndexAt.get(positions[index])!),
     });
-    const own = poolRolls({ dice: reference.dice, tieRule, rolls });
+    const own = ownPool.result();
     contributions.push({
       run: runSummary(run, teacher.user.id),
       matchups: own.matchups.map((entry) => ({
@@ -264,7 +251,6 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
         frequencyUnderTieRule: entry.frequencyUnderTieRule,
       })),
     });
-    for (const entry of rolls) allRolls.push(entry);
   }
   const candidates = visible
     .filter((run) => diceSetKey(run.dice) === setKey && run.players === reference.players && run.tieRule === reference.tieRule)
@@ -275,7 +261,7 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
     players: reference.players,
     tieRule,
     dice: reference.dice,
-    pooled: poolRolls({ dice: reference.dice, tieRule, rolls: allRolls }),
+    pooled: everyRun.result(),
     contributions,
     candidates,
   };

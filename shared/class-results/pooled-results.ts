@@ -312,6 +312,7 @@ interface MatchupTally {
   dicePerPlayer: number;
   seats: SeatCounts[];
   decided: number;
+  rolls: number;
   times: number[];
   arrivals: number[];
   codes: number[];
@@ -347,14 +348,21 @@ export class RollPool {
   // Keys are built once per distinct seat order, not once per roll.
   private readonly orderKeys = new Map<string, { key: string; seats: number[]; matchup: number[] }>();
   private readonly groupIds = new Set<string>();
+  /** Each group's last binomial test by its counts: in a class most groups record nothing between two board refreshes. */
+  private readonly tests = new Map<string, { wins: number; rolls: number; pValue: number; method: PlausibilityMethod }>();
   private readonly bySource: Record<RollSource, number> = { phone: 0, simulated: 0, paper: 0 };
   private count = 0;
 
+  private readonly series: boolean;
+
+  /** With `series: false` no convergence series is kept (its result is empty), so memory stays flat however many rolls come. */
   constructor(
     private readonly dice: { name: string; faces: number[] }[],
     private readonly tieRule: TieRule,
+    options: { series?: boolean } = {},
   ) {
     this.names = dice.map((die) => die.name);
+    this.series = options.series ?? true;
   }
 
   /** How many rolls have been added. */
@@ -392,6 +400,7 @@ export class RollPool {
         dicePerPlayer: roll.dicePerPlayer,
         seats: emptySeats(known.matchup, this.names),
         decided: 0,
+        rolls: 0,
         times: [],
         arrivals: [],
         codes: [],
@@ -400,11 +409,14 @@ export class RollPool {
       this.matchups.set(known.key, ofMatchup);
     }
     if (countInto(ofMatchup.seats, totals)) ofMatchup.decided += 1;
-    const time = Date.parse(roll.recordedAt);
-    if (ofMatchup.times.length > 0 && time < ofMatchup.times[ofMatchup.times.length - 1]) ofMatchup.inOrder = false;
-    ofMatchup.times.push(time);
-    ofMatchup.arrivals.push(this.count);
-    ofMatchup.codes.push(firstSeatCode(totals));
+    ofMatchup.rolls += 1;
+    if (this.series) {
+      const time = Date.parse(roll.recordedAt);
+      if (ofMatchup.times.length > 0 && time < ofMatchup.times[ofMatchup.times.length - 1]) ofMatchup.inOrder = false;
+      ofMatchup.times.push(time);
+      ofMatchup.arrivals.push(this.count);
+      ofMatchup.codes.push(firstSeatCode(totals));
+    }
 
     const groupKey = `${roll.groupId} ${known.key}`;
     let ofGroup = this.groups.get(groupKey);
@@ -469,14 +481,13 @@ export class RollPool {
 
   private matchupResult(tally: MatchupTally): PooledMatchup {
     const { tieRule, z } = this;
-    const { key, matchup, dicePerPlayer, seats, decided } = tally;
+    const { key, matchup, dicePerPlayer, seats, decided, rolls } = tally;
     if (!tally.inOrder) this.sortSeries(tally);
-    const rolls = tally.codes.length;
     const exact = this.exactFor(key, matchup, dicePerPlayer);
     const underTieRule = exactUnderTieRule(exact, tieRule);
     const sigma = underTieRule === null ? 0 : Math.sqrt(Math.max(0, scoreVariance(exact, tieRule, underTieRule)));
     const centre = underTieRule === null ? null : fractionToNumber(underTieRule);
-    const kept = convergenceRollCounts(rolls);
+    const kept = this.series ? convergenceRollCounts(rolls) : [];
     const convergence: ConvergencePoint[] = [];
     // The running first-seat figures, replayed from the codes in recorded order.
     let wins = 0;
@@ -538,7 +549,13 @@ export class RollPool {
   private groupResult(tally: GroupTally, nickname: string | null): PooledGroup {
     const { key, matchup, dicePerPlayer, seats, decided, rolls } = tally;
     const exact = this.exactFor(key, matchup, dicePerPlayer);
-    const { pValue, method } = binomialPValue(seats[0].wins, rolls, exact.seatWins[0]);
+    const testKey = `${tally.groupId} ${key}`;
+    let tested = this.tests.get(testKey);
+    if (!tested || tested.wins !== seats[0].wins || tested.rolls !== rolls) {
+      tested = { wins: seats[0].wins, rolls, ...binomialPValue(seats[0].wins, rolls, exact.seatWins[0]) };
+      this.tests.set(testKey, tested);
+    }
+    const { pValue, method } = tested;
     return {
       groupId: tally.groupId,
       groupNickname: nickname,
