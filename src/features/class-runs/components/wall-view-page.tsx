@@ -2,13 +2,14 @@ import { useState } from "react";
 import { Link } from "react-router-dom";
 import type { PooledMatchup } from "@shared/class-results/pooled-results";
 import { runPhaseHints, type BoardSnapshot } from "@shared/schemas/class-runs";
+import { treeDiagram } from "@shared/probability/index";
+import { TreeDiagramFigure } from "@/components/tree-diagram";
 import { ApiRequestError } from "@/lib/api-client";
 import { useRunBoard } from "../api/get-run-board";
 import { useLiveBoard } from "../hooks/use-live-board";
 import { ConvergenceChart } from "./convergence-chart";
 import { JoinPanel, spacedCode } from "./join-panel";
 import { decimal } from "./pooled-matchups";
-import { TreeDiagramView } from "./tree-diagram-view";
 import { VotesVersusTruth } from "./votes-versus-truth";
 
 /** One matchup as a big line: the class's figure beside the exact one. */
@@ -53,7 +54,12 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
             </button>
           )}
         </div>
-        <TreeDiagramView dice={run.dice} matchup={matchup} dicePerPlayer={proved?.dicePerPlayer ?? current.tally.dicePerPlayer} />
+        <TreeDiagramFigure
+          tree={treeDiagram(run.dice[matchup[0]].faces, run.dice[matchup[1]].faces, { dicePerPlayer: proved?.dicePerPlayer ?? current.tally.dicePerPlayer })}
+          first={run.dice[matchup[0]].name}
+          second={run.dice[matchup[1]].name}
+          look="projector"
+        />
       </div>
     );
   } else if (run.phase === "Pool" || run.phase === "Reflect" || run.status === "closed") {

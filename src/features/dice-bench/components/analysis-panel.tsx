@@ -11,7 +11,7 @@ import { MatchupMatrix } from "./matchup-matrix";
 import { PickAdvisor } from "./pick-advisor";
 import { SeriesPlanner } from "./series-planner";
 import { SetSummary } from "./set-summary";
-import { TreeDiagramFigure } from "./tree-diagram-figure";
+import { TreeDiagramFigure } from "@/components/tree-diagram";
 import { TwoWayTableFigure } from "./two-way-table-figure";
 
 type AnalysisTab = "matchups" | "tree" | "pick" | "series";

@@ -1,7 +1,7 @@
 import type { TwoWayTable } from "@shared/probability/index";
 import { fractionToString } from "@shared/probability/index";
 import { modeLabel, probabilityText } from "@/lib/probability-text";
-import { outcomeMarks } from "./tree-diagram-figure";
+import { outcomeMarks } from "@/components/tree-diagram";
 
 /** Largest table drawn, in cells. */
 const CELLS_MAX = 900;

@@ -1,21 +1,6 @@
 import { useMemo, useState } from "react";
 import { Link, useNavigate } from "react-router-dom";
-import {
-  columnFilteringFeature,
-  createColumnHelper,
-  createFilteredRowModel,
-  createSortedRowModel,
-  filterFn_equals,
-  filterFn_includesString,
-  globalFilteringFeature,
-  rowSortingFeature,
-  sortFn_alphanumeric,
-  sortFn_basic,
-  tableFeatures,
-  useTable,
-  type ColumnFiltersState,
-  type SortingState,
-} from "@tanstack/react-table";
+import { createColumnHelper, useTable, type ColumnFiltersState, type SortingState } from "@tanstack/react-table";
 import { lessonStatusLabels, type LessonStatus, type LessonSummary } from "@shared/schemas/lessons";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -30,16 +15,9 @@ import { useDuplicateLesson } from "../api/duplicate-lesson";
 import { useLessons } from "../api/list-lessons";
 import { StatusBadge } from "./status-badge";
 import { SortHeading } from "@/components/ui/sort-heading";
+import { searchableTableFeatures } from "@/lib/table-features";
 
-const features = tableFeatures({
-  rowSortingFeature,
-  columnFilteringFeature,
-  globalFilteringFeature,
-  sortedRowModel: createSortedRowModel(),
-  filteredRowModel: createFilteredRowModel(),
-  sortFns: { alphanumeric: sortFn_alphanumeric, basic: sortFn_basic },
-  filterFns: { includesString: filterFn_includesString, equals: filterFn_equals },
-});
+const features = searchableTableFeatures;
 
 const statusOrder: Record<LessonStatus, number> = { draft: 0, ready: 1, taught: 2 };
 const helper = createColumnHelper<typeof features, LessonSummary>();

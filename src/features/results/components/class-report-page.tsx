@@ -8,7 +8,7 @@ import { useRunResults } from "../api/get-run-results";
 import { ConvergenceChart } from "./convergence-chart";
 import { dayText, playersText, plural, tieRulePhrase, tieRuleText } from "./figures";
 import { PooledTable } from "./pooled-table";
-import { ReportTreeDiagram } from "./report-tree-diagram";
+import { TreeDiagramFigure } from "@/components/tree-diagram";
 
 /** The printable class report: lesson, set, tree diagram of the main matchup, pooled results beside exact values, convergence, findings. */
 export function ClassReportPage({ runId, includeSimulated = true }: { runId: string; includeSimulated?: boolean }) {
@@ -80,7 +80,7 @@ export function ClassReportPage({ runId, includeSimulated = true }: { runId: str
           <h2 id="report-tree" className="mb-2 text-xl">
             Prove it: the tree diagram of {main.label}
           </h2>
-          <ReportTreeDiagram tree={tree} first={run.dice[firstIndex].name} second={run.dice[secondIndex].name} />
+          <TreeDiagramFigure tree={tree} first={run.dice[firstIndex].name} second={run.dice[secondIndex].name} look="print" />
         </section>
       )}
 

@@ -1,21 +1,6 @@
 import { useMemo, useState } from "react";
 import { Link, useLocation } from "react-router-dom";
-import {
-  columnFilteringFeature,
-  createColumnHelper,
-  createFilteredRowModel,
-  createSortedRowModel,
-  filterFn_equals,
-  filterFn_includesString,
-  globalFilteringFeature,
-  rowSortingFeature,
-  sortFn_alphanumeric,
-  sortFn_basic,
-  tableFeatures,
-  useTable,
-  type ColumnFiltersState,
-  type SortingState,
-} from "@tanstack/react-table";
+import { createColumnHelper, useTable, type ColumnFiltersState, type SortingState } from "@tanstack/react-table";
 import type { ResultsRunSummary, ResultsScope } from "@shared/schemas/results";
 import { Alert } from "@/components/ui/alert";
 import { ChoiceGroup } from "@/components/ui/choice-group";
@@ -28,16 +13,9 @@ import { useResultsRuns } from "../api/list-results-runs";
 import { dayText, playersText, plural } from "./figures";
 import { PupilDataNote } from "./pupil-data-note";
 import { SortHeading } from "@/components/ui/sort-heading";
+import { searchableTableFeatures } from "@/lib/table-features";
 
-const features = tableFeatures({
-  rowSortingFeature,
-  columnFilteringFeature,
-  globalFilteringFeature,
-  sortedRowModel: createSortedRowModel(),
-  filteredRowModel: createFilteredRowModel(),
-  sortFns: { alphanumeric: sortFn_alphanumeric, basic: sortFn_basic },
-  filterFns: { includesString: filterFn_includesString, equals: filterFn_equals },
-});
+const features = searchableTableFeatures;
 
 const helper = createColumnHelper<typeof features, ResultsRunSummary>();
 

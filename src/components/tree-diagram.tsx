@@ -1,0 +1,199 @@
+import Fraction from "fraction.js";
+import { useId } from "react";
+import { fractionToString, type Outcome, type TreeDiagram } from "@shared/probability/index";
+import { probabilityText } from "@/lib/probability-text";
+
+/** Where the tree is shown: the Dice bench on screen, the Wall view on a projector (light on dark), or a printed page. */
+export type TreeLook = "screen" | "projector" | "print";
+
+export const outcomeMarks: Record<Outcome, { symbol: string; word: string }> = {
+  win: { symbol: "★", word: "win" },
+  tie: { symbol: "=", word: "tie" },
+  loss: { symbol: "✗", word: "loss" },
+};
+
+type Look = {
+  /** Above this many leaves only the first stage is drawn, each branch with the first die's chance of winning from it. */
+  leavesMax: number;
+  /** Drawing units: one leaf row, the gap between branches, the columns, the width, and a font scale. */
+  row: number;
+  gap: number;
+  x: { root: number; branch: number; leaf: number; product: number };
+  width: number;
+  font: number;
+  colours: { ink: string; soft: string; halo: string; valueFill: string; valueStroke: string; leafFill: string; winFill: string; winInk: string };
+  classes: { frame: string; svg: string; note: string; totals: string };
+};
+
+const looks: Record<TreeLook, Look> = {
+  screen: {
+    leavesMax: 144,
+    row: 24,
+    gap: 10,
+    x: { root: 12, branch: 106, leaf: 212, product: 240 },
+    width: 360,
+    font: 1,
+    colours: { ink: "#12263a", soft: "#3b4f63", halo: "#ffffff", valueFill: "#d5f0ec", valueStroke: "#0f6b63", leafFill: "#ffffff", winFill: "#12263a", winInk: "#ffffff" },
+    classes: {
+      frame: "relative max-h-[38rem] overflow-y-auto rounded-xl border-2 border-line bg-white p-2",
+      svg: "mx-auto h-auto w-full max-w-[30rem]",
+      note: "px-2 pt-2 text-sm text-ink-soft",
+      totals: "px-2 pb-1 text-base",
+    },
+  },
+  projector: {
+    leavesMax: 36,
+    row: 32,
+    gap: 12,
+    x: { root: 16, branch: 150, leaf: 300, product: 338 },
+    width: 520,
+    font: 1.35,
+    colours: { ink: "#ffffff", soft: "#9fd8cf", halo: "#12263a", valueFill: "#0f4f4a", valueStroke: "#9fd8cf", leafFill: "#12263a", winFill: "#ffffff", winInk: "#12263a" },
+    classes: { frame: "flex flex-col gap-2", svg: "mx-auto h-auto max-h-[52vh] w-full", note: "text-2xl", totals: "text-3xl" },
+  },
+  print: {
+    leavesMax: 48,
+    row: 20,
+    gap: 6,
+    x: { root: 12, branch: 106, leaf: 212, product: 240 },
+    width: 360,
+    font: 0.9,
+    colours: { ink: "#12263a", soft: "#3b4f63", halo: "#ffffff", valueFill: "#ffffff", valueStroke: "#12263a", leafFill: "#ffffff", winFill: "#12263a", winInk: "#ffffff" },
+    classes: { frame: "break-inside-avoid", svg: "mx-auto h-auto w-full max-w-[34rem]", note: "mt-1 text-sm", totals: "text-sm" },
+  },
+};
+
+const headingChars = 11;
+const shortName = (name: string) => (name.length > headingChars ? `${name.slice(0, headingChars - 1)}…` : name);
+const along = (x1: number, y1: number, x2: number, y2: number, at: number) => ({ x: x1 + (x2 - x1) * at, y: y1 + (y2 - y1) * at });
+
+/** The first die's chance of winning once its branch is taken: the sum of that branch's winning leaves' second-stage chances. */
+function branchWinChance(branch: TreeDiagram["branches"][number]): Fraction {
+  return branch.leaves.filter((leaf) => leaf.outcome === "win").reduce((sum, leaf) => sum.add(leaf.branchProbability), new Fraction(0));
+}
+
+/**
+ * A two-stage tree diagram from the engine's treeDiagram: the first die's values (sums with two dice each) with their
+ * branch probabilities, then the second's, each leaf with its product probability and outcome (★ win, = tie, ✗ loss,
+ * winning leaves filled), and the totals per outcome. Too many leaves for the look, and only the first stage is drawn.
+ */
+export function TreeDiagramFigure({ tree, first, second, look = "screen" }: { tree: TreeDiagram; first: string; second: string; look?: TreeLook }) {
+  const titleId = useId();
+  const style = looks[look];
+  const { row, gap, x, colours, font } = style;
+  const top = 34 * font;
+  const leafCount = tree.branches.reduce((sum, branch) => sum + branch.leaves.length, 0);
+  const full = leafCount <= style.leavesMax;
+
+  let cursor = top;
+  const groups = tree.branches.map((branch) => {
+    const leaves = (full ? branch.leaves : []).map((leaf) => {
+      const y = cursor + row / 2;
+      cursor += row;
+      return { leaf, y };
+    });
+    if (!full) cursor += row;
+    cursor += gap;
+    const y = full ? (leaves[0].y + leaves[leaves.length - 1].y) / 2 : cursor - gap - row / 2;
+    return { branch, leaves, y };
+  });
+  const height = cursor;
+  const rootY = (groups[0].y + groups[groups.length - 1].y) / 2;
+  const size = (units: number) => units * font;
+  const haloText = { paintOrder: "stroke" as const, stroke: colours.halo, strokeWidth: 3 };
+
+  return (
+    <figure className={style.classes.frame} tabIndex={look === "screen" ? 0 : undefined} role={look === "screen" ? "region" : undefined} aria-labelledby={look === "screen" ? titleId : undefined}>
+      <svg viewBox={`0 0 ${style.width} ${height}`} className={style.classes.svg} role="img" aria-labelledby={titleId} data-testid="tree-diagram">
+        <title id={titleId}>
+          Tree diagram of {first} against {second}: {first} wins {fractionToString(tree.totals.win)}, ties {fractionToString(tree.totals.tie)}, loses{" "}
+          {fractionToString(tree.totals.loss)}.
+        </title>
+        <text x={x.branch} y={size(18)} textAnchor="middle" fontSize={size(12)} fontWeight="700" fill={colours.soft}>
+          {shortName(first)}
+        </text>
+        <text x={full ? x.leaf : x.product} y={size(18)} textAnchor={full ? "middle" : "start"} fontSize={size(12)} fontWeight="700" fill={colours.soft}>
+          {full ? shortName(second) : `P(${shortName(first)} wins | value)`}
+        </text>
+        {full && (
+          <text x={x.product + 8} y={size(18)} fontSize={size(12)} fontWeight="700" fill={colours.soft}>
+            P(path)
+          </text>
+        )}
+        <circle cx={x.root} cy={rootY} r={size(5)} fill={colours.ink} />
+        {groups.map(({ branch, leaves, y }) => {
+          const label = along(x.root, rootY, x.branch - size(14), y, 0.62);
+          return (
+            <g key={branch.value}>
+              <line x1={x.root} y1={rootY} x2={x.branch - size(14)} y2={y} stroke={colours.soft} strokeWidth="1.5" />
+              <text x={label.x} y={label.y - 4} textAnchor="middle" fontSize={size(11)} fill={colours.ink} {...haloText}>
+                {fractionToString(branch.probability)}
+              </text>
+              <rect x={x.branch - size(14)} y={y - size(11)} width={size(28)} height={size(22)} rx="5" fill={colours.valueFill} stroke={colours.valueStroke} strokeWidth="1.5" />
+              <text x={x.branch} y={y + size(5)} textAnchor="middle" fontSize={size(13)} fontWeight="700" fill={colours.ink}>
+                {branch.value}
+              </text>
+              {!full && (
+                <text x={x.product} y={y + size(4.5)} fontSize={size(12)} fill={colours.ink}>
+                  {fractionToString(branchWinChance(branch))}
+                </text>
+              )}
+              {leaves.map(({ leaf, y: leafY }) => {
+                const leafLabel = along(x.branch + size(14), y, x.leaf - size(13), leafY, 0.72);
+                const mark = outcomeMarks[leaf.outcome];
+                const won = leaf.outcome === "win";
+                return (
+                  <g key={leaf.value} data-outcome={leaf.outcome}>
+                    <title>
+                      {first} {branch.value}, {second} {leaf.value}: {fractionToString(branch.probability)} × {fractionToString(leaf.branchProbability)} ={" "}
+                      {fractionToString(leaf.probability)}, {mark.word} for {first}
+                    </title>
+                    <line x1={x.branch + size(14)} y1={y} x2={x.leaf - size(13)} y2={leafY} stroke={colours.soft} strokeWidth="1" />
+                    <text x={leafLabel.x} y={leafLabel.y - 3} textAnchor="middle" fontSize={size(10)} fill={colours.soft} {...haloText}>
+                      {fractionToString(leaf.branchProbability)}
+                    </text>
+                    <rect
+                      x={x.leaf - size(13)}
+                      y={leafY - size(10)}
+                      width={size(26)}
+                      height={size(20)}
+                      rx="4"
+                      fill={won ? colours.winFill : colours.leafFill}
+                      stroke={colours.ink}
+                      strokeWidth="1.25"
+                    />
+                    <text x={x.leaf} y={leafY + size(4.5)} textAnchor="middle" fontSize={size(12)} fontWeight="700" fill={won ? colours.winInk : colours.ink}>
+                      {leaf.value}
+                    </text>
+                    <text x={x.product} y={leafY + size(4.5)} fontSize={size(12)} fill={colours.ink} fontWeight={won ? 700 : 400}>
+                      {fractionToString(leaf.probability)}
+                      <tspan dx="8">
+                        {mark.symbol} {mark.word}
+                      </tspan>
+                    </text>
+                  </g>
+                );
+              })}
+            </g>
+          );
+        })}
+      </svg>
+      <figcaption className={style.classes.note}>
+        {full
+          ? `Each path multiplies its two branches${look === "screen" ? " (hover or focus a leaf for the sum)" : ""}. ★ win, = tie and ✗ loss are for ${first}.`
+          : `With ${leafCount} paths only the first stage is drawn: beside each value of ${first}, its chance of winning from there.`}
+      </figcaption>
+      <ul className={style.classes.totals} data-testid="tree-totals">
+        <li>
+          {full ? "Add the ★ leaves: " : ""}P({first} wins) = <strong>{probabilityText(tree.totals.win)}</strong>
+        </li>
+        <li>
+          {full ? "Add the = leaves: " : ""}P(tie) = {probabilityText(tree.totals.tie)}
+        </li>
+        <li>
+          {full ? "Add the ✗ leaves: " : ""}P({second} wins) = {probabilityText(tree.totals.loss)}
+        </li>
+      </ul>
+    </figure>
+  );
+}
