@@ -305,14 +305,24 @@ function firstSeatCode(totals: readonly number[]): number {
   return first | (atTop > 1 ? SHARED_TOP : 0);
 }
 
-/** One matchup's running figures: seat counts, and per roll its time, arrival order and first-seat code for the convergence series. */
-interface MatchupTally {
+/** Running seat counts of one matchup (for the class, or for one group). */
+interface SeatTally {
   key: string;
   matchup: number[];
   dicePerPlayer: number;
   seats: SeatCounts[];
   decided: number;
   rolls: number;
+}
+
+/** Counts one roll (totals in the tally's seat order) into a tally. */
+function countRoll(tally: SeatTally, totals: number[]) {
+  if (countInto(tally.seats, totals)) tally.decided += 1;
+  tally.rolls += 1;
+}
+
+/** One matchup's running figures: seat counts, and per roll its time, arrival order and first-seat code for the convergence series. */
+interface MatchupTally extends SeatTally {
   times: number[];
   arrivals: number[];
   codes: number[];
@@ -321,15 +331,9 @@ interface MatchupTally {
 }
 
 /** One group's running figures for one matchup. */
-interface GroupTally {
+interface GroupTally extends SeatTally {
   groupId: string;
   nickname: string | null;
-  key: string;
-  matchup: number[];
-  dicePerPlayer: number;
-  seats: SeatCounts[];
-  decided: number;
-  rolls: number;
   sources: Set<RollSource>;
 }
 
@@ -395,12 +399,7 @@ export class RollPool {
     let ofMatchup = this.matchups.get(known.key);
     if (!ofMatchup) {
       ofMatchup = {
-        key: known.key,
-        matchup: known.matchup,
-        dicePerPlayer: roll.dicePerPlayer,
-        seats: emptySeats(known.matchup, this.names),
-        decided: 0,
-        rolls: 0,
+        ...this.emptyTally(known, roll.dicePerPlayer),
         times: [],
         arrivals: [],
         codes: [],
@@ -408,8 +407,7 @@ export class RollPool {
       };
       this.matchups.set(known.key, ofMatchup);
     }
-    if (countInto(ofMatchup.seats, totals)) ofMatchup.decided += 1;
-    ofMatchup.rolls += 1;
+    countRoll(ofMatchup, totals);
     if (this.series) {
       const time = Date.parse(roll.recordedAt);
       if (ofMatchup.times.length > 0 && time < ofMatchup.times[ofMatchup.times.length - 1]) ofMatchup.inOrder = false;
@@ -421,21 +419,10 @@ export class RollPool {
     const groupKey = `${roll.groupId} ${known.key}`;
     let ofGroup = this.groups.get(groupKey);
     if (!ofGroup) {
-      ofGroup = {
-        groupId: roll.groupId,
-        nickname: null,
-        key: known.key,
-        matchup: known.matchup,
-        dicePerPlayer: roll.dicePerPlayer,
-        seats: emptySeats(known.matchup, this.names),
-        decided: 0,
-        rolls: 0,
-        sources: new Set(),
-      };
+      ofGroup = { ...this.emptyTally(known, roll.dicePerPlayer), groupId: roll.groupId, nickname: null, sources: new Set() };
       this.groups.set(groupKey, ofGroup);
     }
-    if (countInto(ofGroup.seats, totals)) ofGroup.decided += 1;
-    ofGroup.rolls += 1;
+    countRoll(ofGroup, totals);
     ofGroup.sources.add(roll.source);
     if (ofGroup.nickname === null && roll.groupNickname) ofGroup.nickname = roll.groupNickname;
 
@@ -462,6 +449,10 @@ export class RollPool {
         implausibleGroups: new Set(groups.filter((group) => group.test.implausible).map((group) => group.groupId)).size,
       },
     };
+  }
+
+  private emptyTally(known: { key: string; matchup: number[] }, dicePerPlayer: number): SeatTally {
+    return { key: known.key, matchup: known.matchup, dicePerPlayer, seats: emptySeats(known.matchup, this.names), decided: 0, rolls: 0 };
   }
 
   private exactFor(key: string, matchup: number[], dicePerPlayer: number): ExactFractions {

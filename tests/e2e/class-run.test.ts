@@ -1,4 +1,4 @@
-import { and, asc, count, countDistinct, eq, isNull } from "drizzle-orm";
+import { and, count, countDistinct, eq, isNull } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/node-postgres";
 import jsQR from "jsqr";
 import pg from "pg";
@@ -7,9 +7,10 @@ import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { emptyLessonInput } from "@shared/schemas/lessons";
 import * as schema from "../../server/db/schema/index";
-import { classRun, roll, user } from "../../server/db/schema/index";
+import { roll } from "../../server/db/schema/index";
 import { demoPassword, demoRunLesson, demoTeachers } from "../../seed/demo-scenario";
 import { openBrowser, screenshot, signInThroughUi, viewports } from "../helpers/browser";
+import { findSeededDemoRun } from "../helpers/results-fixtures";
 
 const appUrl = inject("appUrl");
 const teacher = demoTeachers.find((t) => t.email === demoRunLesson.ownerEmail)!;
@@ -20,18 +21,13 @@ const db = drizzle(pool, { schema, casing: "snake_case" });
  * straight from PostgreSQL. Other browser tests may add rolls to it (the Results walk-through imports three) or make
  * newer runs of the same lesson, so the board is checked against the database. */
 async function seededDemoRun() {
-  const [run] = await db
-    .select({ id: classRun.id })
-    .from(classRun)
-    .innerJoin(user, eq(user.id, classRun.ownerId))
-    .where(and(eq(user.email, demoRunLesson.ownerEmail), eq(classRun.title, demoRunLesson.title), eq(classRun.status, "closed")))
-    .orderBy(asc(classRun.createdAt))
-    .limit(1);
+  const id = await findSeededDemoRun(db, demoRunLesson);
+  if (!id) throw new Error("the seed's closed demo run is missing");
   const [totals] = await db
     .select({ rolls: count(), groups: countDistinct(roll.groupId) })
     .from(roll)
-    .where(and(eq(roll.runId, run.id), isNull(roll.undoneAt)));
-  return { id: run.id, ...totals };
+    .where(and(eq(roll.runId, id), isNull(roll.undoneAt)));
+  return { id, ...totals };
 }
 
 // Invented dice for the browser test.

@@ -1,5 +1,5 @@
 import { readFile } from "node:fs/promises";
-import { and, count, desc, eq, isNull } from "drizzle-orm";
+import { and, count, eq, isNull } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/node-postgres";
 import ExcelJS from "exceljs";
 import Papa from "papaparse";
@@ -9,10 +9,10 @@ import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { paperImportColumns } from "@shared/schemas/paper-import";
 import { rollsExportColumns } from "@shared/results/export-columns";
 import * as schema from "../../server/db/schema/index";
-import { classRun, roll, runGroup, user } from "../../server/db/schema/index";
+import { classRun, roll, runGroup } from "../../server/db/schema/index";
 import { demoPassword, demoRunLesson, demoTeachers } from "../../seed/demo-scenario";
 import { openBrowser, screenshot, signInThroughUi, viewports } from "../helpers/browser";
-import { insertFixtureRun } from "../helpers/results-fixtures";
+import { findSeededDemoRun, insertFixtureRun } from "../helpers/results-fixtures";
 
 const appUrl = inject("appUrl");
 const tomasz = demoTeachers.find((t) => t.email === demoRunLesson.ownerEmail)!;
@@ -47,14 +47,8 @@ describe("Results in chromium", () => {
   beforeAll(async () => {
     // The class-runs seed makes the finished demo run once the demo dice sets exist; without it, a closed run of the
     // demo lesson's title is written here so the walk-through still has a finished run to open.
-    const [demo] = await db
-      .select({ id: classRun.id })
-      .from(classRun)
-      .innerJoin(user, eq(user.id, classRun.ownerId))
-      .where(and(eq(user.email, demoRunLesson.ownerEmail), eq(classRun.title, demoRunLesson.title), eq(classRun.status, "closed")))
-      .orderBy(desc(classRun.createdAt))
-      .limit(1);
-    if (demo) runId = demo.id;
+    const demo = await findSeededDemoRun(db, demoRunLesson);
+    if (demo) runId = demo;
     else {
       console.log("Results e2e: no seeded demo run found, so the test writes its own closed run of the demo lesson.");
       runId = (

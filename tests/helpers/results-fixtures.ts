@@ -1,5 +1,5 @@
 // Closed class runs with rolls, written straight into a database, for the Results tests (integration and browser).
-import { eq } from "drizzle-orm";
+import { and, asc, eq } from "drizzle-orm";
 import type { NodePgDatabase } from "drizzle-orm/node-postgres";
 import { mulberry32, randomBelow } from "@shared/probability/index";
 import type { SetDie } from "@shared/schemas/dice-sets";
@@ -7,6 +7,21 @@ import { classRun, guessVote, roll, runGroup, user } from "../../server/db/schem
 import type * as schema from "../../server/db/schema/index";
 
 type AnyDatabase = NodePgDatabase<typeof schema>;
+
+/**
+ * The id of the seeded closed run of a demo lesson (the oldest closed run of that title by its owner), or null. Other
+ * browser tests may make newer runs of the same lesson, such as a paper run.
+ */
+export async function findSeededDemoRun(db: AnyDatabase, lesson: { title: string; ownerEmail: string }): Promise<string | null> {
+  const [run] = await db
+    .select({ id: classRun.id })
+    .from(classRun)
+    .innerJoin(user, eq(user.id, classRun.ownerId))
+    .where(and(eq(user.email, lesson.ownerEmail), eq(classRun.title, lesson.title), eq(classRun.status, "closed")))
+    .orderBy(asc(classRun.createdAt))
+    .limit(1);
+  return run?.id ?? null;
+}
 
 /**
  * Our own three-dice cycle (sea birds; faces found by a seeded search over splits of 1–18 into three dice):
