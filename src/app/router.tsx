@@ -1,66 +1,68 @@
+import type { ComponentType } from "react";
 import { createBrowserRouter } from "react-router-dom";
 import { AppLayout } from "./routes/app-layout";
-import { ClassRunsRoute } from "./routes/class-runs";
-import { RollPadRoute } from "./routes/roll-pad";
-import { WallViewRoute } from "./routes/wall-view";
-import { DepartmentShelfRoute } from "./routes/department-shelf";
-import { DevMailRoute } from "./routes/dev-mail";
-import { ForgotPasswordRoute } from "./routes/forgot-password";
-import { JoinRoute } from "./routes/join";
-import { ResetPasswordRoute } from "./routes/reset-password";
-import { DiceBenchListRoute } from "./routes/dice-bench-list";
-import { DiceBenchNewRoute } from "./routes/dice-bench-new";
-import { DiceBenchPrintRoute } from "./routes/dice-bench-print";
-import { DiceBenchSetRoute } from "./routes/dice-bench-set";
-import { HomeRoute } from "./routes/home";
 import { LandingRoute } from "./routes/landing";
-import { LessonEditRoute } from "./routes/lesson-edit";
-import { LessonNewRoute } from "./routes/lesson-new";
-import { LessonPrintRoute } from "./routes/lesson-print";
-import { LessonsListRoute } from "./routes/lessons-list";
 import { NotFoundRoute } from "./routes/not-found";
-import { SignInRoute } from "./routes/sign-in";
-import { SetFinderRoute } from "./routes/set-finder";
-import { SignUpRoute } from "./routes/sign-up";
-import { ResultsRoutes } from "./routes/results";
+
+/**
+ * A page loaded when first visited (its own chunk), so a pupil's phone opening the Roll pad downloads the pad and not
+ * the Dice bench, the charts or the tables.
+ */
+function page<Module>(load: () => Promise<Module>, name: keyof Module) {
+  return async () => ({ Component: (await load())[name] as ComponentType });
+}
+
+/** Shown while the first page's code loads. */
+function PageLoading() {
+  return (
+    <p className="p-6 text-lg" role="status">
+      Loading…
+    </p>
+  );
+}
 
 export const router = createBrowserRouter([
-  { path: "/", element: <LandingRoute /> },
-  { path: "/sign-in", element: <SignInRoute /> },
-  { path: "/sign-up", element: <SignUpRoute /> },
-  { path: "/join", element: <JoinRoute /> },
-  // Roll pad (pupils' phones, no account) and the Wall view (full screen, outside the app frame)
-  { path: "/pad", element: <RollPadRoute /> },
-  { path: "/pad/:code", element: <RollPadRoute /> },
-  { path: "/app/runs/:id/wall", element: <WallViewRoute /> },
-  { path: "/forgot-password", element: <ForgotPasswordRoute /> },
-  { path: "/reset-password", element: <ResetPasswordRoute /> },
-  { path: "/dev/mail", element: <DevMailRoute /> },
   {
-    path: "/app",
-    element: <AppLayout />,
+    HydrateFallback: PageLoading,
     children: [
-      { index: true, element: <HomeRoute /> },
-      // Dice bench
-      { path: "bench", element: <DiceBenchListRoute /> },
-      { path: "bench/new", element: <DiceBenchNewRoute /> },
-      { path: "bench/:id", element: <DiceBenchSetRoute /> },
-      { path: "bench/:id/print", element: <DiceBenchPrintRoute /> },
-      // Set finder
-      { path: "finder", element: <SetFinderRoute /> },
-      // Lessons
-      { path: "lessons", element: <LessonsListRoute /> },
-      { path: "lessons/new", element: <LessonNewRoute /> },
-      { path: "lessons/:id", element: <LessonEditRoute /> },
-      { path: "lessons/:id/print", element: <LessonPrintRoute /> },
-      // Department shelf
-      { path: "shelf/*", element: <DepartmentShelfRoute /> },
-      // Class runs
-      { path: "runs/*", element: <ClassRunsRoute /> },
-      // Results
-      { path: "results/*", element: <ResultsRoutes /> },
-      { path: "*", element: <NotFoundRoute inShell /> },
+      { path: "/", element: <LandingRoute /> },
+      { path: "/sign-in", lazy: page(() => import("./routes/sign-in"), "SignInRoute") },
+      { path: "/sign-up", lazy: page(() => import("./routes/sign-up"), "SignUpRoute") },
+      { path: "/join", lazy: page(() => import("./routes/join"), "JoinRoute") },
+      // Roll pad (pupils' phones, no account) and the Wall view (full screen, outside the app frame)
+      { path: "/pad", lazy: page(() => import("./routes/roll-pad"), "RollPadRoute") },
+      { path: "/pad/:code", lazy: page(() => import("./routes/roll-pad"), "RollPadRoute") },
+      { path: "/app/runs/:id/wall", lazy: page(() => import("./routes/wall-view"), "WallViewRoute") },
+      { path: "/forgot-password", lazy: page(() => import("./routes/forgot-password"), "ForgotPasswordRoute") },
+      { path: "/reset-password", lazy: page(() => import("./routes/reset-password"), "ResetPasswordRoute") },
+      { path: "/dev/mail", lazy: page(() => import("./routes/dev-mail"), "DevMailRoute") },
+      {
+        path: "/app",
+        element: <AppLayout />,
+        children: [
+          { index: true, lazy: page(() => import("./routes/home"), "HomeRoute") },
+          // Dice bench
+          { path: "bench", lazy: page(() => import("./routes/dice-bench-list"), "DiceBenchListRoute") },
+          { path: "bench/new", lazy: page(() => import("./routes/dice-bench-new"), "DiceBenchNewRoute") },
+          { path: "bench/:id", lazy: page(() => import("./routes/dice-bench-set"), "DiceBenchSetRoute") },
+          { path: "bench/:id/print", lazy: page(() => import("./routes/dice-bench-print"), "DiceBenchPrintRoute") },
+          // Set finder
+          { path: "finder", lazy: page(() => import("./routes/set-finder"), "SetFinderRoute") },
+          // Lessons
+          { path: "lessons", lazy: page(() => import("./routes/lessons-list"), "LessonsListRoute") },
+          { path: "lessons/new", lazy: page(() => import("./routes/lesson-new"), "LessonNewRoute") },
+          { path: "lessons/:id", lazy: page(() => import("./routes/lesson-edit"), "LessonEditRoute") },
+          { path: "lessons/:id/print", lazy: page(() => import("./routes/lesson-print"), "LessonPrintRoute") },
+          // Department shelf
+          { path: "shelf/*", lazy: page(() => import("./routes/department-shelf"), "DepartmentShelfRoute") },
+          // Class runs
+          { path: "runs/*", lazy: page(() => import("./routes/class-runs"), "ClassRunsRoute") },
+          // Results
+          { path: "results/*", lazy: page(() => import("./routes/results"), "ResultsRoutes") },
+          { path: "*", element: <NotFoundRoute inShell /> },
+        ],
+      },
+      { path: "*", element: <NotFoundRoute /> },
     ],
   },
-  { path: "*", element: <NotFoundRoute /> },
 ]);
