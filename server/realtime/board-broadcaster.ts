@@ -1,3 +1,4 @@
+import { performance } from "node:perf_hooks";
 import type { Server } from "socket.io";
 import { EVENTS } from "@shared/events";
 import type { PoolRow } from "../db/queries/class-runs";
@@ -31,6 +32,18 @@ export class BoardBroadcaster {
     private readonly intervalMs: number,
   ) {}
 
+  private loopSample = { at: 0, busy: false, utilization: performance.eventLoopUtilization() };
+
+  /** Whether the event loop was busy more than 90% of the time over the last second or so. */
+  private loopBusy(): boolean {
+    const now = Date.now();
+    if (now - this.loopSample.at >= 1_000) {
+      const utilization = performance.eventLoopUtilization();
+      this.loopSample = { at: now, busy: performance.eventLoopUtilization(utilization, this.loopSample.utilization).utilization > 0.9, utilization };
+    }
+    return this.loopSample.busy;
+  }
+
   private watched(runId: string): boolean {
     if (this.io.sockets.adapter.rooms.get(boardRoom(runId))?.size) return true;
     this.pending.delete(runId);
@@ -61,8 +74,9 @@ export class BoardBroadcaster {
       return;
     }
     if (this.timers.has(runId)) return;
-    // A run whose snapshot takes long to build (many thousands of rolls on a busy server) is refreshed less often.
-    const interval = Math.max(this.intervalMs, 8 * (this.lastCost.get(runId) ?? 0));
+    // A run whose snapshot takes long to build (many thousands of rolls on a busy server) is refreshed less often, and
+    // so is every board while the event loop is nearly always busy: pupils' acknowledgements come first.
+    const interval = Math.max(this.intervalMs * (this.loopBusy() ? 2 : 1), 8 * (this.lastCost.get(runId) ?? 0));
     const wait = Math.max(0, (this.lastSent.get(runId) ?? 0) + interval - Date.now());
     this.timers.set(runId, setTimeout(() => void this.send(runId), wait));
   }
