@@ -14,7 +14,7 @@ import { useDeleteLesson } from "../api/delete-lesson";
 import { useDuplicateLesson } from "../api/duplicate-lesson";
 import { useLessons } from "../api/list-lessons";
 import { StatusBadge } from "./status-badge";
-import { SortHeading } from "@/components/ui/sort-heading";
+import { SortableTable } from "@/components/ui/sortable-table";
 import { searchableTableFeatures } from "@/lib/table-features";
 
 const features = searchableTableFeatures;
@@ -158,44 +158,12 @@ export function LessonsTable() {
           <p className="mb-2 text-ink-soft" role="status" aria-live="polite">
             Showing {rows.length} of {data.length} {data.length === 1 ? "lesson" : "lessons"}.
           </p>
-          <div className="overflow-x-auto rounded-2xl border-2 border-line bg-shell">
-            <table className="w-full border-collapse text-left">
-              <caption className="sr-only">Your lessons; choose a column heading to sort by it.</caption>
-              <thead>
-                {table.getHeaderGroups().map((group) => (
-                  <tr key={group.id} className="border-b-2 border-line">
-                    {group.headers.map((header) => (
-                      <SortHeading
-                        key={header.id}
-                        sorted={header.column.getIsSorted()}
-                        canSort={header.column.getCanSort() && header.column.id !== "actions"}
-                        onToggle={header.column.getToggleSortingHandler()}
-                        className={cellVisibility(header.column.id)}
-                      >
-                        <table.FlexRender header={header} />
-                      </SortHeading>
-                    ))}
-                  </tr>
-                ))}
-              </thead>
-              <tbody>
-                {rows.map((row) => (
-                  <tr key={row.id} className="border-b border-line last:border-b-0 even:bg-sand/40">
-                    {row.getAllCells().map((cell) => (
-                      <td key={cell.id} className={`px-3 py-2 align-top ${cellVisibility(cell.column.id)}`}>
-                        <table.FlexRender cell={cell} />
-                      </td>
-                    ))}
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-            {rows.length === 0 && (
-              <p className="p-4 text-ink-soft">
-                {data.length === 0 ? "You have no lessons yet. Start a new one." : "No lesson matches the search and filters."}
-              </p>
-            )}
-          </div>
+          <SortableTable
+            table={table}
+            caption="Your lessons; choose a column heading to sort by it."
+            columnClass={cellVisibility}
+            empty={data.length === 0 ? "You have no lessons yet. Start a new one." : "No lesson matches the search and filters."}
+          />
         </>
       )}
     </>

@@ -12,7 +12,7 @@ import { modeLabel } from "@/lib/probability-text";
 import { useResultsRuns } from "../api/list-results-runs";
 import { dayText, playersText, plural } from "./figures";
 import { PupilDataNote } from "./pupil-data-note";
-import { SortHeading } from "@/components/ui/sort-heading";
+import { SortableTable } from "@/components/ui/sortable-table";
 import { searchableTableFeatures } from "@/lib/table-features";
 
 const features = searchableTableFeatures;
@@ -180,46 +180,16 @@ export function ResultsArchive({ canSeeDepartment }: { canSeeDepartment: boolean
           <p className="mb-2 text-ink-soft" role="status" aria-live="polite">
             Showing {rows.length} of {plural(data.length, "closed run")}.
           </p>
-          <div className="overflow-x-auto rounded-2xl border-2 border-line bg-shell">
-            <table className="w-full border-collapse text-left">
-              <caption className="sr-only">Closed class runs; choose a column heading to sort by it.</caption>
-              <thead>
-                {table.getHeaderGroups().map((group) => (
-                  <tr key={group.id} className="border-b-2 border-line">
-                    {group.headers.map((header) => (
-                      <SortHeading
-                        key={header.id}
-                        sorted={header.column.getIsSorted()}
-                        canSort={header.column.id !== "actions"}
-                        onToggle={header.column.getToggleSortingHandler()}
-                        className={hidden(header.column.id)}
-                      >
-                        <table.FlexRender header={header} />
-                      </SortHeading>
-                    ))}
-                  </tr>
-                ))}
-              </thead>
-              <tbody>
-                {rows.map((row) => (
-                  <tr key={row.id} className="border-b border-line last:border-b-0 even:bg-sand/40">
-                    {row.getAllCells().map((cell) => (
-                      <td key={cell.id} className={`px-3 py-2 align-top ${hidden(cell.column.id)}`}>
-                        <table.FlexRender cell={cell} />
-                      </td>
-                    ))}
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-            {rows.length === 0 && (
-              <p className="p-4 text-ink-soft">
-                {data.length === 0
-                  ? "No closed class runs yet. A run appears here once it is closed on the Run board, or once you bring in paper sheets with Paper import."
-                  : "No run matches the search and filters."}
-              </p>
-            )}
-          </div>
+          <SortableTable
+            table={table}
+            caption="Closed class runs; choose a column heading to sort by it."
+            columnClass={hidden}
+            empty={
+              data.length === 0
+                ? "No closed class runs yet. A run appears here once it is closed on the Run board, or once you bring in paper sheets with Paper import."
+                : "No run matches the search and filters."
+            }
+          />
         </>
       )}
       <div className="mt-8 max-w-3xl">
