@@ -1,8 +1,8 @@
 import { performance } from "node:perf_hooks";
 import type { Server } from "socket.io";
 import { EVENTS } from "@shared/events";
-import type { PoolRow } from "../db/queries/class-runs";
-import { readBoardUpdate, refreshBoardWithRolls, type BoardRollCache } from "../services/class-runs.service";
+import type { NewRoll, PoolRow } from "../db/queries/class-runs";
+import { poolRowFromRoll, readBoardUpdate, refreshBoardWithRolls, type BoardRollCache } from "../services/class-runs.service";
 import { logger } from "../logger";
 import { forgetBoardRun } from "./pooling-pool";
 
@@ -26,13 +26,12 @@ export class BoardBroadcaster {
   /** Rolls committed since the run's last refresh. */
   private readonly pending = new Map<string, PoolRow[]>();
   private readonly kept: BoardRollCache = new Map();
+  private loopSample = { at: 0, busy: false, utilization: performance.eventLoopUtilization() };
 
   constructor(
     private readonly io: Server,
     private readonly intervalMs: number,
   ) {}
-
-  private loopSample = { at: 0, busy: false, utilization: performance.eventLoopUtilization() };
 
   /** Whether the event loop was busy more than 90% of the time over the last second or so. */
   private loopBusy(): boolean {
@@ -52,9 +51,10 @@ export class BoardBroadcaster {
     return false;
   }
 
-  /** Rolls the batcher has just committed for a run. */
-  addRolls(runId: string, rows: PoolRow[]) {
+  /** Rolls the batcher has just committed for a run; kept for the next refresh only while a board watches the run. */
+  addRolls(runId: string, rolls: NewRoll[]) {
     if (!this.watched(runId)) return;
+    const rows = rolls.map(poolRowFromRoll);
     const pending = this.pending.get(runId);
     if (pending) pending.push(...rows);
     else this.pending.set(runId, rows);

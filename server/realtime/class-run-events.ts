@@ -19,19 +19,18 @@ import {
   type RunStatusBroadcast,
 } from "@shared/events";
 import { auth } from "../auth";
-import { findClassRun, writeRollBatch, type PoolRow, type RollWriteOutcome } from "../db/queries/class-runs";
+import { findClassRun, writeRollBatch, type NewRoll, type RollWriteOutcome } from "../db/queries/class-runs";
 import { db } from "../db/client";
 import { findMembershipForUser } from "../db/queries/memberships";
 import { env } from "../env";
 import { HttpError } from "../http-error";
 import { logger } from "../logger";
 import type { TeacherContext } from "../middleware/require-teacher";
-import { poolRowFromRoll, readBoardSnapshot, runForTeacher } from "../services/class-runs.service";
+import { readBoardSnapshot, runForTeacher } from "../services/class-runs.service";
 import { castVote, checkedRoll, chooseMatchup, GroupRateLimiter, joinRun, PadError, resumeGroup, undoRoll } from "../services/roll-pad.service";
 import { verifyGuestToken } from "../services/guest-token";
 import { BoardBroadcaster, boardRoom } from "./board-broadcaster";
 import { RollBatcher } from "./roll-batcher";
-import { poolBoardOffThread } from "./pooling-pool";
 import { onRunChanged } from "./run-notifier";
 
 export const padsRoom = (runId: string) => `pads:${runId}`;
@@ -97,14 +96,14 @@ export function registerClassRunEvents(io: Server) {
     maxBatch: 500,
     concurrency: 3,
     onWritten: (rolls, outcomes) => {
-      const stored = new Map<string, PoolRow[]>();
+      const stored = new Map<string, NewRoll[]>();
       for (const entry of rolls) {
         if (outcomes.get(entry.id) !== "stored") continue;
         const ofRun = stored.get(entry.runId);
-        if (ofRun) ofRun.push(poolRowFromRoll(entry));
-        else stored.set(entry.runId, [poolRowFromRoll(entry)]);
+        if (ofRun) ofRun.push(entry);
+        else stored.set(entry.runId, [entry]);
       }
-      for (const [runId, rows] of stored) broadcaster.addRolls(runId, rows);
+      for (const [runId, ofRun] of stored) broadcaster.addRolls(runId, ofRun);
     },
   });
 
@@ -190,7 +189,7 @@ export function registerClassRunEvents(io: Server) {
         await runForTeacher(teacher, runId, "view");
         // Join before reading, so no update committed after the snapshot's read can be missed.
         await socket.join(boardRoom(runId));
-        const snapshot = await readBoardSnapshot(runId, teacher.user.id, poolBoardOffThread);
+        const snapshot = await readBoardSnapshot(runId, teacher.user.id);
         if (!snapshot) throw new HttpError(404, "not_found", "The class run was not found.");
         return { snapshot };
       }),

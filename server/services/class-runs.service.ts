@@ -1,5 +1,5 @@
 import { assignedMatchup } from "@shared/class-results/assigned-matchups";
-import { poolBoard, type BoardPools, type BoardPoolSettings } from "@shared/class-results/board-pool";
+import type { BoardPools, BoardPoolSettings } from "@shared/class-results/board-pool";
 import { simulatedMatchupRolls, winnerSeatOf } from "@shared/class-results/virtual-class";
 import type { TieRule } from "@shared/probability/index";
 import {
@@ -50,7 +50,7 @@ import { HttpError, notFound } from "../http-error";
 import type { TeacherContext } from "../middleware/require-teacher";
 import { notifyRunChanged } from "../realtime/run-notifier";
 import { logger } from "../logger";
-import { NeedsResetError, poolKeptBoardOffThread, type BoardPoolRequest } from "../realtime/pooling-pool";
+import { NeedsResetError, poolBoardOffThread, poolKeptBoardOffThread } from "../realtime/pooling-pool";
 import { generateJoinCode, isUniqueViolation } from "./join-code";
 import type { BoardUpdateMessage } from "@shared/events";
 
@@ -455,15 +455,11 @@ function withPools<Tallies>(boardVersion: number, parts: BoardParts, pools: Boar
   };
 }
 
-/** The Run board's snapshot (the first thing a board loads, and GET …/board), pooled inline or on the worker thread. */
-export async function readBoardSnapshot(
-  runId: string,
-  viewerId: string | null,
-  pool: (request: BoardPoolRequest) => Promise<BoardPools> = async (request) => poolBoard({ ...request, rolls: request.rows }),
-): Promise<BoardSnapshot | null> {
+/** The Run board's snapshot (the first thing a board loads, and GET …/board), pooled on the worker thread. */
+export async function readBoardSnapshot(runId: string, viewerId: string | null): Promise<BoardSnapshot | null> {
   const state = await readBoardState(runId, viewerId);
   if (!state) return null;
-  return withPools(state.boardVersion, state.parts, await pool({ ...state.settings, nicknames: state.nicknames, rows: state.rows }));
+  return withPools(state.boardVersion, state.parts, await poolBoardOffThread({ ...state.settings, nicknames: state.nicknames, rows: state.rows }));
 }
 
 /**

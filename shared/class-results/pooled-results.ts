@@ -163,25 +163,13 @@ interface ExactFractions {
   sharedHighest: Fraction;
 }
 
-/** The outcome of one roll for the first seat: "win" outright, "tie" sharing the top, "loss"; and whether any seats shared the top. */
-function rollOutcome(totals: readonly number[]): { seatOutcomes: ("win" | "tie" | "loss")[]; shared: boolean } {
-  let highest = totals[0];
-  for (let seat = 1; seat < totals.length; seat += 1) if (totals[seat] > highest) highest = totals[seat];
-  let atTop = 0;
-  for (const total of totals) if (total === highest) atTop += 1;
-  return {
-    seatOutcomes: totals.map((total) => (total < highest ? "loss" : atTop === 1 ? "win" : "tie")),
-    shared: atTop > 1,
-  };
-}
-
 /** A roll's score for the first seat under a tie rule; null when the roll does not count (a tie under "re-roll ties"). */
 export function scoreUnderTieRule(totals: readonly number[], tieRule: TieRule): number | null {
-  const { seatOutcomes, shared } = rollOutcome(totals);
-  const first = seatOutcomes[0];
-  if (tieRule === "re-roll-ties") return shared ? null : first === "win" ? 1 : 0;
-  if (tieRule === "ties-score-half") return first === "win" ? 1 : first === "tie" ? 0.5 : 0;
-  return first === "win" ? 1 : 0;
+  const code = firstSeatCode(totals);
+  const first = code & 3;
+  if (tieRule === "re-roll-ties") return code & SHARED_TOP ? null : first === FIRST_WIN ? 1 : 0;
+  if (tieRule === "ties-score-half") return first === FIRST_WIN ? 1 : first === FIRST_TIE ? 0.5 : 0;
+  return first === FIRST_WIN ? 1 : 0;
 }
 
 /**
@@ -282,11 +270,15 @@ function countInto(seats: SeatCounts[], totals: number[]): boolean {
   return atTop === 1;
 }
 
+/** The first seat's relative frequency under the tie rule from its wins and ties; null when no roll counts yet. */
+function runningFrequency(wins: number, ties: number, rolls: number, decided: number, tieRule: TieRule): number | null {
+  if (tieRule === "re-roll-ties") return decided === 0 ? null : wins / decided;
+  if (tieRule === "ties-score-half") return rolls === 0 ? null : (wins + ties / 2) / rolls;
+  return rolls === 0 ? null : wins / rolls;
+}
+
 function frequencyUnder(seats: SeatCounts[], rolls: number, decided: number, tieRule: TieRule): number | null {
-  const first = seats[0];
-  if (tieRule === "re-roll-ties") return decided === 0 ? null : first.wins / decided;
-  if (tieRule === "ties-score-half") return rolls === 0 ? null : (first.wins + first.ties / 2) / rolls;
-  return rolls === 0 ? null : first.wins / rolls;
+  return runningFrequency(seats[0].wins, seats[0].ties, rolls, decided, tieRule);
 }
 
 /** First-seat outcome codes kept per roll for the convergence series: bit 0–1 the outcome, bit 2 a shared top total. */
@@ -571,13 +563,6 @@ export class RollPool {
       },
     };
   }
-}
-
-/** The first seat's running relative frequency under the tie rule, from its running wins and ties. */
-function runningFrequency(wins: number, ties: number, rolls: number, decided: number, tieRule: TieRule): number | null {
-  if (tieRule === "re-roll-ties") return decided === 0 ? null : wins / decided;
-  if (tieRule === "ties-score-half") return rolls === 0 ? null : (wins + ties / 2) / rolls;
-  return rolls === 0 ? null : wins / rolls;
 }
 
 /**

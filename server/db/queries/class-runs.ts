@@ -357,16 +357,6 @@ export async function runRollsForPooling(executor: Executor, runId: string): Pro
   return result.rows;
 }
 
-/** Kept rolls per group of a run. */
-export async function rollCountsByGroup(executor: Executor, runId: string): Promise<Map<string, number>> {
-  const rows = await executor
-    .select({ groupId: roll.groupId, rolls: count() })
-    .from(roll)
-    .where(and(eq(roll.runId, runId), isNull(roll.undoneAt)))
-    .groupBy(roll.groupId);
-  return new Map(rows.map((row) => [row.groupId, row.rolls]));
-}
-
 export async function countUndoneRolls(executor: Executor, runId: string): Promise<number> {
   const [row] = await executor.select({ undone: count() }).from(roll).where(and(eq(roll.runId, runId), isNotNull(roll.undoneAt)));
   return row.undone;
