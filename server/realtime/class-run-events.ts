@@ -27,7 +27,7 @@ import { HttpError } from "../http-error";
 import { logger } from "../logger";
 import type { TeacherContext } from "../middleware/require-teacher";
 import { readBoardSnapshot, runForTeacher } from "../services/class-runs.service";
-import { castVote, checkedRoll, chooseMatchup, GroupRateLimiter, joinRun, PadError, resumeGroup, undoRoll } from "../services/roll-pad.service";
+import { castVote, checkedRoll, checkedRollFromCache, chooseMatchup, GroupRateLimiter, joinRun, PadError, resumeGroup, undoRoll } from "../services/roll-pad.service";
 import { verifyGuestToken } from "../services/guest-token";
 import { BoardBroadcaster, boardRoom } from "./board-broadcaster";
 import { RollBatcher } from "./roll-batcher";
@@ -47,9 +47,23 @@ const outcomeErrors: Partial<Record<RollWriteOutcome, EventError>> = {
 
 type Acknowledge<T extends object> = (answer: Ack<T>) => void;
 
-/** Wraps a handler: checks the payload with its zod schema, answers every refusal as `{ ok: false, error }`, never throws. */
-function handle<S extends z.ZodType, T extends object>(schema: S, run: (payload: z.infer<S>) => Promise<T>) {
-  return async (payload: unknown, acknowledge?: unknown) => {
+/** The `{ ok: false, error }` answer for anything a handler threw. */
+function refusalFor(error: unknown): EventError {
+  if (error instanceof PadError) return error.toEventError();
+  if (error instanceof HttpError) {
+    const code = error.status === 401 ? "unauthenticated" : error.status === 404 ? "not_found" : "forbidden";
+    return { code, message: error.message };
+  }
+  logger.error({ err: error }, "class run event failed");
+  return { code: "server_error", message: "The server could not save this just now; the phone will try again." };
+}
+
+/**
+ * Wraps a handler: checks the payload with its zod schema, answers every refusal as `{ ok: false, error }`, never throws.
+ * A handler may answer at once (no promise), which the busiest event, roll:record, does until its batch commits.
+ */
+function handle<S extends z.ZodType, T extends object>(schema: S, run: (payload: z.infer<S>) => T | Promise<T>) {
+  return (payload: unknown, acknowledge?: unknown) => {
     if (typeof acknowledge !== "function") return;
     const answer = acknowledge as Acknowledge<T>;
     const parsed = schema.safeParse(payload);
@@ -57,17 +71,14 @@ function handle<S extends z.ZodType, T extends object>(schema: S, run: (payload:
       answer({ ok: false, error: { code: "invalid_input", message: payloadProblem(parsed.error) } });
       return;
     }
+    const succeed = (result: T) => answer({ ok: true, ...result });
+    const fail = (error: unknown) => answer({ ok: false, error: refusalFor(error) });
     try {
-      answer({ ok: true, ...(await run(parsed.data)) });
+      const result = run(parsed.data);
+      if (result instanceof Promise) result.then(succeed, fail);
+      else succeed(result);
     } catch (error) {
-      if (error instanceof PadError) answer({ ok: false, error: error.toEventError() });
-      else if (error instanceof HttpError) {
-        const code = error.status === 401 ? "unauthenticated" : error.status === 404 ? "not_found" : "forbidden";
-        answer({ ok: false, error: { code, message: error.message } });
-      } else {
-        logger.error({ err: error }, "class run event failed");
-        answer({ ok: false, error: { code: "server_error", message: "The server could not save this just now; the phone will try again." } });
-      }
+      fail(error);
     }
   };
 }
@@ -106,6 +117,14 @@ export function registerClassRunEvents(io: Server) {
       for (const [runId, ofRun] of stored) broadcaster.addRolls(runId, ofRun);
     },
   });
+
+  /** Queues a checked roll for the next batch; settles once that batch has committed. */
+  const writeRoll = (row: NewRoll) =>
+    batcher.submit(row).then((outcome) => {
+      const refusal = outcomeErrors[outcome];
+      if (refusal) throw new PadError(refusal.code, refusal.message, refusal.retryAfterMs);
+      return { id: row.id, duplicate: outcome === "duplicate" };
+    });
 
   const stopListening = onRunChanged(async (change) => {
     broadcaster.markDirty(change.runId);
@@ -163,7 +182,7 @@ export function registerClassRunEvents(io: Server) {
 
     socket.on(
       EVENTS.rollRecord,
-      handle(rollRecordPayloadSchema, async ({ token, roll }) => {
+      handle(rollRecordPayloadSchema, ({ token, roll }) => {
         const claims = verifyGuestToken(token);
         if (claims) {
           const allowed = limiter.take(claims.groupId);
@@ -171,11 +190,9 @@ export function registerClassRunEvents(io: Server) {
             throw new PadError("rate_limited", "Rolls are coming in faster than a group can play. Wait a moment; the phone sends them again.", allowed.retryAfterMs);
           }
         }
-        const row = await checkedRoll(token, roll);
-        const outcome = await batcher.submit(row);
-        const refusal = outcomeErrors[outcome];
-        if (refusal) throw new PadError(refusal.code, refusal.message, refusal.retryAfterMs);
-        return { id: row.id, duplicate: outcome === "duplicate" };
+        // Only a group's first roll (or one after a change to its run) waits for the database before the batcher.
+        const row = checkedRollFromCache(token, roll);
+        return row ? writeRoll(row) : checkedRoll(token, roll).then(writeRoll);
       }),
     );
 

@@ -58,31 +58,56 @@ onRunChanged((change) => {
   }
 });
 
+function freshFromCache<T>(cache: Map<string, { until: number } & T>, id: string, now: number): T | undefined {
+  const hit = cache.get(id);
+  return hit && hit.until > now ? hit : undefined;
+}
+
 async function cachedRun(runId: string): Promise<ClassRunRow | null> {
-  const hit = runCache.get(runId);
-  if (hit && hit.until > Date.now()) return hit.run;
+  const hit = freshFromCache(runCache, runId, Date.now());
+  if (hit) return hit.run;
   const run = await findClassRun(db, runId);
   if (run) runCache.set(runId, { run, until: Date.now() + CACHE_MILLISECONDS });
   return run;
 }
 
 async function cachedGroup(groupId: string): Promise<RunGroupRow | null> {
-  const hit = groupCache.get(groupId);
-  if (hit && hit.until > Date.now()) return hit.group;
+  const hit = freshFromCache(groupCache, groupId, Date.now());
+  if (hit) return hit.group;
   const group = await findGroup(db, groupId);
   if (group) groupCache.set(groupId, { group, until: Date.now() + CACHE_MILLISECONDS });
   return group;
 }
 
-/** The run and group a token names, both existing and belonging together. */
-async function tokenOwner(token: string): Promise<{ run: ClassRunRow; group: RunGroupRow }> {
-  const claims = verifyGuestToken(token);
-  if (!claims) throw new PadError("bad_token", "This phone's group pass is not valid. Join the run again with the code on the board.");
-  const [run, group] = await Promise.all([cachedRun(claims.runId), cachedGroup(claims.groupId)]);
+type TokenOwner = { run: ClassRunRow; group: RunGroupRow };
+
+function badToken(): PadError {
+  return new PadError("bad_token", "This phone's group pass is not valid. Join the run again with the code on the board.");
+}
+
+function ownerOf(run: ClassRunRow | null, group: RunGroupRow | null): TokenOwner {
   if (!run || !group || group.runId !== run.id) {
     throw new PadError("bad_token", "This phone's group pass does not belong to an open class run. Join again with the code on the board.");
   }
   return { run, group };
+}
+
+/** The run and group a token names, both existing and belonging together. */
+async function tokenOwner(token: string): Promise<TokenOwner> {
+  const claims = verifyGuestToken(token);
+  if (!claims) throw badToken();
+  const [run, group] = await Promise.all([cachedRun(claims.runId), cachedGroup(claims.groupId)]);
+  return ownerOf(run, group);
+}
+
+/** tokenOwner without waiting, when both rows are cached (as they are for every roll after a group's first); else undefined. */
+function cachedTokenOwner(token: string): TokenOwner | undefined {
+  const claims = verifyGuestToken(token);
+  if (!claims) throw badToken();
+  const now = Date.now();
+  const run = freshFromCache(runCache, claims.runId, now);
+  const group = freshFromCache(groupCache, claims.groupId, now);
+  return run && group ? ownerOf(run.run, group.group) : undefined;
 }
 
 function padRun(run: ClassRunRow): PadRun {
@@ -184,7 +209,19 @@ const dieList = (faces: number[]) => faces.join(", ");
  * in the current tally, and every face one the die actually has. Answers the row to insert.
  */
 export async function checkedRoll(token: string, roll: RollPayload): Promise<NewRoll> {
-  const { run, group } = await tokenOwner(token);
+  return rowForRoll(cachedTokenOwner(token) ?? (await tokenOwner(token)), roll);
+}
+
+/**
+ * checkedRoll at once, when the token's run and group are cached, so the busiest event costs no promise before the
+ * batcher; undefined when they must be read first. Throws the same refusals.
+ */
+export function checkedRollFromCache(token: string, roll: RollPayload): NewRoll | undefined {
+  const owner = cachedTokenOwner(token);
+  return owner && rowForRoll(owner, roll);
+}
+
+function rowForRoll({ run, group }: TokenOwner, roll: RollPayload): NewRoll {
   refuseClosed(run);
   if (run.status === "paused") {
     throw new PadError("run_paused", "Your teacher has paused the run. This roll is kept on the phone and sent when the run goes on.", 3_000);
