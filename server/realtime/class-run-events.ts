@@ -71,14 +71,16 @@ function handle<S extends z.ZodType, T extends object>(schema: S, run: (payload:
       answer({ ok: false, error: { code: "invalid_input", message: payloadProblem(parsed.error) } });
       return;
     }
-    const succeed = (result: T) => answer({ ok: true, ...result });
-    const fail = (error: unknown) => answer({ ok: false, error: refusalFor(error) });
     try {
       const result = run(parsed.data);
-      if (result instanceof Promise) result.then(succeed, fail);
-      else succeed(result);
+      if (result instanceof Promise) {
+        result.then(
+          (settled: T) => answer({ ok: true, ...settled }),
+          (error: unknown) => answer({ ok: false, error: refusalFor(error) }),
+        );
+      } else answer({ ok: true, ...result });
     } catch (error) {
-      fail(error);
+      answer({ ok: false, error: refusalFor(error) });
     }
   };
 }

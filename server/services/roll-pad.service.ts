@@ -234,7 +234,7 @@ function rowForRoll({ run, group }: TokenOwner, roll: RollPayload): NewRoll {
   if (roll.matchup.some((index) => index >= run.dice.length)) throw new PadError("bad_faces", `The set has ${run.dice.length} dice; this roll names another.`);
   if (roll.tally === run.currentTally) {
     if (!group.matchup) throw new PadError("no_matchup", "Your group has no matchup yet: choose one, or wait for your teacher to give you one.");
-    if (group.matchup.join("-") !== roll.matchup.join("-")) {
+    if (group.matchup.length !== roll.matchup.length || group.matchup.some((dieIndex, seat) => dieIndex !== roll.matchup[seat])) {
       const names = group.matchup.map((index) => run.dice[index].name).join(" v ");
       throw new PadError("wrong_matchup", `Your group's matchup is ${names} now; this roll was for another. Record it again.`);
     }

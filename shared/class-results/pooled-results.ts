@@ -1,6 +1,6 @@
 import Fraction from "fraction.js";
 import {
-  binomialTest,
+  binomialTestPValue,
   countsBelow,
   criticalValueForConfidence,
   fractionToDecimal,
@@ -219,13 +219,13 @@ export function exactValue(value: Fraction): ExactValue {
 
 /**
  * Two-sided binomial p-value, R's binom.test rule (sum of P(X = k) over every k no more likely than the observed count):
- * exact in whole numbers through the engine's binomialTest when that is quick, otherwise the same sum in floating point
+ * exact in whole numbers through the engine's binomial test when that is quick, otherwise the same sum in floating point
  * with log-gamma terms and R's relative tolerance of 1 + 10⁻⁷.
  */
 export function binomialPValue(successes: number, trials: number, probability: Fraction): { pValue: number; method: PlausibilityMethod } {
   const bits = probability.d.toString(2).length;
   if (trials * bits <= WHOLE_NUMBER_TEST_BUDGET) {
-    return { pValue: binomialTest(successes, trials, probability).pValueNumber, method: "exact binomial test (whole numbers)" };
+    return { pValue: binomialTestPValue(successes, trials, probability), method: "exact binomial test (whole numbers)" };
   }
   const p = fractionToNumber(probability);
   if (p === 0 || p === 1) {

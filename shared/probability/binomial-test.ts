@@ -1,5 +1,5 @@
 import Fraction, { type FractionInput } from "fraction.js";
-import { fractionToNumber } from "./format";
+import { fractionToNumber, ratioToNumber } from "./format";
 
 /** Most trials `binomialTest` accepts, to keep its exact BigInt sums quick. */
 export const BINOMIAL_TRIALS_MAX = 5_000;
@@ -24,6 +24,22 @@ export interface BinomialTestResult {
  * here compared exactly in BigInt instead of with binom.test's 1 + 10⁻⁷ tolerance.
  */
 export function binomialTest(successes: number, trials: number, nullProbability: FractionInput = new Fraction(1, 2)): BinomialTestResult {
+  const { p, tail, denominator } = exactTail(successes, trials, nullProbability);
+  const pValue = new Fraction(tail, denominator);
+  return { successes, trials, nullProbability: p, pValue, pValueNumber: fractionToNumber(pValue), expected: p.mul(trials) };
+}
+
+/**
+ * binomialTest's p-value as a number only: the same exact sum, without reducing the fraction to lowest terms (for Run
+ * boards, which test every group at each refresh and show the number).
+ */
+export function binomialTestPValue(successes: number, trials: number, nullProbability: FractionInput = new Fraction(1, 2)): number {
+  const { tail, denominator } = exactTail(successes, trials, nullProbability);
+  return ratioToNumber(tail, denominator);
+}
+
+/** The two-sided tail of binomialTest as tail / denominator, not reduced. */
+function exactTail(successes: number, trials: number, nullProbability: FractionInput): { p: Fraction; tail: bigint; denominator: bigint } {
   if (!Number.isInteger(trials) || trials < 1 || trials > BINOMIAL_TRIALS_MAX) throw new RangeError(`Trials must be a whole number from 1 to ${BINOMIAL_TRIALS_MAX}.`);
   if (!Number.isInteger(successes) || successes < 0 || successes > trials) throw new RangeError("Successes must be a whole number from 0 to the number of trials.");
   const p = new Fraction(nullProbability);
@@ -38,18 +54,16 @@ export function binomialTest(successes: number, trials: number, nullProbability:
     return value;
   };
   const observed = binomialCoefficient(successes) * a ** BigInt(successes) * rest ** BigInt(trials - successes);
-  // Streams k = 0 … n keeping one term of each factor, so memory stays at a few big numbers.
-  let tail = 0n;
-  let binomial = 1n;
-  let aPower = 1n;
-  let restPower = rest ** n;
-  for (let k = 0; k <= trials; k += 1) {
-    const numerator = binomial * aPower * restPower;
-    if (numerator <= observed) tail += numerator;
-    binomial = (binomial * (n - BigInt(k))) / BigInt(k + 1);
-    aPower *= a;
-    restPower = rest === 0n ? (k + 1 === trials ? 1n : 0n) : restPower / rest;
+  // Streams k = 0 … n keeping one term: P(X = k + 1) / P(X = k) = (n − k)·a / ((k + 1)·(b − a)), and the whole-number
+  // numerators divide exactly, so each step multiplies and divides by small numbers only.
+  // With p = 1 every k below n has probability 0, so the tail is the observed term itself.
+  let tail = rest === 0n ? observed : 0n;
+  if (rest !== 0n) {
+    let numerator = rest ** n;
+    for (let k = 0; k <= trials; k += 1) {
+      if (numerator <= observed) tail += numerator;
+      if (k < trials) numerator = (numerator * (n - BigInt(k)) * a) / (BigInt(k + 1) * rest);
+    }
   }
-  const pValue = new Fraction(tail, p.d ** n);
-  return { successes, trials, nullProbability: p, pValue, pValueNumber: fractionToNumber(pValue), expected: p.mul(trials) };
+  return { p, tail, denominator: p.d ** n };
 }

@@ -29,8 +29,12 @@ export function fractionToPercent(value: Fraction, places = 1): string {
 
 /** A fraction as the nearest double, safe for numerators and denominators far beyond 2^1024 (display only). */
 export function fractionToNumber(value: Fraction): number {
-  const shift = Math.max(0, Math.max(bitLength(value.n), bitLength(value.d)) - 1000);
-  const sign = value.s < 0n ? -1 : 1;
-  if (shift === 0) return (sign * Number(value.n)) / Number(value.d);
-  return (sign * Number(value.n >> BigInt(shift))) / Number(value.d >> BigInt(shift));
+  return (value.s < 0n ? -1 : 1) * ratioToNumber(value.n, value.d);
+}
+
+/** numerator / denominator (both non-negative, not necessarily in lowest terms) as a double, however many bits they have (display only). */
+export function ratioToNumber(numerator: bigint, denominator: bigint): number {
+  const shift = Math.max(0, Math.max(bitLength(numerator), bitLength(denominator)) - 1000);
+  if (shift === 0) return Number(numerator) / Number(denominator);
+  return Number(numerator >> BigInt(shift)) / Number(denominator >> BigInt(shift));
 }

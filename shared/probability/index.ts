@@ -3,7 +3,7 @@ export { analyzeSet } from "./analyze-set";
 export type { BeatsEdge, BestCounter, DiceCycle, MatchupEntry, MatchupReversal, SetAnalysis, SetLevelAnalysis } from "./analyze-set";
 export { beatsGraph, matchupRelation } from "./beats-graph";
 export type { MatchupRelation } from "./beats-graph";
-export { binomialTest, BINOMIAL_TRIALS_MAX } from "./binomial-test";
+export { binomialTest, binomialTestPValue, BINOMIAL_TRIALS_MAX } from "./binomial-test";
 export type { BinomialTestResult } from "./binomial-test";
 export { chiSquareCriticalValue, chiSquareGoodnessOfFit, chiSquareUpperTail } from "./chi-square";
 export type { ChiSquareResult } from "./chi-square";

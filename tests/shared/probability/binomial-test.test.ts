@@ -1,7 +1,7 @@
 import Fraction from "fraction.js";
 import jStat from "jstat";
 import { describe, expect, it } from "vitest";
-import { binomialTest } from "@shared/probability/binomial-test";
+import { binomialTest, binomialTestPValue } from "@shared/probability/binomial-test";
 
 /** R's binom.test two-sided rule in floating point, built on jstat.binomial.pdf. */
 function referencePValue(successes: number, trials: number, p: number): number {
@@ -39,5 +39,23 @@ describe("binomialTest", () => {
 
   it.each([[11, 10], [0, 0], [1, 5001]])("refuses %s successes in %s trials", (successes, trials) => {
     expect(() => binomialTest(successes, trials)).toThrow(RangeError);
+  });
+});
+
+describe("binomialTestPValue", () => {
+  it.each(cases)("matches R's rule on jstat's binomial for %i of %i at p = %j", (successes, trials, [a, b]) => {
+    expect(binomialTestPValue(successes, trials, new Fraction(a, b))).toBeCloseTo(referencePValue(successes, trials, a / b), 9);
+  });
+
+  it("gives the exact test's number without reducing its fraction, out to a thousand rolls at p = 15/36", () => {
+    for (const [successes, trials] of [[0, 1], [3, 7], [60, 150], [190, 400], [401, 1000], [1000, 1000]]) {
+      const exact = binomialTest(successes, trials, new Fraction(15, 36)).pValueNumber;
+      const quick = binomialTestPValue(successes, trials, new Fraction(15, 36));
+      expect(Math.abs(quick - exact)).toBeLessThanOrEqual(1e-12 * Math.max(exact, Number.MIN_VALUE));
+    }
+  });
+
+  it("refuses what binomialTest refuses", () => {
+    expect(() => binomialTestPValue(11, 10)).toThrow(RangeError);
   });
 });
