@@ -1,8 +1,8 @@
 import { performance } from "node:perf_hooks";
 import type { Server } from "socket.io";
 import { EVENTS } from "@shared/events";
-import type { NewRoll, PoolRow } from "../db/queries/class-runs";
-import { poolRowFromRoll, readBoardUpdate, refreshBoardWithRolls, type BoardRollCache } from "../services/class-runs.service";
+import type { NewRoll } from "../db/queries/class-runs";
+import { readBoardUpdate, refreshBoardWithRolls, type BoardRollCache } from "../services/class-runs.service";
 import { logger } from "../logger";
 import { forgetBoardRun } from "./pooling-pool";
 
@@ -24,7 +24,7 @@ export class BoardBroadcaster {
   /** Runs whose next refresh reads everything from the database. */
   private readonly fullRead = new Set<string>();
   /** Rolls committed since the run's last refresh. */
-  private readonly pending = new Map<string, PoolRow[]>();
+  private readonly pending = new Map<string, NewRoll[]>();
   private readonly kept: BoardRollCache = new Map();
   private loopSample = { at: 0, busy: false, utilization: performance.eventLoopUtilization() };
 
@@ -54,10 +54,9 @@ export class BoardBroadcaster {
   /** Rolls the batcher has just committed for a run; kept for the next refresh only while a board watches the run. */
   addRolls(runId: string, rolls: NewRoll[]) {
     if (!this.watched(runId)) return;
-    const rows = rolls.map(poolRowFromRoll);
     const pending = this.pending.get(runId);
-    if (pending) pending.push(...rows);
-    else this.pending.set(runId, rows);
+    if (pending) pending.push(...rolls);
+    else this.pending.set(runId, [...rolls]);
     this.schedule(runId);
   }
 

@@ -1,11 +1,12 @@
 import { Worker } from "node:worker_threads";
-import { poolBoard, type BoardPools, type BoardPoolSettings } from "@shared/class-results/board-pool";
+import { poolableRows, poolBoard, type BoardPools, type BoardPoolSettings } from "@shared/class-results/board-pool";
 import { encodeBoardTallies } from "@shared/events";
 import type { PoolRow } from "../db/queries/class-runs";
 import { logger } from "../logger";
 
-/** One board's rolls to pool at once. */
-export type BoardPoolRequest = BoardPoolSettings & { nicknames: Record<string, string>; rows: PoolRow[] };
+/** One board's rolls to pool at once: the rows, or the JSON of them (one string is quicker to post than many objects). */
+export type BoardPoolRequest = BoardPoolSettings & { nicknames: Record<string, string>; rows: PoolRow[] | string };
+
 
 /**
  * One refresh of a watched run: the worker holds the run's running pool between refreshes. `reset` sends every kept
@@ -89,7 +90,7 @@ function postToWorker(running: Worker, request: BoardPoolRequest | KeptBoardPool
 /** Pools one board's rolls on the worker thread (on this thread when the worker is unavailable). */
 export async function poolBoardOffThread(request: BoardPoolRequest): Promise<BoardPools> {
   const running = startWorker();
-  if (!running) return poolBoard({ ...request, rolls: request.rows });
+  if (!running) return poolBoard({ ...request, rolls: poolableRows(request.rows) });
   return (await postToWorker(running, request)) as BoardPools;
 }
 
@@ -99,7 +100,7 @@ export async function poolKeptBoardOffThread(request: KeptBoardPoolRequest): Pro
   if (!running) {
     // Without the worker nobody holds the run's earlier rolls: new rows alone cannot be pooled.
     if (!request.keep.reset) throw new NeedsResetError("no pooling worker holds this run's rolls");
-    const pools = poolBoard({ ...request, rolls: request.rows });
+    const pools = poolBoard({ ...request, rolls: poolableRows(request.rows) });
     return { ...pools, tallies: encodeBoardTallies(pools.tallies) };
   }
   return (await postToWorker(running, request)) as BoardPools<Uint8Array>;

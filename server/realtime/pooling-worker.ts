@@ -2,7 +2,7 @@
 // event loop that acknowledges pupils' rolls. It keeps each watched run's running pool, so a refresh sends only the
 // new rolls and pools only those. Started by pooling-pool.ts.
 import { parentPort } from "node:worker_threads";
-import { BoardPool, poolBoard, SimulatedRollError, type BoardPools } from "../../shared/class-results/board-pool";
+import { BoardPool, poolableRows, poolBoard, SimulatedRollError, type BoardPools } from "../../shared/class-results/board-pool";
 import { encodeBoardTallies } from "../../shared/events";
 import type { BoardPoolRequest, KeptBoardPoolRequest } from "./pooling-pool";
 
@@ -14,8 +14,9 @@ function encoded(pools: BoardPools): BoardPools<Uint8Array> {
 }
 
 function pooled(request: BoardPoolRequest | KeptBoardPoolRequest): BoardPools | BoardPools<Uint8Array> | null {
-  if (!("keep" in request)) return poolBoard({ ...request, rolls: request.rows });
-  const { keep, rows, nicknames, ...settings } = request;
+  const rows = poolableRows(request.rows);
+  if (!("keep" in request)) return poolBoard({ ...request, rolls: rows });
+  const { keep, rows: _rows, nicknames, ...settings } = request;
   if (keep.reset) {
     const run = { generation: keep.generation, ids: new Set(rows.map((row) => row.id)), pool: BoardPool.of(settings, rows) };
     runs.set(keep.runId, run);

@@ -379,19 +379,15 @@ export type BoardRollCache = Map<string, BoardRunState>;
 
 let nextGeneration = 1;
 
-/** A stored roll as the Run board pools it, from the row the roll batcher has just committed. */
-export function poolRowFromRoll(entry: NewRoll): PoolRow {
-  return {
-    id: entry.id,
-    groupId: entry.groupId,
-    tally: entry.tally,
-    dicePerPlayer: entry.dicePerPlayer,
-    matchup: entry.matchup,
-    totals: entry.totals,
-    winnerSeat: entry.winnerSeat,
-    source: entry.source,
-    recordedAt: entry.recordedAt.toISOString(),
-  };
+/** The fields of a PoolRow, in the order `poolRowsJson` writes them. */
+const POOL_ROW_FIELDS: (keyof PoolRow & keyof NewRoll)[] = ["id", "groupId", "tally", "dicePerPlayer", "matchup", "totals", "winnerSeat", "source", "recordedAt"];
+
+/**
+ * Rolls the batcher has just committed, as the JSON of the PoolRow[] the Run board pools (recordedAt becomes its ISO
+ * string). One string crosses to the pooling worker far more cheaply than as many objects, each copied on its own.
+ */
+export function poolRowsJson(rolls: readonly NewRoll[]): string {
+  return JSON.stringify(rolls, POOL_ROW_FIELDS);
 }
 
 type BoardParts = Omit<BoardSnapshot, "version" | "tallies" | "generatedAt">;
@@ -486,12 +482,12 @@ export async function readBoardUpdate(runId: string, cache: BoardRollCache): Pro
  * other change bumps board_version, and the broadcaster answers those with `readBoardUpdate`). Null when nothing is
  * kept for the run (no earlier full read, or the worker lost it): the caller reads in full.
  */
-export async function refreshBoardWithRolls(runId: string, rows: PoolRow[], cache: BoardRollCache): Promise<BoardUpdateMessage | null> {
+export async function refreshBoardWithRolls(runId: string, rolls: readonly NewRoll[], cache: BoardRollCache): Promise<BoardUpdateMessage | null> {
   const state = cache.get(runId);
   if (!state) return null;
   let pools: BoardPools<Uint8Array>;
   try {
-    pools = await poolKeptBoardOffThread({ ...state.settings, nicknames: state.nicknames, rows, keep: { runId, generation: state.generation, reset: false } });
+    pools = await poolKeptBoardOffThread({ ...state.settings, nicknames: state.nicknames, rows: poolRowsJson(rolls), keep: { runId, generation: state.generation, reset: false } });
   } catch (error) {
     cache.delete(runId);
     if (!(error instanceof NeedsResetError)) logger.warn({ err: error }, "board pooling failed; the refresh reads the run in full");
