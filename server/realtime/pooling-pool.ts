@@ -1,10 +1,11 @@
 import { Worker } from "node:worker_threads";
-import { poolableRows, poolBoard, type BoardPools, type BoardPoolSettings } from "@shared/class-results/board-pool";
+import { poolBoard, type BoardPools, type BoardPoolSettings } from "@shared/class-results/board-pool";
 import { encodeBoardTallies } from "@shared/events";
 import type { PoolRow } from "../db/queries/class-runs";
 import { logger } from "../logger";
+import { requestRows } from "./pool-rows-wire";
 
-/** One board's rolls to pool at once: the rows, or the JSON of them (one string is quicker to post than many objects). */
+/** One board's rolls to pool at once: the rows, or a `poolRowsJson` string of them (quicker to post than many objects). */
 export type BoardPoolRequest = BoardPoolSettings & { nicknames: Record<string, string>; rows: PoolRow[] | string };
 
 
@@ -90,7 +91,7 @@ function postToWorker(running: Worker, request: BoardPoolRequest | KeptBoardPool
 /** Pools one board's rolls on the worker thread (on this thread when the worker is unavailable). */
 export async function poolBoardOffThread(request: BoardPoolRequest): Promise<BoardPools> {
   const running = startWorker();
-  if (!running) return poolBoard({ ...request, rolls: poolableRows(request.rows) });
+  if (!running) return poolBoard({ ...request, rolls: requestRows(request.rows) });
   return (await postToWorker(running, request)) as BoardPools;
 }
 
@@ -100,7 +101,7 @@ export async function poolKeptBoardOffThread(request: KeptBoardPoolRequest): Pro
   if (!running) {
     // Without the worker nobody holds the run's earlier rolls: new rows alone cannot be pooled.
     if (!request.keep.reset) throw new NeedsResetError("no pooling worker holds this run's rolls");
-    const pools = poolBoard({ ...request, rolls: poolableRows(request.rows) });
+    const pools = poolBoard({ ...request, rolls: requestRows(request.rows) });
     return { ...pools, tallies: encodeBoardTallies(pools.tallies) };
   }
   return (await postToWorker(running, request)) as BoardPools<Uint8Array>;

@@ -2,9 +2,10 @@
 // event loop that acknowledges pupils' rolls. It keeps each watched run's running pool, so a refresh sends only the
 // new rolls and pools only those. Started by pooling-pool.ts.
 import { parentPort } from "node:worker_threads";
-import { BoardPool, poolableRows, poolBoard, SimulatedRollError, type BoardPools } from "../../shared/class-results/board-pool";
+import { BoardPool, poolBoard, SimulatedRollError, type BoardPools } from "../../shared/class-results/board-pool";
 import { encodeBoardTallies } from "../../shared/events";
 import type { BoardPoolRequest, KeptBoardPoolRequest } from "./pooling-pool";
+import { requestRows } from "./pool-rows-wire";
 
 const runs = new Map<string, { generation: number; ids: Set<string>; pool: BoardPool }>();
 
@@ -14,7 +15,7 @@ function encoded(pools: BoardPools): BoardPools<Uint8Array> {
 }
 
 function pooled(request: BoardPoolRequest | KeptBoardPoolRequest): BoardPools | BoardPools<Uint8Array> | null {
-  const rows = poolableRows(request.rows);
+  const rows = requestRows(request.rows);
   if (!("keep" in request)) return poolBoard({ ...request, rolls: rows });
   const { keep, rows: _rows, nicknames, ...settings } = request;
   if (keep.reset) {

@@ -42,7 +42,6 @@ import {
   type ClassRunRow,
   type LessonForRun,
   type NewRoll,
-  type PoolRow,
 } from "../db/queries/class-runs";
 import type { ClassRunTally } from "../db/schema/class-runs";
 import { env } from "../env";
@@ -50,6 +49,7 @@ import { HttpError, notFound } from "../http-error";
 import type { TeacherContext } from "../middleware/require-teacher";
 import { notifyRunChanged } from "../realtime/run-notifier";
 import { logger } from "../logger";
+import { poolRowsJson } from "../realtime/pool-rows-wire";
 import { NeedsResetError, poolBoardOffThread, poolKeptBoardOffThread } from "../realtime/pooling-pool";
 import { generateJoinCode, isUniqueViolation } from "./join-code";
 import type { BoardUpdateMessage } from "@shared/events";
@@ -378,17 +378,6 @@ export type BoardRunState = {
 export type BoardRollCache = Map<string, BoardRunState>;
 
 let nextGeneration = 1;
-
-/** The fields of a PoolRow, in the order `poolRowsJson` writes them. */
-const POOL_ROW_FIELDS: (keyof PoolRow & keyof NewRoll)[] = ["id", "groupId", "tally", "dicePerPlayer", "matchup", "totals", "winnerSeat", "source", "recordedAt"];
-
-/**
- * Rolls the batcher has just committed, as the JSON of the PoolRow[] the Run board pools (recordedAt becomes its ISO
- * string). One string crosses to the pooling worker far more cheaply than as many objects, each copied on its own.
- */
-export function poolRowsJson(rolls: readonly NewRoll[]): string {
-  return JSON.stringify(rolls, POOL_ROW_FIELDS);
-}
 
 type BoardParts = Omit<BoardSnapshot, "version" | "tallies" | "generatedAt">;
 

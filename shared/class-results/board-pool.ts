@@ -72,11 +72,6 @@ export class BoardPool {
   }
 }
 
-/** Rolls as objects, from the objects or from the JSON of them (which the server posts to its pooling worker). */
-export function poolableRows<T extends PoolableRoll>(rows: T[] | string): T[] {
-  return typeof rows === "string" ? (JSON.parse(rows) as T[]) : rows;
-}
-
 /** Pools a run's kept rolls at once the way the Run board shows them. */
 export function poolBoard(input: BoardPoolSettings & { rolls: PoolableRoll[]; nicknames: Record<string, string> }): BoardPools {
   return BoardPool.of(input, input.rolls).result(input.nicknames);

@@ -1,8 +1,8 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { BoardPool, poolableRows } from "@shared/class-results/board-pool";
+import { BoardPool } from "@shared/class-results/board-pool";
 import type { NewRoll } from "../../server/db/queries/class-runs";
-import { poolRowsJson } from "../../server/services/class-runs.service";
+import { poolRowsJson, requestRows } from "../../server/realtime/pool-rows-wire";
 
 // Invented dice for these checks.
 const dice = [
@@ -31,7 +31,7 @@ const newRollArbitrary = fc
     };
   });
 
-describe("poolRowsJson", () => {
+describe("poolRowsJson and requestRows", () => {
   it("hands the pooling worker exactly the fields a Run board pools, with the recorded time as an ISO string", () => {
     fc.assert(
       fc.property(fc.array(newRollArbitrary, { maxLength: 40 }), (rolls) => {
@@ -46,7 +46,7 @@ describe("poolRowsJson", () => {
           source: entry.source,
           recordedAt: entry.recordedAt.toISOString(),
         }));
-        const fromJson = poolableRows(poolRowsJson(rolls));
+        const fromJson = requestRows(poolRowsJson(rolls));
         expect(fromJson).toEqual(expected);
         const settings = { dice, tieRule: "re-roll-ties" as const, tallies: [{ tally: 1, dicePerPlayer: 1, players: 2, startedAt: "2026-11-30T00:00:00.000Z" }] };
         expect(BoardPool.of(settings, fromJson).result({})).toEqual(BoardPool.of(settings, expected).result({}));
