@@ -60,7 +60,7 @@ function refusalFor(error: unknown): EventError {
 
 /**
  * Wraps a handler: checks the payload with its zod schema, answers every refusal as `{ ok: false, error }`, never throws.
- * A handler may answer at once (no promise), which the busiest event, roll:record, does until its batch commits.
+ * A handler may return its answer itself or a promise of it; roll:record makes no promise of its own before the batcher's.
  */
 function handle<S extends z.ZodType, T extends object>(schema: S, run: (payload: z.infer<S>) => T | Promise<T>) {
   return (payload: unknown, acknowledge?: unknown) => {
