@@ -1,29 +1,30 @@
 import type { NewRoll, RollWriteOutcome } from "../db/queries/class-runs";
 
-type Pending = { roll: NewRoll; resolve: (outcome: RollWriteOutcome) => void; reject: (error: unknown) => void };
+type Pending<R> = { roll: R; resolve: (outcome: RollWriteOutcome) => void; reject: (error: unknown) => void };
 
 /**
  * Group commit for rolls: rolls arriving within `windowMs` of each other are written in one transaction with one
  * multi-row insert, and each caller's promise settles only after that transaction has committed (or failed).
  * Up to `concurrency` batches are written at once, so one batch's commit (its WAL flush) overlaps the next batch.
+ * Rows are the server's NewRoll; the load case's insert-only yardstick batches its own bare rows the same way.
  */
-export class RollBatcher {
-  private queue: Pending[] = [];
+export class RollBatcher<R extends { id: string } = NewRoll> {
+  private queue: Pending<R>[] = [];
   private timer: NodeJS.Timeout | null = null;
   private writing = 0;
 
   constructor(
-    private readonly write: (rolls: NewRoll[]) => Promise<Map<string, RollWriteOutcome>>,
+    private readonly write: (rolls: R[]) => Promise<Map<string, RollWriteOutcome>>,
     private readonly options: {
       windowMs: number;
       maxBatch: number;
       concurrency: number;
-      onWritten?: (rolls: NewRoll[], outcomes: Map<string, RollWriteOutcome>) => void;
+      onWritten?: (rolls: R[], outcomes: Map<string, RollWriteOutcome>) => void;
     },
   ) {}
 
   /** Queues a roll; resolves with what became of it once its batch has committed. */
-  submit(roll: NewRoll): Promise<RollWriteOutcome> {
+  submit(roll: R): Promise<RollWriteOutcome> {
     return new Promise((resolve, reject) => {
       this.queue.push({ roll, resolve, reject });
       this.schedule();
@@ -48,7 +49,7 @@ export class RollBatcher {
     this.writing += 1;
     const batch = this.queue.splice(0, this.options.maxBatch);
     // The same id twice in one batch (a resend racing its original) is written once and both callers get the answer.
-    const unique = new Map<string, NewRoll>();
+    const unique = new Map<string, R>();
     for (const entry of batch) if (!unique.has(entry.roll.id)) unique.set(entry.roll.id, entry.roll);
     try {
       const outcomes = await this.write([...unique.values()]);

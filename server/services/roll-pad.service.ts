@@ -209,7 +209,7 @@ const dieList = (faces: number[]) => faces.join(", ");
  * in the current tally, and every face one the die actually has. Answers the row to insert.
  */
 export async function checkedRoll(token: string, roll: RollPayload): Promise<NewRoll> {
-  return rowForRoll(cachedTokenOwner(token) ?? (await tokenOwner(token)), roll);
+  return rowForRoll(await tokenOwner(token), roll);
 }
 
 /**
