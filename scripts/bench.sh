@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm run bench: speed and memory figures, printed as tables (targets are in the README; nothing here asserts).
+# npm run bench: speed and memory figures, printed as tables (targets are in docs/performance.md; nothing here asserts).
 # Benchmarks that need PostgreSQL get a throwaway cluster of their own through BENCH_DATABASE_URL.
 set -euo pipefail
 source "$(dirname "$0")/lib/setup.sh"

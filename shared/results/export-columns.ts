@@ -23,7 +23,7 @@ export const rollsExportColumns = [
 export type RollsExportColumn = (typeof rollsExportColumns)[number];
 export type RollsExportRow = Record<RollsExportColumn, string | number | null>;
 
-/** What each rolls-export column holds (shown in the README and beside the download buttons). */
+/** What each rolls-export column holds (shown in docs/file-formats.md and beside the download buttons). */
 export const rollsExportColumnHelp: Record<RollsExportColumn, string> = {
   roll_time: "When the roll was recorded, ISO 8601 in UTC (Paper import rolls: the time of the import, in sheet order).",
   group: "The group's nickname.",

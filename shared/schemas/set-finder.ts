@@ -131,7 +131,7 @@ export interface FoundSetFigures {
 export interface FoundSet {
   dice: { name: string; faces: number[] }[];
   figures: FoundSetFigures;
-  /** Higher is better under the request's objective (see README, "Dice sets and the Set finder"). */
+  /** Higher is better under the request's objective (see docs/user-guide.md, "The Set finder"). */
   score: number;
 }
 

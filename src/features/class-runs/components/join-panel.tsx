@@ -40,7 +40,7 @@ export function JoinPanel({ run, size = "board" }: { run: ClassRun; size?: "boar
       {isLoopbackAddress(url) && !wall && (
         <Alert tone="caution" title="Phones cannot reach this address">
           This address names this computer only. Start Outroll with HOST=0.0.0.0 and APP_ORIGIN set to this computer’s
-          address on the school network (README: How a class run works), then open the board at that address.
+          address on the school network (docs/user-guide.md: What pupils’ phones need), then open the board at that address.
         </Alert>
       )}
     </div>
