@@ -36,15 +36,15 @@ export async function startFakeSmtpServer(port = 0, host = "127.0.0.1"): Promise
           callback(Object.assign(new Error("Message is larger than the fake mail server keeps"), { responseCode: 552 }));
           return;
         }
-        const parsed = parseMessage(Buffer.concat(chunks).toString("latin1"));
-        received.unshift({
-          id: crypto.randomUUID(),
-          receivedAt: new Date().toISOString(),
-          to: session.envelope.rcptTo.map((address) => address.address.toLowerCase()),
-          ...parsed,
-        });
-        if (received.length > FAKE_MAILBOX_LIMIT) received.length = FAKE_MAILBOX_LIMIT;
-        callback(null);
+        const to = session.envelope.rcptTo.map((address) => address.address.toLowerCase());
+        parseMessage(Buffer.concat(chunks)).then(
+          (parsed) => {
+            received.unshift({ id: crypto.randomUUID(), receivedAt: new Date().toISOString(), to, ...parsed });
+            if (received.length > FAKE_MAILBOX_LIMIT) received.length = FAKE_MAILBOX_LIMIT;
+            callback(null);
+          },
+          (error: unknown) => callback(error instanceof Error ? error : new Error(String(error))),
+        );
       });
     },
   });

@@ -1,3 +1,4 @@
+import { vi } from "vitest";
 import type { ReceivedMail } from "@shared/schemas/dev-mail";
 import { fakeMailServer } from "../../server/mail/mailer";
 
@@ -8,13 +9,14 @@ import { fakeMailServer } from "../../server/mail/mailer";
 export async function waitForMail(to: string, subject: RegExp = /./, timeoutMs = 5_000): Promise<ReceivedMail> {
   const server = await fakeMailServer();
   if (!server) throw new Error("SMTP_URL is set, so there is no local fake mail server to read");
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const found = server.messages().find((message) => message.to.includes(to.toLowerCase()) && subject.test(message.subject));
-    if (found) return found;
-    if (Date.now() > deadline) throw new Error(`no e-mail to ${to} matching ${subject} arrived within ${timeoutMs} ms`);
-    await new Promise((resolve) => setTimeout(resolve, 50));
-  }
+  return vi.waitFor(
+    () => {
+      const found = server.messages().find((message) => message.to.includes(to.toLowerCase()) && subject.test(message.subject));
+      if (!found) throw new Error(`no e-mail to ${to} matching ${subject} arrived within ${timeoutMs} ms`);
+      return found;
+    },
+    { timeout: timeoutMs, interval: 50 },
+  );
 }
 
 /** Every message received for `to`, newest first. */
