@@ -51,7 +51,7 @@ export const approveProposalSchema = z.discriminatedUnion("target", [
     templateId: z.uuid({ error: "Pick the template this lesson updates." }),
     changeNote: changeNoteSchema,
   }),
-]);
+], { error: "Choose whether it becomes a new template or the next version of one." });
 export type ApproveProposalInput = z.infer<typeof approveProposalSchema>;
 
 /** Body of POST /api/shelf/proposals/:id/decline: the teacher is told why. */

@@ -1,9 +1,8 @@
-import { Link, Route, Routes, useLocation, useParams, useSearchParams } from "react-router-dom";
+import { Link, Navigate, Route, Routes, useLocation, useParams, useSearchParams } from "react-router-dom";
 import { useCurrentTeacher } from "@/features/account/api/get-current-teacher";
 import { ProposalsPanel } from "@/features/department-shelf/components/proposals-panel";
 import { ShelfTemplatesPanel } from "@/features/department-shelf/components/shelf-templates-panel";
 import { TemplateDetailPanel } from "@/features/department-shelf/components/template-detail-panel";
-import { ColleaguesPanel } from "@/features/invitations/components/colleagues-panel";
 import { Alert } from "@/components/ui/alert";
 import { PageHeader } from "@/components/ui/page-header";
 import { NotFoundRoute } from "./not-found";
@@ -11,7 +10,6 @@ import { NotFoundRoute } from "./not-found";
 const sections = [
   { to: "/app/shelf", label: "Templates", matches: (path: string) => path === "/app/shelf" || path.startsWith("/app/shelf/templates") },
   { to: "/app/shelf/proposals", label: "Proposals", matches: (path: string) => path.startsWith("/app/shelf/proposals") },
-  { to: "/app/shelf/colleagues", label: "Colleagues", matches: (path: string) => path.startsWith("/app/shelf/colleagues") },
 ];
 
 function TemplateRoute({ isHead }: { isHead: boolean }) {
@@ -21,7 +19,7 @@ function TemplateRoute({ isHead }: { isHead: boolean }) {
   return <TemplateDetailPanel key={id} templateId={id} version={Number.isInteger(version) && version > 0 ? version : null} isHead={isHead} />;
 }
 
-/** The Department shelf: templates, proposals and the department's colleagues (with invitations for the head). */
+/** The Department shelf: templates and proposals (colleagues and invitations are on the Department page). */
 export function DepartmentShelfRoute() {
   const teacher = useCurrentTeacher();
   const location = useLocation();
@@ -72,7 +70,8 @@ export function DepartmentShelfRoute() {
         <Route index element={<ShelfTemplatesPanel isHead={isHead} />} />
         <Route path="templates/:id" element={<TemplateRoute isHead={isHead} />} />
         <Route path="proposals" element={<ProposalsPanel isHead={isHead} />} />
-        <Route path="colleagues" element={<ColleaguesPanel isHead={isHead} />} />
+        {/* Colleagues moved to their own page; old links and bookmarks land there. */}
+        <Route path="colleagues" element={<Navigate to="/app/department" replace />} />
         <Route path="*" element={<NotFoundRoute inShell />} />
       </Routes>
     </>
