@@ -20,8 +20,27 @@ type StoredItem = { what: string; detail: string; kept: string; seenBy: string }
 
 function StoredTable({ caption, items }: { caption: string; items: StoredItem[] }) {
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full min-w-[36rem] border-collapse text-left text-sm sm:text-base">
+    <>
+      {/* On a phone each row reads as a short card instead of a table that scrolls sideways. */}
+      <ul aria-label={caption} className="flex flex-col gap-3 sm:hidden">
+        {items.map((item) => (
+          <li key={item.what} className="rounded-xl border-2 border-line bg-white p-3">
+            <p className="font-bold">{item.what}</p>
+            <p className="text-ink-soft">{item.detail}</p>
+            <dl className="mt-2 grid gap-1">
+              <div>
+                <dt className="inline font-bold">Kept: </dt>
+                <dd className="inline">{item.kept}</dd>
+              </div>
+              <div>
+                <dt className="inline font-bold">Who can see it: </dt>
+                <dd className="inline">{item.seenBy}</dd>
+              </div>
+            </dl>
+          </li>
+        ))}
+      </ul>
+      <table className="hidden w-full border-collapse text-left sm:table">
         <caption className="sr-only">{caption}</caption>
         <thead>
           <tr className="border-b-2 border-line">
@@ -43,7 +62,7 @@ function StoredTable({ caption, items }: { caption: string; items: StoredItem[] 
           ))}
         </tbody>
       </table>
-    </div>
+    </>
   );
 }
 
