@@ -114,6 +114,9 @@ describe("the head of department's queue and Department page in chromium", () =>
 
     await priya.getByRole("link", { name: "Decide on the proposals" }).click();
     await priya.waitForURL(`${appUrl}/app/shelf/proposals`);
+    const proposalsTab = priya.getByRole("navigation", { name: "Department shelf" }).getByRole("link", { name: /^Proposals/ });
+    const tabCount = async () => Number((await proposalsTab.textContent())?.match(/\d+/)?.[0] ?? 0);
+    await expect.poll(tabCount).toBe(before + 1);
     const card = priya.getByRole("listitem").filter({ has: priya.getByRole("heading", { name: title }) });
     const decision = card.getByRole("group", { name: "Your decision" });
     await decision.waitFor();
@@ -124,6 +127,7 @@ describe("the head of department's queue and Department page in chromium", () =>
     await card.getByRole("button", { name: "Decline" }).click();
     await priya.getByRole("heading", { name: `Waiting for your decision (${before})` }).waitFor();
     await expect.poll(() => navCount(priya)).toBe(before);
+    await expect.poll(tabCount).toBe(before);
     await priya.close();
     await tomasz.close();
   });

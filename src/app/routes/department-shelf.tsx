@@ -1,5 +1,6 @@
 import { Link, Navigate, Route, Routes, useLocation, useParams, useSearchParams } from "react-router-dom";
 import { useCurrentTeacher } from "@/features/account/api/get-current-teacher";
+import { useWaitingProposals } from "@/features/department-shelf/api/get-waiting-proposals";
 import { ProposalsPanel } from "@/features/department-shelf/components/proposals-panel";
 import { ShelfTemplatesPanel } from "@/features/department-shelf/components/shelf-templates-panel";
 import { TemplateDetailPanel } from "@/features/department-shelf/components/template-detail-panel";
@@ -25,6 +26,8 @@ export function DepartmentShelfRoute() {
   const location = useLocation();
   const role = teacher.data?.role ?? null;
   const isHead = role === "head";
+  const waiting = useWaitingProposals(isHead);
+  const waitingCount = isHead ? (waiting.data?.waiting ?? 0) : 0;
   if (!role) {
     return (
       <>
@@ -60,6 +63,12 @@ export function DepartmentShelfRoute() {
                 >
                   {active && <span aria-hidden="true" className="mr-1 inline-block h-2 w-2 rounded-full bg-tide" />}
                   {section.label}
+                  {section.label === "Proposals" && waitingCount > 0 && (
+                    <span className="relative ml-2 inline-flex min-w-6 items-center justify-center rounded-full bg-amber-400 px-1.5 text-sm text-ink">
+                      {waitingCount}
+                      <span className="sr-only">&nbsp;waiting</span>
+                    </span>
+                  )}
                 </Link>
               </li>
             );
