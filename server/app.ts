@@ -18,6 +18,7 @@ import { diceSetsRouter } from "./routes/dice-sets.routes";
 import { healthRouter } from "./routes/health.routes";
 import { lessonsRouter } from "./routes/lessons.routes";
 import { meRouter } from "./routes/me.routes";
+import { privacyRouter } from "./routes/privacy.routes";
 import { setFinderRouter } from "./routes/set-finder.routes";
 import { resultsRouter } from "./routes/results.routes";
 
@@ -68,6 +69,7 @@ export function createApp(options: AppOptions = {}) {
   app.use(express.json({ limit: "200kb" }));
   app.use("/api/health", healthRouter);
   app.use("/api/me", meRouter);
+  app.use("/api/privacy", privacyRouter);
   app.use("/api/departments", departmentsRouter);
   app.use("/api/dice-sets", diceSetsRouter);
   app.use("/api/set-finder", setFinderRouter);

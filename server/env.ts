@@ -26,6 +26,12 @@ const envSchema = z.object({
   ROLL_BURST_PER_GROUP: z.coerce.number().int().positive().default(60),
   ROLL_BATCH_MS: z.coerce.number().int().min(0).max(200).default(15),
   BOARD_UPDATE_MS: z.coerce.number().int().min(50).max(5000).default(500),
+  // Department shelf: the hour (UTC) from which heads of department get the day's proposal digest, or "off".
+  PROPOSAL_DIGEST_HOUR_UTC: z.union([z.literal("off"), z.coerce.number().int().min(0).max(23)]).default(7),
+  // The privacy notice's controller: the school or organisation responsible for the data this Outroll holds.
+  PRIVACY_CONTROLLER_NAME: z.string().trim().min(2).max(200).optional(),
+  PRIVACY_CONTROLLER_EMAIL: z.email().optional(),
+  PRIVACY_CONTROLLER_ADDRESS: z.string().trim().min(2).max(500).optional(),
 });
 
 export type Env = z.infer<typeof envSchema> & { appOrigin: string; authSecret: string; projectRoot: string };

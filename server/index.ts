@@ -4,11 +4,13 @@ import { env } from "./env";
 import { createHttpServer } from "./http-server";
 import { logger } from "./logger";
 import { startMailDelivery, stopMailDelivery } from "./mail/mailer";
+import { scheduleProposalDigests } from "./services/proposal-digest.service";
 
 await runMigrations(pool);
 const mail = await startMailDelivery();
 
 const { server, io } = createHttpServer();
+const stopProposalDigests = scheduleProposalDigests();
 
 server.listen(env.PORT, env.HOST, () => {
   const address = server.address();
@@ -28,6 +30,7 @@ async function shutdown(signal: string) {
   logger.info({ signal }, "shutting down");
   const forced = setTimeout(() => process.exit(1), 10_000);
   forced.unref();
+  stopProposalDigests();
   io.close();
   server.close(async () => {
     await stopMailDelivery().catch(() => undefined);

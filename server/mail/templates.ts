@@ -80,3 +80,55 @@ export function passwordResetMail(input: { to: string; name: string; resetUrl: s
   );
   return { to: input.to, subject, text, html };
 }
+
+/** One waiting proposal as the digest lists it. */
+export type DigestProposal = { lessonTitle: string | null; proposedByName: string; note: string; createdAt: Date; isNew: boolean };
+
+const dayFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+
+/** The daily e-mail that tells a head of department which proposals wait for a decision on the Department shelf. */
+export function proposalDigestMail(input: {
+  to: string;
+  headName: string;
+  departmentName: string;
+  proposals: DigestProposal[];
+  proposalsUrl: string;
+}): OutgoingMail {
+  const count = input.proposals.length;
+  const fresh = input.proposals.filter((proposal) => proposal.isNew).length;
+  const waiting = count === 1 ? "1 proposal waits" : `${count} proposals wait`;
+  const subject = `${waiting} for your decision on the ${input.departmentName} shelf`;
+  const summary =
+    fresh === 0 ? "None is new since the last digest." : fresh === count ? "All of them are new since the last digest." : `${fresh} new since the last digest.`;
+  const line = (proposal: DigestProposal) =>
+    `${proposal.lessonTitle ?? "A lesson that was since deleted"}, proposed by ${proposal.proposedByName} on ${dayFormat.format(proposal.createdAt)}${proposal.isNew ? " (new)" : ""}`;
+  const text = [
+    `Hello ${input.headName},`,
+    ``,
+    `${waiting} for your decision on the Department shelf of ${input.departmentName}. ${summary}`,
+    ``,
+    ...input.proposals.flatMap((proposal) => [`- ${line(proposal)}`, ...(proposal.note ? [`  Note: ${proposal.note}`] : [])]),
+    ``,
+    `Read each lesson and approve or decline it here:`,
+    input.proposalsUrl,
+    ``,
+    `You get this digest at most once a day, only while proposals are waiting.`,
+  ].join("\n");
+  const items = input.proposals
+    .map(
+      (proposal) =>
+        `&bull; ${escapeHtml(line(proposal))}${proposal.note ? `<br><span style="color:#4a5a6a">Note: ${escapeHtml(proposal.note)}</span>` : ""}`,
+    )
+    .join("<br>");
+  const html = layout(
+    `${escapeHtml(waiting)} for your decision`,
+    [
+      `Hello ${escapeHtml(input.headName)},`,
+      `${escapeHtml(waiting)} for your decision on the Department shelf of <strong>${escapeHtml(input.departmentName)}</strong>. ${escapeHtml(summary)}`,
+      items,
+    ],
+    { label: "Decide on the proposals", url: input.proposalsUrl },
+    [`You get this digest at most once a day, only while proposals are waiting.`],
+  );
+  return { to: input.to, subject, text, html };
+}

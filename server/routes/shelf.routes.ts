@@ -16,6 +16,7 @@ import { parseBody, parseParams, parseQuery } from "../middleware/validate";
 import {
   approveProposal,
   copyTemplate,
+  countWaitingProposals,
   declineProposal,
   getTemplateDetail,
   listShelfProposals,
@@ -78,6 +79,10 @@ shelfRouter.post("/templates/:id/copy", member, async (req, res) => {
 
 shelfRouter.get("/proposals", member, async (req, res) => {
   res.json({ proposals: await listShelfProposals(currentTeacher(req)) });
+});
+
+shelfRouter.get("/proposals/waiting", member, async (req, res) => {
+  res.json(await countWaitingProposals(currentTeacher(req)));
 });
 
 shelfRouter.post("/proposals", requireRole("teacher"), async (req, res) => {

@@ -11,12 +11,14 @@ import type {
   TemplateDetail,
   TemplateStatus,
   TemplateSummary,
+  WaitingProposals,
 } from "@shared/schemas/shelf";
 import type { SetDie } from "@shared/schemas/dice-sets";
 import { db, type Executor } from "../db/client";
 import { findOwnedDiceSetByName, insertDiceSet } from "../db/queries/dice-sets";
 import { buildLessonSnapshot, findDiceSetReadableBy, findLessonById, insertLesson } from "../db/queries/lessons";
 import {
+  countPendingProposals,
   decideProposal,
   deleteProposal,
   findPendingProposalForLesson,
@@ -90,6 +92,7 @@ function summaryOf(row: TemplateWithCurrentVersion): TemplateSummary {
     changeNote: row.current.changeNote,
     publishedAt: row.current.publishedAt.toISOString(),
     publishedByName: row.publishedByName,
+    proposedByName: row.proposedByName,
     createdAt: row.template.createdAt.toISOString(),
   };
 }
@@ -115,6 +118,7 @@ async function detailOf(executor: Executor, teacher: TeacherContext, templateId:
       changeNote: shown.version.changeNote,
       publishedAt: shown.version.publishedAt.toISOString(),
       publishedByName: shown.publishedByName,
+      proposedByName: shown.proposedByName,
       snapshot: readSnapshot(shown.version.snapshot),
     },
   };
@@ -141,6 +145,7 @@ async function addVersion(
   templateId: string,
   snapshot: LessonSnapshot,
   changeNote: string,
+  proposedById: string | null = null,
 ) {
   const template = await lockTemplate(tx, templateId, departmentOf(teacher).id);
   if (!template) throw notFound("The template");
@@ -148,19 +153,26 @@ async function addVersion(
     throw new HttpError(409, "template_retired", "This template is retired; restore it before publishing a new version.");
   }
   const version = template.currentVersion + 1;
-  await insertTemplateVersion(tx, { templateId, version, changeNote, snapshot, publishedById: teacher.user.id });
+  await insertTemplateVersion(tx, { templateId, version, changeNote, snapshot, publishedById: teacher.user.id, proposedById });
   await setTemplateCurrentVersion(tx, templateId, version, snapshot.lesson.title);
   return version;
 }
 
-async function createTemplate(tx: Executor, teacher: TeacherContext, lessonId: string, snapshot: LessonSnapshot, changeNote: string) {
+async function createTemplate(
+  tx: Executor,
+  teacher: TeacherContext,
+  lessonId: string,
+  snapshot: LessonSnapshot,
+  changeNote: string,
+  proposedById: string | null = null,
+) {
   const template = await insertTemplate(tx, {
     departmentId: departmentOf(teacher).id,
     title: snapshot.lesson.title,
     sourceLessonId: lessonId,
     createdById: teacher.user.id,
   });
-  await insertTemplateVersion(tx, { templateId: template.id, version: 1, changeNote, snapshot, publishedById: teacher.user.id });
+  await insertTemplateVersion(tx, { templateId: template.id, version: 1, changeNote, snapshot, publishedById: teacher.user.id, proposedById });
   return template.id;
 }
 
@@ -289,6 +301,13 @@ export async function listShelfProposals(teacher: TeacherContext): Promise<Shelf
   return Promise.all(rows.map((row) => proposalOf(db, teacher, row)));
 }
 
+/** Proposals waiting for a decision: the department's for the head of department, a teacher's own for a teacher. */
+export async function countWaitingProposals(teacher: TeacherContext): Promise<WaitingProposals> {
+  const department = departmentOf(teacher);
+  if (teacher.role === "head") return { waiting: await countPendingProposals(db, department.id), scope: "department" };
+  return { waiting: await countPendingProposals(db, department.id, { proposedById: teacher.user.id }), scope: "mine" };
+}
+
 async function proposalById(executor: Executor, teacher: TeacherContext, proposalId: string) {
   const [row] = await listProposals(executor, departmentOf(teacher).id, { proposalId });
   if (!row) throw notFound("The proposal");
@@ -323,15 +342,18 @@ async function lockPendingProposal(tx: Executor, teacher: TeacherContext, propos
   return proposal;
 }
 
-/** The head approves: the lesson as it stands now goes on the shelf as a new template or as a template's next version. */
+/**
+ * The head approves: the lesson as it stands now goes on the shelf as a new template or as a template's next version,
+ * crediting the proposing teacher beside the head who published it.
+ */
 export async function approveProposal(teacher: TeacherContext, proposalId: string, input: ApproveProposalInput) {
   return db.transaction(async (tx) => {
     const proposal = await lockPendingProposal(tx, teacher, proposalId);
     const snapshot = await publishableSnapshot(tx, proposal.lessonId);
     const templateId =
       input.target === "new"
-        ? await createTemplate(tx, teacher, proposal.lessonId, snapshot, input.changeNote)
-        : (await addVersion(tx, teacher, input.templateId, snapshot, input.changeNote), input.templateId);
+        ? await createTemplate(tx, teacher, proposal.lessonId, snapshot, input.changeNote, proposal.proposedById)
+        : (await addVersion(tx, teacher, input.templateId, snapshot, input.changeNote, proposal.proposedById), input.templateId);
     await decideProposal(tx, proposalId, { status: "approved", decidedById: teacher.user.id, decisionNote: input.changeNote });
     return { proposal: await proposalById(tx, teacher, proposalId), template: await detailOf(tx, teacher, templateId) };
   });

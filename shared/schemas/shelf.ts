@@ -51,7 +51,7 @@ export const approveProposalSchema = z.discriminatedUnion("target", [
     templateId: z.uuid({ error: "Pick the template this lesson updates." }),
     changeNote: changeNoteSchema,
   }),
-]);
+], { error: "Choose whether it becomes a new template or the next version of one." });
 export type ApproveProposalInput = z.infer<typeof approveProposalSchema>;
 
 /** Body of POST /api/shelf/proposals/:id/decline: the teacher is told why. */
@@ -87,11 +87,20 @@ export type TemplateSummary = {
   changeNote: string;
   publishedAt: string;
   publishedByName: string;
+  /** The teacher whose approved proposal the current version is; null when the head published their own lesson. */
+  proposedByName: string | null;
   createdAt: string;
 };
 
 /** One version in a template's history (newest first in the API). */
-export type TemplateVersionSummary = { version: number; changeNote: string; publishedAt: string; publishedByName: string };
+export type TemplateVersionSummary = {
+  version: number;
+  changeNote: string;
+  publishedAt: string;
+  publishedByName: string;
+  /** Credit for the teacher whose approved proposal this version is; null for the head's own publication. */
+  proposedByName: string | null;
+};
 
 /** GET /api/shelf/templates/:id and …/versions/:version: the template, its history and one version's frozen lesson. */
 export type TemplateDetail = {
@@ -119,3 +128,6 @@ export type ShelfProposal = {
   /** The lesson as it stands now, for the head to read before deciding (pending proposals only). */
   preview: LessonSnapshot | null;
 };
+
+/** GET /api/shelf/proposals/waiting: the head's count is the department's queue, a teacher's their own waiting proposals. */
+export type WaitingProposals = { waiting: number; scope: "department" | "mine" };

@@ -36,6 +36,7 @@ export const router = createBrowserRouter([
       { path: "/forgot-password", lazy: page(() => import("./routes/forgot-password"), "ForgotPasswordRoute") },
       { path: "/reset-password", lazy: page(() => import("./routes/reset-password"), "ResetPasswordRoute") },
       { path: "/dev/mail", lazy: page(() => import("./routes/dev-mail"), "DevMailRoute") },
+      { path: "/privacy", lazy: page(() => import("./routes/privacy"), "PrivacyRoute") },
       {
         path: "/app",
         element: <AppLayout />,
@@ -55,6 +56,8 @@ export const router = createBrowserRouter([
           { path: "lessons/:id/print", lazy: page(() => import("./routes/lesson-print"), "LessonPrintRoute") },
           // Department shelf
           { path: "shelf/*", lazy: page(() => import("./routes/department-shelf"), "DepartmentShelfRoute") },
+          // Department: colleagues and invitations
+          { path: "department", lazy: page(() => import("./routes/department"), "DepartmentRoute") },
           // Class runs
           { path: "runs/*", lazy: page(() => import("./routes/class-runs"), "ClassRunsRoute") },
           // Results

@@ -39,7 +39,7 @@ describe("the app shell in chromium", () => {
     await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe(`Welcome, ${teacher.name.split(" ")[0]}`);
     const nav = page.getByRole("navigation", { name: "Product areas" });
     const labels = await nav.getByRole("link").allTextContents();
-    expect(labels).toEqual(["Dice bench", "Set finder", "Lessons", "Department shelf", "Class runs", "Results"]);
+    expect(labels).toEqual(["Dice bench", "Set finder", "Lessons", "Department shelf", "Class runs", "Results", "Department"]);
     await page.getByText("Teacher · Maths, Harbourside Academy").waitFor();
     await screenshot(page, "app-home-laptop");
 

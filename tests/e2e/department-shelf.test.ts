@@ -44,10 +44,9 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
 
   it("lets the head of department invite a colleague, and the invitation e-mail reaches the fake mail server", async () => {
     const page = await signInThroughUi(laptop.context, appUrl, head.email, demoPassword);
-    await page.getByRole("navigation", { name: "Product areas" }).getByRole("link", { name: "Department shelf" }).click();
-    await page.waitForURL(`${appUrl}/app/shelf`);
-    await page.getByRole("navigation", { name: "Department shelf" }).getByRole("link", { name: "Colleagues" }).click();
-    await page.waitForURL(`${appUrl}/app/shelf/colleagues`);
+    await page.getByRole("navigation", { name: "Product areas" }).getByRole("link", { name: "Department", exact: true }).click();
+    await page.waitForURL(`${appUrl}/app/department`);
+    await page.getByRole("heading", { name: "Maths, Harbourside Academy" }).waitFor();
 
     await page.getByRole("button", { name: "Send invitation" }).click();
     await page.getByText("Enter an e-mail address such as name@school.test.").waitFor();
@@ -170,12 +169,20 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
     await page.getByRole("heading", { name: "Waiting for your decision (1)" }).waitFor();
     await page.getByText("Four fewer groups suits a small set.").waitFor();
     await page.getByText("Read the lesson as it stands").click();
+    // Nothing is decided beforehand: no choice is ticked and neither form is shown until the head picks one.
+    const decision = page.getByRole("group", { name: "Your decision" });
+    expect(await decision.getByRole("radio", { checked: true }).count()).toBe(0);
+    expect(await page.getByRole("button", { name: "Approve and publish" }).count()).toBe(0);
     await screenshot(page, "shelf-proposals-head-laptop");
 
+    await decision.getByText("Approve").click();
+    expect(await page.getByRole("group", { name: "Publish it as" }).getByRole("radio", { checked: true }).count()).toBe(0);
+    await page.getByRole("button", { name: "Approve and publish" }).click();
+    await page.getByText("Choose whether it becomes a new template or the next version of one.").waitFor();
+    await page.getByText("The next version of a template").click();
     await page.getByRole("button", { name: "Approve and publish" }).click();
     await page.getByText("Write a change note of a few words", { exact: false }).waitFor();
     await page.getByLabel("Change note").fill("Smaller classes: four fewer groups, from Morgan's copy");
-    await page.getByText("The next version of a template").click();
     await page.getByLabel("Template it updates").selectOption({ label: `${demoTemplates[0].lessonTitle} (now version 2)` });
     await page.getByRole("button", { name: "Approve and publish" }).click();
     await page.getByRole("heading", { name: "Waiting for your decision (0)" }).waitFor();
@@ -185,6 +192,8 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
     const card = page.getByRole("listitem").filter({ hasText: demoTemplates[0].lessonTitle });
     await card.getByText("Version 3").waitFor();
     await card.getByText("Smaller classes: four fewer groups", { exact: false }).waitFor();
+    // The new version credits the teacher whose proposal it was, beside the head who published it.
+    await card.getByText(/Proposed by Morgan Tideswell, published by Priya Castellanos/).waitFor();
     await screenshot(page, "shelf-after-approval-laptop");
     await page.close();
   });

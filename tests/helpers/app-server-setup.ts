@@ -41,7 +41,17 @@ export async function setup(project: TestProject) {
   const databaseUrl = base.replace(/\/[^/]+$/, `/${name}`);
   const port = await freePort();
   const appUrl = `http://127.0.0.1:${port}`;
-  const env = { ...process.env, DATABASE_URL: databaseUrl, PORT: String(port), APP_ORIGIN: appUrl, NODE_ENV: "test" };
+  const env = {
+    ...process.env,
+    DATABASE_URL: databaseUrl,
+    PORT: String(port),
+    APP_ORIGIN: appUrl,
+    NODE_ENV: "test",
+    // The privacy notice's controller, as an operator would set it (the demo school's own invented address).
+    PRIVACY_CONTROLLER_NAME: "Harbourside Academy",
+    PRIVACY_CONTROLLER_EMAIL: "privacy@harbourside.test",
+    PRIVACY_CONTROLLER_ADDRESS: "Data protection lead, Harbourside Academy, Quay Road",
+  };
   execFileSync("node", ["--import", "tsx", "seed/index.ts"], { stdio: "inherit", env });
   server = spawn("node", ["--import", "tsx", "server/index.ts"], { env, stdio: ["ignore", "inherit", "inherit"] });
   const deadline = Date.now() + 60_000;

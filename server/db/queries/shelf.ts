@@ -9,8 +9,13 @@ export type TemplateRow = typeof lessonTemplate.$inferSelect;
 export type TemplateVersionRow = typeof lessonTemplateVersion.$inferSelect;
 export type ProposalRow = typeof shelfProposal.$inferSelect;
 
-/** A template with its current version's row and the name of who published that version. */
-export type TemplateWithCurrentVersion = { template: TemplateRow; current: TemplateVersionRow; publishedByName: string };
+/** A template with its current version's row, who published that version and whose proposal it was (if any). */
+export type TemplateWithCurrentVersion = {
+  template: TemplateRow;
+  current: TemplateVersionRow;
+  publishedByName: string;
+  proposedByName: string | null;
+};
 
 export async function insertTemplate(
   executor: Executor,
@@ -25,7 +30,15 @@ export async function insertTemplate(
 
 export async function insertTemplateVersion(
   executor: Executor,
-  values: { templateId: string; version: number; changeNote: string; snapshot: LessonSnapshot; publishedById: string },
+  values: {
+    templateId: string;
+    version: number;
+    changeNote: string;
+    snapshot: LessonSnapshot;
+    publishedById: string;
+    /** The teacher whose approved proposal this version is, when it came from one. */
+    proposedById?: string | null;
+  },
 ): Promise<TemplateVersionRow> {
   const [row] = await executor
     .insert(lessonTemplateVersion)
@@ -58,6 +71,7 @@ export async function setTemplateStatus(executor: Executor, id: string, status: 
 }
 
 const publisher = alias(user, "publisher");
+const versionProposer = alias(user, "version_proposer");
 
 /** A department's templates in one status, each with its current version, newest change first. */
 export async function listTemplates(
@@ -66,13 +80,14 @@ export async function listTemplates(
   status: TemplateStatus,
 ): Promise<TemplateWithCurrentVersion[]> {
   return executor
-    .select({ template: lessonTemplate, current: lessonTemplateVersion, publishedByName: publisher.name })
+    .select({ template: lessonTemplate, current: lessonTemplateVersion, publishedByName: publisher.name, proposedByName: versionProposer.name })
     .from(lessonTemplate)
     .innerJoin(
       lessonTemplateVersion,
       and(eq(lessonTemplateVersion.templateId, lessonTemplate.id), eq(lessonTemplateVersion.version, lessonTemplate.currentVersion)),
     )
     .innerJoin(publisher, eq(lessonTemplateVersion.publishedById, publisher.id))
+    .leftJoin(versionProposer, eq(lessonTemplateVersion.proposedById, versionProposer.id))
     .where(and(eq(lessonTemplate.departmentId, departmentId), eq(lessonTemplate.status, status)))
     .orderBy(desc(lessonTemplateVersion.publishedAt), asc(lessonTemplate.title));
 }
@@ -80,13 +95,14 @@ export async function listTemplates(
 /** One template of one department with its current version, or null. */
 export async function findTemplate(executor: Executor, id: string, departmentId: string): Promise<TemplateWithCurrentVersion | null> {
   const [row] = await executor
-    .select({ template: lessonTemplate, current: lessonTemplateVersion, publishedByName: publisher.name })
+    .select({ template: lessonTemplate, current: lessonTemplateVersion, publishedByName: publisher.name, proposedByName: versionProposer.name })
     .from(lessonTemplate)
     .innerJoin(
       lessonTemplateVersion,
       and(eq(lessonTemplateVersion.templateId, lessonTemplate.id), eq(lessonTemplateVersion.version, lessonTemplate.currentVersion)),
     )
     .innerJoin(publisher, eq(lessonTemplateVersion.publishedById, publisher.id))
+    .leftJoin(versionProposer, eq(lessonTemplateVersion.proposedById, versionProposer.id))
     .where(and(eq(lessonTemplate.id, id), eq(lessonTemplate.departmentId, departmentId)))
     .limit(1);
   return row ?? null;
@@ -100,9 +116,11 @@ export async function listTemplateVersions(executor: Executor, templateId: strin
       changeNote: lessonTemplateVersion.changeNote,
       publishedAt: lessonTemplateVersion.publishedAt,
       publishedByName: publisher.name,
+      proposedByName: versionProposer.name,
     })
     .from(lessonTemplateVersion)
     .innerJoin(publisher, eq(lessonTemplateVersion.publishedById, publisher.id))
+    .leftJoin(versionProposer, eq(lessonTemplateVersion.proposedById, versionProposer.id))
     .where(eq(lessonTemplateVersion.templateId, templateId))
     .orderBy(desc(lessonTemplateVersion.version));
 }
@@ -110,9 +128,10 @@ export async function listTemplateVersions(executor: Executor, templateId: strin
 /** One version of a template with its snapshot and publisher's name, or null. */
 export async function findTemplateVersion(executor: Executor, templateId: string, version: number) {
   const [row] = await executor
-    .select({ version: lessonTemplateVersion, publishedByName: publisher.name })
+    .select({ version: lessonTemplateVersion, publishedByName: publisher.name, proposedByName: versionProposer.name })
     .from(lessonTemplateVersion)
     .innerJoin(publisher, eq(lessonTemplateVersion.publishedById, publisher.id))
+    .leftJoin(versionProposer, eq(lessonTemplateVersion.proposedById, versionProposer.id))
     .where(and(eq(lessonTemplateVersion.templateId, templateId), eq(lessonTemplateVersion.version, version)))
     .limit(1);
   return row ?? null;
@@ -197,4 +216,15 @@ export async function listProposals(executor: Executor, departmentId: string, fi
     .where(and(...conditions))
     .orderBy(sql`(${shelfProposal.status} = 'pending') desc`, desc(sql`coalesce(${shelfProposal.decidedAt}, ${shelfProposal.createdAt})`))
     .limit(100);
+}
+
+/** How many proposals wait for a decision in a department (or, with `proposedById`, how many of one teacher's). */
+export async function countPendingProposals(executor: Executor, departmentId: string, filter: { proposedById?: string } = {}) {
+  const conditions = [eq(shelfProposal.departmentId, departmentId), eq(shelfProposal.status, "pending")];
+  if (filter.proposedById) conditions.push(eq(shelfProposal.proposedById, filter.proposedById));
+  const [row] = await executor
+    .select({ waiting: sql<number>`count(*)::int` })
+    .from(shelfProposal)
+    .where(and(...conditions));
+  return row?.waiting ?? 0;
 }

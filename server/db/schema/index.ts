@@ -9,5 +9,6 @@ export { invitation } from "./invitations";
 export { diceSet } from "./dice-sets";
 export { lesson } from "./lessons";
 export { lessonTemplate, lessonTemplateVersion, shelfProposal } from "./lesson-templates";
+export { proposalDigest } from "./proposal-digests";
 export { lessonAttachment } from "./lesson-attachments";
 export { classRun, runGroup, guessVote, paperImport, roll } from "./class-runs";

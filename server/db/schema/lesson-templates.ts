@@ -37,6 +37,8 @@ export const lessonTemplateVersion = pgTable(
     publishedById: text("published_by_id")
       .notNull()
       .references(() => user.id),
+    // The teacher whose approved proposal this version came from, credited beside the head who published it.
+    proposedById: text("proposed_by_id").references(() => user.id, { onDelete: "set null" }),
     publishedAt: timestamp("published_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (table) => [uniqueIndex("lesson_template_version_template_version_idx").on(table.templateId, table.version)],

@@ -2,7 +2,7 @@ import type { ReactNode } from "react";
 import { Link } from "react-router-dom";
 import { Logo } from "@/components/ui/logo";
 
-/** The frame around the sign-in and sign-up forms. */
+/** The frame around the sign-in and sign-up forms, with the privacy notice linked below. */
 export function AccountPage({ title, children, footer }: { title: string; children: ReactNode; footer: ReactNode }) {
   return (
     <div className="flex min-h-dvh flex-col items-center bg-sand px-4 py-10">
@@ -15,6 +15,12 @@ export function AccountPage({ title, children, footer }: { title: string; childr
         {children}
         <div className="mt-6 border-t-2 border-line pt-4 text-ink-soft">{footer}</div>
       </main>
+      {/* Sign-up and joining collect a teacher's name and address: what happens to them is one tap away. */}
+      <footer className="mt-6 text-sm">
+        <Link to="/privacy" className="font-bold text-tide underline">
+          Privacy notice
+        </Link>
+      </footer>
     </div>
   );
 }

@@ -1,9 +1,9 @@
-import { Link, Route, Routes, useLocation, useParams, useSearchParams } from "react-router-dom";
+import { Link, Navigate, Route, Routes, useLocation, useParams, useSearchParams } from "react-router-dom";
 import { useCurrentTeacher } from "@/features/account/api/get-current-teacher";
+import { useWaitingProposals } from "@/features/department-shelf/api/get-waiting-proposals";
 import { ProposalsPanel } from "@/features/department-shelf/components/proposals-panel";
 import { ShelfTemplatesPanel } from "@/features/department-shelf/components/shelf-templates-panel";
 import { TemplateDetailPanel } from "@/features/department-shelf/components/template-detail-panel";
-import { ColleaguesPanel } from "@/features/invitations/components/colleagues-panel";
 import { Alert } from "@/components/ui/alert";
 import { PageHeader } from "@/components/ui/page-header";
 import { NotFoundRoute } from "./not-found";
@@ -11,7 +11,6 @@ import { NotFoundRoute } from "./not-found";
 const sections = [
   { to: "/app/shelf", label: "Templates", matches: (path: string) => path === "/app/shelf" || path.startsWith("/app/shelf/templates") },
   { to: "/app/shelf/proposals", label: "Proposals", matches: (path: string) => path.startsWith("/app/shelf/proposals") },
-  { to: "/app/shelf/colleagues", label: "Colleagues", matches: (path: string) => path.startsWith("/app/shelf/colleagues") },
 ];
 
 function TemplateRoute({ isHead }: { isHead: boolean }) {
@@ -21,12 +20,14 @@ function TemplateRoute({ isHead }: { isHead: boolean }) {
   return <TemplateDetailPanel key={id} templateId={id} version={Number.isInteger(version) && version > 0 ? version : null} isHead={isHead} />;
 }
 
-/** The Department shelf: templates, proposals and the department's colleagues (with invitations for the head). */
+/** The Department shelf: templates and proposals (colleagues and invitations are on the Department page). */
 export function DepartmentShelfRoute() {
   const teacher = useCurrentTeacher();
   const location = useLocation();
   const role = teacher.data?.role ?? null;
   const isHead = role === "head";
+  const waiting = useWaitingProposals(isHead);
+  const waitingCount = isHead ? (waiting.data?.waiting ?? 0) : 0;
   if (!role) {
     return (
       <>
@@ -62,6 +63,12 @@ export function DepartmentShelfRoute() {
                 >
                   {active && <span aria-hidden="true" className="mr-1 inline-block h-2 w-2 rounded-full bg-tide" />}
                   {section.label}
+                  {section.label === "Proposals" && waitingCount > 0 && (
+                    <span className="relative ml-2 inline-flex min-w-6 items-center justify-center rounded-full bg-amber-400 px-1.5 text-sm text-ink">
+                      {waitingCount}
+                      <span className="sr-only">&nbsp;waiting</span>
+                    </span>
+                  )}
                 </Link>
               </li>
             );
@@ -72,7 +79,8 @@ export function DepartmentShelfRoute() {
         <Route index element={<ShelfTemplatesPanel isHead={isHead} />} />
         <Route path="templates/:id" element={<TemplateRoute isHead={isHead} />} />
         <Route path="proposals" element={<ProposalsPanel isHead={isHead} />} />
-        <Route path="colleagues" element={<ColleaguesPanel isHead={isHead} />} />
+        {/* Colleagues moved to their own page; old links and bookmarks land there. */}
+        <Route path="colleagues" element={<Navigate to="/app/department" replace />} />
         <Route path="*" element={<NotFoundRoute inShell />} />
       </Routes>
     </>

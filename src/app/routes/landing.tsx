@@ -66,6 +66,11 @@ export function LandingRoute() {
           </div>
         </section>
       </main>
+      <footer className="mx-auto max-w-6xl px-4 py-6 sm:px-8">
+        <Link to="/privacy" className="font-bold text-sand underline">
+          Privacy notice
+        </Link>
+      </footer>
     </div>
   );
 }

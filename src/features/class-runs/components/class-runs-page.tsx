@@ -117,7 +117,10 @@ export function ClassRunsPage() {
       <div className="mb-6 max-w-3xl">
         <Alert tone="caution" title="Before you start">
           Pupils need only a browser on the same network as Outroll: no app and no account. Ask each group for a made-up
-          nickname; Outroll stores nicknames and rolls, nothing about the pupils themselves.
+          nickname; Outroll stores nicknames and rolls, nothing about the pupils themselves, until you delete the run.{" "}
+          <Link to="/privacy" className="font-bold underline">
+            Privacy notice
+          </Link>
         </Alert>
       </div>
       <section aria-labelledby="open-heading" className="mb-8 flex flex-col gap-3">

@@ -17,17 +17,20 @@ import { useApproveProposal } from "../api/approve-proposal";
 import { useDeclineProposal } from "../api/decline-proposal";
 import { useTemplates } from "../api/list-templates";
 
-type ApproveValues = { target: "new" | "version"; templateId: string; changeNote: string };
+type ApproveValues = { target: "new" | "version" | null; templateId: string; changeNote: string };
 
-/** The head's decision on one proposal: publish it (new template or next version of one) or decline it with a note. */
+/**
+ * The head's decision on one proposal: publish it (new template or next version of one) or decline it with a note.
+ * Nothing is chosen beforehand: the head picks Approve or Decline, and for an approval what it becomes.
+ */
 export function ProposalDecision({ proposal }: { proposal: ShelfProposal }) {
-  const [mode, setMode] = useState<"approve" | "decline">("approve");
+  const [mode, setMode] = useState<"approve" | "decline" | null>(null);
   const templates = useTemplates("published");
   const approve = useApproveProposal();
   const decline = useDeclineProposal();
   const approveForm = useForm<ApproveValues>({
     resolver: zodResolver(approveProposalSchema) as never,
-    defaultValues: { target: "new", templateId: "", changeNote: "" },
+    defaultValues: { target: null, templateId: "", changeNote: "" },
   });
   const declineForm = useForm<DeclineProposalInput>({ resolver: zodResolver(declineProposalSchema), defaultValues: { note: "" } });
   const target = approveForm.watch("target");
@@ -39,8 +42,9 @@ export function ProposalDecision({ proposal }: { proposal: ShelfProposal }) {
 
   return (
     <div className="flex flex-col gap-4">
-      <ChoiceGroup
+      <ChoiceGroup<"approve" | "decline">
         legend="Your decision"
+        hint={mode === null ? "Choose one to go on; nothing is decided until you press its button." : undefined}
         value={mode}
         onChange={setMode}
         options={[
@@ -48,7 +52,7 @@ export function ProposalDecision({ proposal }: { proposal: ShelfProposal }) {
           { value: "decline", label: "Decline" },
         ]}
       />
-      {mode === "approve" ? (
+      {mode === "approve" && (
         <form
           noValidate
           aria-label={`Approve “${proposal.lessonTitle ?? "lesson"}”`}
@@ -60,10 +64,11 @@ export function ProposalDecision({ proposal }: { proposal: ShelfProposal }) {
               {approve.error.message}
             </Alert>
           )}
-          <ChoiceGroup<ApproveValues["target"]>
+          <ChoiceGroup<"new" | "version">
             legend="Publish it as"
             value={target}
-            onChange={(value) => approveForm.setValue("target", value)}
+            error={(approveErrors as { target?: { message?: string } }).target?.message}
+            onChange={(value) => approveForm.setValue("target", value, { shouldValidate: approveForm.formState.isSubmitted })}
             options={[
               { value: "new", label: "A new template" },
               { value: "version", label: "The next version of a template" },
@@ -80,7 +85,7 @@ export function ProposalDecision({ proposal }: { proposal: ShelfProposal }) {
           <TextArea
             label="Change note"
             rows={2}
-            placeholder={target === "new" ? "e.g. First version, from Tomasz's 9M lesson" : "What this version changes"}
+            placeholder={target === "version" ? "What this version changes" : "e.g. First version, from Tomasz's 9M lesson"}
             {...approveForm.register("changeNote")}
             error={approveErrors.changeNote?.message}
           />
@@ -90,7 +95,8 @@ export function ProposalDecision({ proposal }: { proposal: ShelfProposal }) {
             </Button>
           </div>
         </form>
-      ) : (
+      )}
+      {mode === "decline" && (
         <form
           noValidate
           aria-label={`Decline “${proposal.lessonTitle ?? "lesson"}”`}

@@ -50,8 +50,13 @@ export function TemplateDetailPanel({ templateId, version, isHead }: { templateI
           <div className="mt-2 flex flex-wrap items-center gap-2">
             <VersionBadge version={shown.version} retired={retired} />
             <span className="text-ink-soft">
-              {isCurrent ? "Current version" : `An older version; the current one is version ${summary.currentVersion}`} · published by{" "}
-              {shown.publishedByName} on {shelfDate(shown.publishedAt)}
+              {isCurrent ? "Current version" : `An older version; the current one is version ${summary.currentVersion}`} ·{" "}
+              {shown.proposedByName && (
+                <>
+                  proposed by <span className="font-bold text-ink">{shown.proposedByName}</span>,{" "}
+                </>
+              )}
+              published by {shown.publishedByName} on {shelfDate(shown.publishedAt)}
             </span>
           </div>
         </div>
@@ -114,7 +119,8 @@ export function TemplateDetailPanel({ templateId, version, isHead }: { templateI
                     </p>
                     <p className="mt-1">{entry.changeNote}</p>
                     <p className="mt-1 text-sm text-ink-soft">
-                      {entry.publishedByName}, {shelfDate(entry.publishedAt)}
+                      {entry.proposedByName ? `Proposed by ${entry.proposedByName}, published by ${entry.publishedByName}` : entry.publishedByName},{" "}
+                      {shelfDate(entry.publishedAt)}
                     </p>
                     {!here && (
                       <Link

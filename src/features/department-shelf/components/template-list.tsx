@@ -34,7 +34,16 @@ export function TemplateList({ templates, emptyText }: { templates: TemplateSumm
             <span className="font-bold">Latest change:</span> {template.changeNote}
           </p>
           <p className="mt-auto text-sm text-ink-soft">
-            Published by {template.publishedByName} on {shelfDate(template.publishedAt)}
+            {template.proposedByName ? (
+              <>
+                Proposed by <span className="font-bold text-ink">{template.proposedByName}</span>, published by {template.publishedByName} on{" "}
+                {shelfDate(template.publishedAt)}
+              </>
+            ) : (
+              <>
+                Published by {template.publishedByName} on {shelfDate(template.publishedAt)}
+              </>
+            )}
           </p>
         </li>
       ))}
