@@ -83,6 +83,9 @@ export function classRunView(run: ClassRunRecord, viewerId: string | null): Clas
     configuredOrigin: env.APP_ORIGIN ?? null,
     currentTally: run.currentTally,
     tallies: talliesOf(run),
+    hideExactUntilProve: run.hideExactUntilProve,
+    discussionPrompts: run.discussionPrompts,
+    exitTicket: run.exitTicket,
     boardVersion: run.boardVersion,
     ownerId: run.ownerId,
     isOwner: run.ownerId === viewerId,
@@ -173,6 +176,9 @@ export function runValuesFromLesson(lesson: LessonForRun, plan: LessonPlan, owne
     status: "open" as const,
     currentTally: 1,
     tallies,
+    hideExactUntilProve: plan.hideExactUntilProve,
+    discussionPrompts: plan.discussionPrompts,
+    exitTicket: plan.exitTicket,
   };
 }
 

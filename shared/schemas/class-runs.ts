@@ -140,6 +140,7 @@ export type ClassRun = {
   lessonId: string | null;
   diceSetName: string;
   dice: SetDie[];
+  /** The mode rolls are recorded in now (the Twist's once it starts); the run's main mode is `tallies[0]`. */
   dicePerPlayer: number;
   players: number;
   tieRule: "re-roll-ties" | "ties-score-half" | "ties-score-nothing";
@@ -153,7 +154,13 @@ export type ClassRun = {
   /** APP_ORIGIN when the server was given one (the address phones can reach); otherwise null and the browser's own is used. */
   configuredOrigin: string | null;
   currentTally: number;
+  /** Every tally so far; the first is the run's main mode (the lesson's own), a second is the Twist. */
   tallies: RunTally[];
+  /** Copied from the lesson when the run opened: the Wall view shows no exact value before the Prove phase. */
+  hideExactUntilProve: boolean;
+  /** The lesson's discussion prompts and exit ticket, copied when the run opened, for the Wall view's Reflect phase. */
+  discussionPrompts: string[];
+  exitTicket: string;
   boardVersion: number;
   ownerId: string;
   /** Whether the teacher asking opened this run (board updates pushed to every watcher say false; compare ownerId instead). */

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { bigint, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { bigint, boolean, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { SetDie } from "@shared/schemas/dice-sets";
 import { organization } from "./departments";
 import { lesson } from "./lessons";
@@ -37,6 +37,10 @@ export const classRun = pgTable(
     currentTally: integer("current_tally").notNull().default(1),
     // The mode of every tally so far, so a roll recorded offline under an earlier tally is still checked against its own mode.
     tallies: jsonb("tallies").$type<ClassRunTally[]>().notNull().default([]),
+    // Copied from the lesson when the run opens, so later lesson edits never change what the Wall shows of this run.
+    hideExactUntilProve: boolean("hide_exact_until_prove").notNull().default(true),
+    discussionPrompts: jsonb("discussion_prompts").$type<string[]>().notNull().default([]),
+    exitTicket: text("exit_ticket").notNull().default(""),
     // Bumped on every change the Run board shows but a new roll (the board adds the run's roll rows), so a board can tell a stale snapshot from a fresh one.
     boardVersion: bigint("board_version", { mode: "number" }).notNull().default(0),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
