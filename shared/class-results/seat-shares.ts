@@ -1,4 +1,4 @@
-import type { TieRule } from "../probability/index";
+import { wilsonIntervalFromProportion, type ProportionInterval, type TieRule } from "../probability/index";
 import { cycleMatchups } from "./assigned-matchups";
 import { seatFrequencyUnderTieRule, type ExactValue, type PooledMatchup } from "./pooled-results";
 
@@ -15,6 +15,8 @@ export interface SeatShare {
   share: number | null;
   /** The die's exact share under the same tie rule; null when every roll ties under "re-roll ties". */
   exact: ExactValue | null;
+  /** Wilson 95% score interval around `share` over the rolls that count, as the pooled first seat's (`PooledMatchup.interval`); null while none counts. */
+  interval: ProportionInterval | null;
 }
 
 /**
@@ -46,6 +48,8 @@ export function seatShares(entry: PooledMatchup, tieRule: TieRule, dieOrder: rea
     const seat = entry.matchup.indexOf(dieIndex);
     if (seat < 0) throw new RangeError(`Die ${dieIndex} does not play in the matchup ${entry.label}.`);
     const counts = entry.seats[seat];
+    const share = seatFrequencyUnderTieRule(counts, entry.rolls, entry.decidedRolls, tieRule);
+    const counted = tieRule === "re-roll-ties" ? entry.decidedRolls : entry.rolls;
     return {
       seat,
       dieIndex,
@@ -53,8 +57,9 @@ export function seatShares(entry: PooledMatchup, tieRule: TieRule, dieOrder: rea
       wins: counts.wins,
       ties: counts.ties,
       losses: counts.losses,
-      share: seatFrequencyUnderTieRule(counts, entry.rolls, entry.decidedRolls, tieRule),
+      share,
       exact: entry.exact.seatsUnderTieRule[seat],
+      interval: share === null || counted === 0 ? null : wilsonIntervalFromProportion(share, counted),
     };
   });
 }
