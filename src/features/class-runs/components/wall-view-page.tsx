@@ -26,25 +26,48 @@ function modeText(tally: Pick<RunTally, "dicePerPlayer" | "players">) {
 
 type Ordering = (entry: PooledMatchup) => number[];
 
-/** One matchup as a big line, dice in the pads' order: whose share the class found, and its one exact value (or where it will come). */
-function MatchupLine({ entry, run, order, showExact, compact = false }: { entry: PooledMatchup; run: ClassRun; order: Ordering; showExact: boolean; compact?: boolean }) {
+/**
+ * One matchup as a big line, dice in the pads' order: whose share the class found, and its one exact value (or where it
+ * will come). Compact lines (beside the join panel, or two tallies side by side) keep each part to one line.
+ */
+function MatchupLine({
+  entry,
+  run,
+  order,
+  showExact,
+  compact = false,
+  showLabel = true,
+}: {
+  entry: PooledMatchup;
+  run: ClassRun;
+  order: Ordering;
+  showExact: boolean;
+  compact?: boolean;
+  showLabel?: boolean;
+}) {
   const shares = seatShares(entry, run.tieRule, order(entry));
   const [lead] = shares;
   const meaning = shareMeanings[run.tieRule];
   const big = compact ? "text-3xl" : "text-4xl";
   const exactLabel = run.tieRule === "ties-score-nothing" ? "Exact" : `Exact under the tie rule (${tieRuleLabels[run.tieRule].toLowerCase()})`;
+  const exactText = lead.exact ? `${lead.exact.fraction} ≈ ${lead.exact.decimal}` : "every roll ties";
   return (
-    <li className={`grid items-baseline gap-x-6 gap-y-2 border-b-2 border-white/25 py-3 ${compact ? "" : "xl:grid-cols-[minmax(0,1.2fr)_minmax(0,1.4fr)_minmax(0,1fr)]"}`} data-testid="wall-matchup">
-      <span className={`${big} font-bold`}>
-        {shares.map((share) => share.dieName).join(" v ")}
-        <span className="block text-xl font-normal text-white/80">{entry.rolls} rolls</span>
-      </span>
+    <li
+      className={`grid items-baseline gap-x-6 border-b-2 border-white/25 ${compact ? "gap-y-1 py-2" : "gap-y-2 py-3 xl:grid-cols-[minmax(0,1.2fr)_minmax(0,1.4fr)_minmax(0,1fr)]"}`}
+      data-testid="wall-matchup"
+    >
+      {showLabel && (
+        <span className={`${big} font-bold`}>
+          {shares.map((share) => share.dieName).join(" v ")}
+          <span className={`${compact ? "ml-3 inline" : "block"} text-xl font-normal text-white/80`}>{entry.rolls} rolls</span>
+        </span>
+      )}
       <span className={`${big} tabular-nums`} data-testid="wall-share">
         {lead.dieName} {meaning.verb} <strong>{decimal(lead.share)}</strong> <span className="text-2xl">{meaning.of}</span>
       </span>
-      <span className={`${big} tabular-nums`} data-testid="wall-exact">
-        <span className="block text-xl text-white/80">{exactLabel}</span>
-        {showExact ? (lead.exact ? `${lead.exact.fraction} ≈ ${lead.exact.decimal}` : "every roll ties") : <span className="text-2xl text-white/80">Shown in Prove</span>}
+      <span className={`${compact ? "text-2xl" : big} tabular-nums`} data-testid="wall-exact">
+        <span className={`${compact ? "mr-3 inline" : "block"} text-xl text-white/80`}>{exactLabel}</span>
+        {showExact ? exactText : <span className="text-white/80">Shown in Prove</span>}
       </span>
     </li>
   );
@@ -150,7 +173,7 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
         </div>
         {proved && (
           <ul>
-            <MatchupLine entry={proved} run={run} order={order} showExact={showExact} />
+            <MatchupLine entry={proved} run={run} order={order} showExact={showExact} showLabel={false} />
           </ul>
         )}
         <TreeDiagramFigure
