@@ -26,7 +26,7 @@ function MatchupCard({ entry, tieRule, dieOrder }: { entry: PooledMatchup; tieRu
   const headings = shareHeadings(tieRule);
   const label = shares.map((share) => share.dieName).join(" v ");
   return (
-    <article className="rounded-2xl border-2 border-line bg-shell p-4" aria-labelledby={`matchup-${entry.key}`}>
+    <article className="min-w-0 rounded-2xl border-2 border-line bg-shell p-4" aria-labelledby={`matchup-${entry.key}`}>
       <header className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
         <h3 id={`matchup-${entry.key}`} className="text-xl">
           {label}
