@@ -77,3 +77,37 @@ export function shareSentence(dieName: string, share: number | null, tieRule: Ti
   const meaning = shareMeanings[tieRule];
   return `${dieName} ${meaning.verb} ${share.toFixed(3)} ${meaning.of}`;
 }
+
+/**
+ * A two-player matchup seen from the die in `seat`: seats reordered so that die comes first, its share under the tie rule,
+ * exact value, interval and convergence series (1 − the first seat's, the band mirrored). Only where one die's share is the
+ * other's complement: two players under "re-roll ties" or "ties score half"; otherwise (and for seat 0) the entry as it is.
+ */
+export function matchupFromSeat(entry: PooledMatchup, tieRule: TieRule, seat: number): PooledMatchup {
+  if (seat === 0 || entry.players !== 2 || tieRule === "ties-score-nothing") return entry;
+  const [shared] = seatShares(entry, tieRule, [entry.matchup[seat]]);
+  const flip = (value: number | null) => (value === null ? null : 1 - value);
+  return {
+    ...entry,
+    matchup: [entry.matchup[1], entry.matchup[0]],
+    label: `${entry.seats[1].dieName} v ${entry.seats[0].dieName}`,
+    seats: [entry.seats[1], entry.seats[0]],
+    frequency: entry.rolls ? entry.seats[1].wins / entry.rolls : 0,
+    frequencyUnderTieRule: shared.share,
+    interval: shared.interval,
+    exact: {
+      ...entry.exact,
+      win: entry.exact.seatWins[1],
+      loss: entry.exact.seatWins[0],
+      underTieRule: shared.exact,
+      seatWins: [entry.exact.seatWins[1], entry.exact.seatWins[0]],
+      seatsUnderTieRule: [entry.exact.seatsUnderTieRule[1], entry.exact.seatsUnderTieRule[0]],
+    },
+    convergence: entry.convergence.map((point) => ({
+      rolls: point.rolls,
+      frequency: flip(point.frequency),
+      bandLower: flip(point.bandUpper),
+      bandUpper: flip(point.bandLower),
+    })),
+  };
+}

@@ -1,7 +1,7 @@
 import Fraction from "fraction.js";
 import { describe, expect, it } from "vitest";
 import { type PoolableRoll, poolRolls } from "@shared/class-results/pooled-results";
-import { padDieOrder, seatShares, shareSentence } from "@shared/class-results/seat-shares";
+import { matchupFromSeat, padDieOrder, seatShares, shareSentence } from "@shared/class-results/seat-shares";
 import { TIE_RULES, type TieRule, wilsonInterval } from "@shared/probability/index";
 
 // Invented dice for hand-worked examples.
@@ -105,6 +105,37 @@ describe("seatShares", () => {
     const [puffin] = seatShares(pooled.matchups[0], "re-roll-ties");
     expect(puffin.share).toBeNull();
     expect(puffin.interval).toBeNull();
+  });
+});
+
+describe("matchupFromSeat", () => {
+  const rolls = [roll([1, 0], [2, 1]), roll([1, 0], [2, 3]), roll([1, 0], [3, 3]), roll([1, 0], [3, 1]), roll([1, 0], [2, 3]), roll([1, 0], [3, 1])];
+
+  it("turns a two-player matchup round to the second die: its share, exact value and running series", () => {
+    for (const tieRule of ["re-roll-ties", "ties-score-half"] as const) {
+      const [entry] = poolRolls({ dice, tieRule, rolls }).matchups;
+      const turned = matchupFromSeat(entry, tieRule, 1);
+      const [gannet] = seatShares(entry, tieRule, [1]);
+      expect(turned.label).toBe("Gannet v Puffin");
+      expect(turned.seats[0].dieName).toBe("Gannet");
+      expect(turned.frequencyUnderTieRule).toBe(gannet.share);
+      expect(turned.exact.underTieRule).toEqual(gannet.exact);
+      // Gannet's running share is Puffin's complement at every roll, and the band around its exact value mirrors Puffin's.
+      expect(turned.convergence.at(-1)?.frequency).toBeCloseTo(gannet.share!, 12);
+      turned.convergence.forEach((point, index) => {
+        const original = entry.convergence[index];
+        expect(point.frequency === null).toBe(original.frequency === null);
+        if (point.frequency !== null) expect(point.frequency + original.frequency!).toBeCloseTo(1, 12);
+        if (point.bandLower !== null) expect(point.bandLower + original.bandUpper!).toBeCloseTo(1, 12);
+      });
+    }
+  });
+
+  it("leaves the matchup as it is where one die's share is not the other's complement", () => {
+    const [nothing] = poolRolls({ dice, tieRule: "ties-score-nothing", rolls }).matchups;
+    expect(matchupFromSeat(nothing, "ties-score-nothing", 1)).toBe(nothing);
+    const [three] = poolRolls({ dice, tieRule: "re-roll-ties", rolls: [roll([0, 1, 2], [3, 2, 0])] }).matchups;
+    expect(matchupFromSeat(three, "re-roll-ties", 2)).toBe(three);
   });
 });
 

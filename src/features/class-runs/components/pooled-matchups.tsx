@@ -1,5 +1,5 @@
 import type { PooledMatchup, PooledResults } from "@shared/class-results/pooled-results";
-import { padDieOrder, seatShares, shareSentence } from "@shared/class-results/seat-shares";
+import { matchupFromSeat, padDieOrder, seatShares, shareSentence } from "@shared/class-results/seat-shares";
 import { tieRuleLabels } from "@shared/schemas/lessons";
 import type { TieRule } from "@shared/probability/index";
 import { ConvergenceChart } from "./convergence-chart";
@@ -79,7 +79,7 @@ function MatchupCard({ entry, tieRule, dieOrder }: { entry: PooledMatchup; tieRu
         {tieRule === "ties-score-nothing" ? "exact" : "exact under the tie rule"} {lead.exact ? `${lead.exact.fraction} ≈ ${lead.exact.decimal}` : "none: every roll ties"}
       </p>
       <div className="mt-3">
-        <ConvergenceChart entry={entry} tieRule={tieRule} />
+        <ConvergenceChart entry={matchupFromSeat(entry, tieRule, lead.seat)} tieRule={tieRule} />
       </div>
     </article>
   );

@@ -1,7 +1,7 @@
 import { useState } from "react";
 import { Link } from "react-router-dom";
 import type { PooledMatchup, PooledResults } from "@shared/class-results/pooled-results";
-import { padDieOrder, seatShares, shareMeanings } from "@shared/class-results/seat-shares";
+import { matchupFromSeat, padDieOrder, seatShares, shareMeanings } from "@shared/class-results/seat-shares";
 import { runPhaseHints, type BoardSnapshot, type ClassRun, type RunTally } from "@shared/schemas/class-runs";
 import { LESSON_PHASES, tieRuleLabels } from "@shared/schemas/lessons";
 import { treeDiagram } from "@shared/probability/index";
@@ -191,7 +191,9 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
     main = (
       <div className="grid gap-8 xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <TallyLines pooled={pooled} run={run} order={order} showExact={showExact} compact />
-        {charted && <ConvergenceChart entry={charted} tieRule={pooled.tieRule} large showExact={showExact} />}
+        {charted && (
+          <ConvergenceChart entry={matchupFromSeat(charted, run.tieRule, charted.matchup.indexOf(order(charted)[0]))} tieRule={pooled.tieRule} large showExact={showExact} />
+        )}
       </div>
     );
   } else {
