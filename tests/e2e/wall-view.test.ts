@@ -85,6 +85,7 @@ describe("the Wall view tells the lesson's story in order", () => {
     await wall.getByRole("heading", { name: "Pool", exact: true }).waitFor();
     await wall.getByRole("img", { name: /^Convergence chart/ }).waitFor();
     await expect(wall.locator("body").innerText()).resolves.not.toMatch(/\d+\/\d+/);
+    await wallShots(wall, "pool");
 
     await moveTo(board.request, runId, "Prove");
     await wall.getByTestId("tree-totals").waitFor();
