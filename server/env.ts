@@ -32,6 +32,15 @@ const envSchema = z.object({
   PRIVACY_CONTROLLER_NAME: z.string().trim().min(2).max(200).optional(),
   PRIVACY_CONTROLLER_EMAIL: z.email().optional(),
   PRIVACY_CONTROLLER_ADDRESS: z.string().trim().min(2).max(500).optional(),
+  // Abuse limits (docs/operations.md): figures a class of 30 groups behind one school address never reaches.
+  JOINS_PER_CONNECTION_PER_MINUTE: z.coerce.number().int().positive().default(10),
+  JOINS_PER_RUN_PER_MINUTE: z.coerce.number().int().positive().default(120),
+  CODE_GUESSES_PER_CONNECTION_PER_MINUTE: z.coerce.number().int().positive().default(10),
+  CODE_GUESSES_PER_ADDRESS_PER_MINUTE: z.coerce.number().int().positive().default(100),
+  ROLL_CEILING_PER_RUN: z.coerce.number().int().positive().default(20_000),
+  // A run with no change and no roll for this long closes itself (0 keeps runs open); the sweep runs every RUN_IDLE_SWEEP_SECONDS.
+  RUN_IDLE_CLOSE_MINUTES: z.coerce.number().min(0).default(180),
+  RUN_IDLE_SWEEP_SECONDS: z.coerce.number().int().min(1).default(300),
 });
 
 export type Env = z.infer<typeof envSchema> & { appOrigin: string; authSecret: string; projectRoot: string };

@@ -72,8 +72,9 @@ function recordedOn(record: ResultsRunListRecord): RecordedOn {
   return live === 0 ? "paper" : "phones and paper";
 }
 
-/** A run as the archive lists it. */
+/** A run as the archive lists it: labelled by its main mode (the first tally's), with a Twist as a second tally. */
 export function runSummary(record: ResultsRunListRecord, viewerId: string): ResultsRunSummary {
+  const [main, twist] = runTallies(record);
   return {
     id: record.id,
     title: record.title,
@@ -82,8 +83,9 @@ export function runSummary(record: ResultsRunListRecord, viewerId: string): Resu
     diceSetName: record.diceSetName,
     setKey: diceSetKey(record.dice),
     dieNames: record.dice.map((die) => die.name),
-    dicePerPlayer: record.dicePerPlayer,
-    players: record.players,
+    dicePerPlayer: main.dicePerPlayer,
+    players: main.players,
+    twist: twist ?? null,
     tieRule: record.tieRule,
     taughtAt: record.createdAt.toISOString(),
     closedAt: record.closedAt?.toISOString() ?? null,
@@ -107,6 +109,11 @@ export async function listResultsRuns(teacher: TeacherContext, query: ResultsLis
 export function runTallies(run: Pick<ResultsRunListRecord, "tallies" | "dicePerPlayer" | "players">): ResultsTally[] {
   if (run.tallies.length > 0) return run.tallies.map(({ tally, dicePerPlayer, players }) => ({ tally, dicePerPlayer, players }));
   return [{ tally: 1, dicePerPlayer: run.dicePerPlayer, players: run.players }];
+}
+
+/** A run's main mode: its first tally's (a Twist changes the run's current mode, never its main one). */
+export function mainMode(run: Pick<ResultsRunListRecord, "tallies" | "dicePerPlayer" | "players">): ResultsTally {
+  return runTallies(run)[0];
 }
 
 /** A run the teacher may read, with its counts; 404 otherwise. */
@@ -139,14 +146,24 @@ export function poolableRoll(stored: StreamedRoll, nicknames: Map<string, string
 export async function poolRunRolls(
   runId: string,
   pools: RollPool[],
-  options: { includeSimulated: boolean; nicknames: Map<string, string>; dicePerPlayer?: number; mapMatchup?: (matchup: number[]) => number[] },
+  options: {
+    includeSimulated: boolean;
+    nicknames: Map<string, string>;
+    dicePerPlayer?: number;
+    players?: number;
+    mapMatchup?: (matchup: number[]) => number[];
+    /** A pool per tally number: each roll is also counted into its own tally's pool. */
+    byTally?: Map<number, RollPool>;
+  },
 ): Promise<Map<string, number>> {
   const perGroup = new Map<string, number>();
   for await (const batch of streamRunRolls(runId, { includeSimulated: options.includeSimulated })) {
     for (const stored of batch) {
       if (options.dicePerPlayer !== undefined && stored.dicePerPlayer !== options.dicePerPlayer) continue;
+      if (options.players !== undefined && stored.matchup.length !== options.players) continue;
       const entry = poolableRoll(stored, options.nicknames, options.mapMatchup);
       for (const pool of pools) pool.addOne(entry);
+      options.byTally?.get(stored.tally)?.addOne(entry);
       perGroup.set(stored.groupId, (perGroup.get(stored.groupId) ?? 0) + 1);
     }
   }
@@ -159,18 +176,24 @@ export async function getRunResults(teacher: TeacherContext, runId: string, incl
   const groups = await listRunGroups(db, runId);
   const nicknames = new Map(groups.map((group) => [group.id, group.nickname]));
   const pool = new RollPool(run.dice, run.tieRule as TieRule);
-  const rollsPerGroup = await poolRunRolls(runId, [pool], { includeSimulated, nicknames });
+  const tallies = runTallies(run);
+  const byTally = new Map(tallies.map((tally) => [tally.tally, new RollPool(run.dice, run.tieRule as TieRule)]));
+  const rollsPerGroup = await poolRunRolls(runId, [pool], { includeSimulated, nicknames, byTally });
   const pooled = pool.result();
+  const pooledByTally = tallies.map((tally) => ({ tally, pooled: byTally.get(tally.tally)!.result() }));
+  // The report's main matchup and findings come from the main tally; a Twist is reported beside it, not in its place.
+  const mainPooled = pooledByTally[0].pooled;
   const votes = await countGuessVotes(db, runId);
   const dieNames = run.dice.map((die) => die.name);
   return {
-    run: { ...runSummary(run, teacher.user.id), status: run.status, phases: run.phases, dice: run.dice, tallies: runTallies(run) },
+    run: { ...runSummary(run, teacher.user.id), status: run.status, phases: run.phases, dice: run.dice, tallies },
     includeSimulated,
     pooled,
-    mainMatchupKey: mainMatchup(pooled)?.key ?? null,
+    tallies: pooledByTally,
+    mainMatchupKey: mainMatchup(mainPooled)?.key ?? null,
     groups: groups.map((group) => ({ id: group.id, nickname: group.nickname, source: group.source, rolls: rollsPerGroup.get(group.id) ?? 0 })),
     guessVotes: dieNames.map((dieName, dieIndex) => ({ dieIndex, dieName, votes: votes.find((vote) => vote.dieIndex === dieIndex)?.votes ?? 0 })),
-    findings: classFindings(pooled, dieNames),
+    findings: classFindings(mainPooled, dieNames),
   };
 }
 
@@ -206,9 +229,9 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
   } else {
     const ofSet = visible.filter((run) => diceSetKey(run.dice) === query.setKey);
     if (ofSet.length === 0) throw new HttpError(404, "not_found", "None of the closed runs you can see used that set.");
-    // With only a set named, pool the runs that share the newest run's players and tie rule.
+    // With only a set named, pool the runs that share the newest run's main number of players and tie rule.
     const newest = ofSet[ofSet.length - 1];
-    chosen = ofSet.filter((run) => run.players === newest.players && run.tieRule === newest.tieRule);
+    chosen = ofSet.filter((run) => mainMode(run).players === mainMode(newest).players && run.tieRule === newest.tieRule);
   }
   const [reference] = chosen;
   const setKey = diceSetKey(reference.dice);
@@ -217,8 +240,12 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
     if (diceSetKey(run.dice) !== setKey) {
       throw new HttpError(400, "not_same_set", `“${run.title}” (${run.classGroup || "no class"}) used different dice from “${reference.title}”; only runs of the same set can be pooled.`);
     }
-    if (run.players !== reference.players) {
-      throw new HttpError(400, "not_same_mode", `“${run.title}” was played with ${run.players} players and “${reference.title}” with ${reference.players}; pool runs of one mode.`);
+    if (mainMode(run).players !== mainMode(reference).players) {
+      throw new HttpError(
+        400,
+        "not_same_mode",
+        `“${run.title}” was played with ${mainMode(run).players} players and “${reference.title}” with ${mainMode(reference).players}; pool runs of one mode.`,
+      );
     }
     if (run.tieRule !== reference.tieRule) {
       throw new HttpError(400, "not_same_tie_rule", `“${run.title}” and “${reference.title}” used different tie rules; pool runs with the same tie rule.`);
@@ -238,6 +265,7 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
       includeSimulated: query.includeSimulated,
       nicknames,
       dicePerPlayer: query.dicePerPlayer,
+      players: mainMode(reference).players,
       mapMatchup: (matchup) => matchup.map((index) => referenceIndexAt.get(positions[index])!),
     });
     const own = ownPool.result();
@@ -253,12 +281,12 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
     });
   }
   const candidates = visible
-    .filter((run) => diceSetKey(run.dice) === setKey && run.players === reference.players && run.tieRule === reference.tieRule)
+    .filter((run) => diceSetKey(run.dice) === setKey && mainMode(run).players === mainMode(reference).players && run.tieRule === reference.tieRule)
     .map((run) => runSummary(run, teacher.user.id));
   return {
     setKey,
     dicePerPlayer: query.dicePerPlayer,
-    players: reference.players,
+    players: mainMode(reference).players,
     tieRule,
     dice: reference.dice,
     pooled: everyRun.result(),

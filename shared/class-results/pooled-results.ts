@@ -76,6 +76,8 @@ export interface MatchupExact {
   underTieRule: ExactValue | null;
   /** Each seat's exact chance of the highest total outright. */
   seatWins: ExactValue[];
+  /** Each seat's exact share under the tie rule (`underTieRule` for the first seat); null when every roll ties under "re-roll ties". */
+  seatsUnderTieRule: (ExactValue | null)[];
 }
 
 /** The class's pooled results for one matchup (one ordered set of dice and one number of dice each). */
@@ -160,6 +162,8 @@ const WHOLE_NUMBER_TEST_BUDGET = 6_000;
 interface ExactFractions {
   seatWins: Fraction[];
   firstTie: Fraction;
+  /** Each seat's chance of sharing the highest total with another seat (`firstTie` is the first). */
+  seatTies: Fraction[];
   sharedHighest: Fraction;
 }
 
@@ -180,26 +184,28 @@ export function scoreUnderTieRule(totals: readonly number[], tieRule: TieRule): 
 function exactFractions(faces: number[][], dicePerPlayer: number): ExactFractions {
   const outcome = multiPlayerMatchup(faces, { dicePerPlayer });
   const distributions = faces.map((die) => sumCountDistribution(die, dicePerPlayer));
-  const [first, ...others] = distributions;
-  const sweeps = others.map((other) => countsBelow(other, first.values));
-  let shared = 0n;
-  first.counts.forEach((ways, index) => {
-    let atMost = ways;
-    let below = ways;
-    for (const sweep of sweeps) {
-      atMost *= sweep.below[index] + sweep.equal[index];
-      below *= sweep.below[index];
-    }
-    shared += atMost - below;
-  });
   const total = distributions.reduce((product, distribution) => product * distribution.total, 1n);
-  return { seatWins: outcome.highestOutright, firstTie: new Fraction(shared, total), sharedHighest: outcome.sharedHighest };
+  const seatTies = distributions.map((own, seat) => {
+    const sweeps = distributions.filter((_, other) => other !== seat).map((other) => countsBelow(other, own.values));
+    let shared = 0n;
+    own.counts.forEach((ways, index) => {
+      let atMost = ways;
+      let below = ways;
+      for (const sweep of sweeps) {
+        atMost *= sweep.below[index] + sweep.equal[index];
+        below *= sweep.below[index];
+      }
+      shared += atMost - below;
+    });
+    return new Fraction(shared, total);
+  });
+  return { seatWins: outcome.highestOutright, firstTie: seatTies[0], seatTies, sharedHighest: outcome.sharedHighest };
 }
 
-/** The first seat's exact winning chance under a tie rule, the same rules as `scoreUnderTieRule`. */
-function exactUnderTieRule(exact: ExactFractions, tieRule: TieRule): Fraction | null {
-  const win = exact.seatWins[0];
-  if (tieRule === "ties-score-half") return win.add(exact.firstTie.div(2));
+/** A seat's (the first by default) exact winning chance under a tie rule, the same rules as `scoreUnderTieRule`. */
+function exactUnderTieRule(exact: ExactFractions, tieRule: TieRule, seat = 0): Fraction | null {
+  const win = exact.seatWins[seat];
+  if (tieRule === "ties-score-half") return win.add(exact.seatTies[seat].div(2));
   if (tieRule === "ties-score-nothing") return win;
   const decided = new Fraction(1).sub(exact.sharedHighest);
   return decided.equals(0) ? null : win.div(decided);
@@ -275,6 +281,11 @@ function runningFrequency(wins: number, ties: number, rolls: number, decided: nu
   if (tieRule === "re-roll-ties") return decided === 0 ? null : wins / decided;
   if (tieRule === "ties-score-half") return rolls === 0 ? null : (wins + ties / 2) / rolls;
   return rolls === 0 ? null : wins / rolls;
+}
+
+/** Any seat's relative frequency under the tie rule from its counts (the same rules as the first seat's); null when no roll counts yet. */
+export function seatFrequencyUnderTieRule(seat: Pick<SeatCounts, "wins" | "ties">, rolls: number, decidedRolls: number, tieRule: TieRule): number | null {
+  return runningFrequency(seat.wins, seat.ties, rolls, decidedRolls, tieRule);
 }
 
 function frequencyUnder(seats: SeatCounts[], rolls: number, decided: number, tieRule: TieRule): number | null {
@@ -523,6 +534,10 @@ export class RollPool {
         sharedHighest: exactValue(exact.sharedHighest),
         underTieRule: underTieRule === null ? null : exactValue(underTieRule),
         seatWins: exact.seatWins.map(exactValue),
+        seatsUnderTieRule: exact.seatWins.map((_, seat) => {
+          const value = exactUnderTieRule(exact, tieRule, seat);
+          return value === null ? null : exactValue(value);
+        }),
       },
       interval,
       convergence,

@@ -89,6 +89,8 @@ const planFields = {
     .array(text("a prompt", 300).min(1, { error: "Write the prompt, or remove it." }))
     .max(LESSON_LIMITS.promptsMax, { error: `A lesson has at most ${LESSON_LIMITS.promptsMax} discussion prompts.` }),
   exitTicket: text("the exit ticket", 1000),
+  /** The Wall view keeps the exact chances back until the Prove phase, so the class judges its own figures first. Plans saved before the setting existed read as on. */
+  hideExactUntilProve: z.boolean({ error: "Say whether the Wall hides exact values until Prove." }).default(true),
   differentiation: z.object({ support: text("the support notes", 2000), stretch: text("the stretch notes", 2000) }),
 };
 
@@ -154,6 +156,7 @@ export function emptyLessonInput(): LessonInput {
     phases: LESSON_PHASES.map((phase) => ({ phase, included: true, minutes: 10, notes: "" })),
     discussionPrompts: [],
     exitTicket: "",
+    hideExactUntilProve: true,
     differentiation: { support: "", stretch: "" },
   };
 }

@@ -41,8 +41,11 @@ export type ResultsRunSummary = {
   /** Identifies the set by its dice faces (see `diceSetKey`); runs with equal keys can be pooled. */
   setKey: string;
   dieNames: string[];
+  /** The run's main mode: the lesson's own, its first tally's. */
   dicePerPlayer: number;
   players: number;
+  /** The Twist's tally and mode when the run had one, shown as a second tally; null otherwise. */
+  twist: ResultsTally | null;
   tieRule: string;
   /** The day the run was taught (its start). */
   taughtAt: string;
@@ -161,12 +164,15 @@ export type ResultsGroup = { id: string; nickname: string; source: "phone" | "si
 export type RunResults = {
   run: ResultsRunSummary & { status: "open" | "paused" | "closed"; phases: string[]; dice: ResultsDie[]; tallies: ResultsTally[] };
   includeSimulated: boolean;
+  /** Every tally's rolls pooled together (the group table and the convergence chart's choices). */
   pooled: PooledResults;
-  /** Key of the matchup with the most rolls (the report's "main matchup"), or null before any roll. */
+  /** Each tally pooled on its own: the main tally first, then the Twist. */
+  tallies: { tally: ResultsTally; pooled: PooledResults }[];
+  /** Key of the main tally's matchup with the most rolls (the report's "main matchup"), or null before any roll. */
   mainMatchupKey: string | null;
   groups: ResultsGroup[];
   guessVotes: GuessVoteCount[];
-  /** Two short plain-language sentences drawn from the pooled figures. */
+  /** Two short plain-language sentences drawn from the main tally's pooled figures. */
   findings: string[];
 };
 

@@ -15,8 +15,14 @@ import { RunStatusBadge } from "./run-status-badge";
 import { VirtualClassForm } from "./virtual-class-form";
 import { VotesVersusTruth } from "./votes-versus-truth";
 
+/** "one die each, two players". */
+function modeText(tally: Pick<RunTally, "dicePerPlayer" | "players">) {
+  return `${tally.dicePerPlayer === 2 ? "two dice each" : "one die each"}, ${tally.players === 3 ? "three players" : "two players"}`;
+}
+
+/** A tally by its part of the lesson: the first is the run's main mode, a later one its Twist. */
 export function tallyLabel(tally: RunTally) {
-  return `${tally.tally === 1 ? "First tally" : `Tally ${tally.tally} (Twist)`}: ${tally.dicePerPlayer === 2 ? "two dice each" : "one die each"}, ${tally.players === 3 ? "three players" : "two players"}`;
+  return `${tally.tally === 1 ? "Main tally" : "Twist"}: ${modeText(tally)}`;
 }
 
 const liveText: Record<LiveState, string> = { connecting: "Connecting…", live: "Live", reconnecting: "Reconnecting…" };
@@ -37,7 +43,8 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
   const shown = snapshot.tallies.find((entry) => entry.tally.tally === (tallyNumber ?? run.currentTally)) ?? snapshot.tallies.at(-1)!;
   const pooled = !withSimulated && shown.withoutSimulated ? shown.withoutSimulated : shown.pooled;
   const canManage = run.isOwner;
-  const first = run.tallies[0];
+  const [first, ...twists] = run.tallies;
+  const closed = run.status === "closed";
 
   const results = (
     <div className="flex flex-col gap-3">
@@ -51,7 +58,7 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
         {pooled.totals.rolls} rolls from {pooled.totals.groups} {pooled.totals.groups === 1 ? "group" : "groups"}
         {snapshot.undoneRolls > 0 ? ` · ${snapshot.undoneRolls} undone rolls left out` : ""}
       </p>
-      <PooledMatchups pooled={pooled} />
+      <PooledMatchups pooled={pooled} playedMatchups={snapshot.groups.map((group) => group.matchup)} diceCount={run.dice.length} />
     </div>
   );
 
@@ -59,11 +66,17 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
     <>
       <PageHeader
         title={run.title}
-        lead={`${run.classGroup ? `${run.classGroup} · ` : ""}${run.diceSetName} · ${first.dicePerPlayer === 2 ? "two dice each" : "one die each"}, ${first.players === 3 ? "three players" : "two players"} · ${tieRuleLabels[run.tieRule]}`}
+        lead={`${run.classGroup ? `${run.classGroup} · ` : ""}${run.diceSetName} · ${modeText(first)}${twists.map((tally) => ` · Twist: ${modeText(tally)}`).join("")} · ${tieRuleLabels[run.tieRule]}`}
         actions={
           <>
             <RunStatusBadge status={run.status} />
-            <LiveBadge live={live} />
+            {closed ? (
+              <Link to={`/app/results/${run.id}`} className="inline-flex min-h-11 items-center rounded-xl border-2 border-ink px-4 font-bold text-ink hover:bg-sand">
+                See the results
+              </Link>
+            ) : (
+              <LiveBadge live={live} />
+            )}
             <Link to={`/app/runs/${run.id}/wall`} target="_blank" className="inline-flex min-h-11 items-center rounded-xl bg-ink px-4 font-bold text-white hover:bg-ink-soft">
               Open the Wall view ↗
             </Link>
@@ -106,7 +119,11 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
             </section>
           ) : (
             <Alert tone="info" title="This run is closed">
-              It took its last roll{run.closedAt ? ` on ${new Date(run.closedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}. The results stay here.
+              It took its last roll{run.closedAt ? ` on ${new Date(run.closedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}. The figures stay on this board;{" "}
+              <Link to={`/app/results/${run.id}`} className="font-bold underline">
+                its results page
+              </Link>{" "}
+              has the class report and the downloads.
             </Alert>
           )}
           <section aria-labelledby="votes-heading" className="rounded-2xl border-2 border-line bg-shell p-4">

@@ -392,6 +392,15 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                     );
                   })}
                 </ol>
+                <div className="flex flex-col gap-1">
+                  <label className="flex min-h-11 items-center gap-2 font-bold">
+                    <input type="checkbox" className="h-5 w-5 accent-tide" aria-describedby="hide-exact-hint" {...register("hideExactUntilProve")} />
+                    Hide exact values on the Wall until Prove
+                  </label>
+                  <p id="hide-exact-hint" className="text-sm text-ink-soft">
+                    In Guess, Roll and Pool the Wall view shows only the class’s own figures; the exact chances appear from the Prove phase on. The Run board always shows them.
+                  </p>
+                </div>
               </Section>
 
               <Section title="Discussion prompts and exit ticket">
@@ -415,7 +424,7 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                     + Add a prompt
                   </Button>
                 )}
-                <TextArea label="Exit ticket" hint="One question each pupil answers before leaving." {...register("exitTicket")} error={errors.exitTicket?.message} />
+                <TextArea label="Exit ticket" hint="One question each pupil answers before leaving. The Wall view shows the prompts and the exit ticket in Reflect." {...register("exitTicket")} error={errors.exitTicket?.message} />
               </Section>
 
               <Section title="Differentiation">

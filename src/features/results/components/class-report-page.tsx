@@ -3,10 +3,9 @@ import { treeDiagram } from "@shared/probability/index";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { DieSwatch } from "@/components/dice/die-swatch";
-import { modeLabel } from "@/lib/probability-text";
 import { useRunResults } from "../api/get-run-results";
 import { ConvergenceChart } from "./convergence-chart";
-import { dayText, playersText, plural, tieRulePhrase, tieRuleText } from "./figures";
+import { dayText, plural, runModeText, tallyHeading, tieRulePhrase, tieRuleText } from "./figures";
 import { PooledTable } from "./pooled-table";
 import { TreeDiagramFigure } from "@/components/tree-diagram";
 
@@ -21,8 +20,8 @@ export function ClassReportPage({ runId, includeSimulated = true }: { runId: str
       </Alert>
     );
   }
-  const { run, pooled, findings, mainMatchupKey } = results.data;
-  const main = pooled.matchups.find((entry) => entry.key === mainMatchupKey) ?? null;
+  const { run, pooled, tallies, findings, mainMatchupKey } = results.data;
+  const main = tallies[0]?.pooled.matchups.find((entry) => entry.key === mainMatchupKey) ?? null;
   const [firstIndex, secondIndex] = main?.matchup ?? [];
   const tree = main && main.players === 2 ? treeDiagram(run.dice[firstIndex].faces, run.dice[secondIndex].faces, { dicePerPlayer: main.dicePerPlayer }) : null;
 
@@ -43,7 +42,7 @@ export function ClassReportPage({ runId, includeSimulated = true }: { runId: str
           {run.classGroup ? `Class ${run.classGroup}` : "No class"} · taught {dayText(run.taughtAt)} · {run.ownerName}
         </p>
         <p className="text-ink-soft">
-          {run.diceSetName}: {modeLabel(run.dicePerPlayer)}, {playersText(run.players)}, {tieRuleText(run.tieRule).toLowerCase()} · {plural(pooled.totals.rolls, "roll")} from{" "}
+          {run.diceSetName}: {runModeText(run)}, {tieRuleText(run.tieRule).toLowerCase()} · {plural(pooled.totals.rolls, "roll")} from{" "}
           {plural(pooled.totals.groups, "group")}
           {pooled.totals.bySource.simulated > 0 && ` (${pooled.totals.bySource.simulated} simulated)`}
         </p>
@@ -89,7 +88,20 @@ export function ClassReportPage({ runId, includeSimulated = true }: { runId: str
           Pooled results beside the exact values
         </h2>
         {pooled.matchups.length > 0 ? (
-          <PooledTable matchups={pooled.matchups} dice={run.dice} caption={`Each class estimate is the relative frequency of the first die of its matchup winning, ${tieRulePhrase(run.tieRule)}, beside the exact probability.`} />
+          <div className="flex flex-col gap-4">
+            {tallies
+              .filter((entry) => entry.pooled.matchups.length > 0)
+              .map((entry) => (
+                <div key={entry.tally.tally} className="break-inside-avoid">
+                  {tallies.length > 1 && <h3 className="mb-1 text-lg">{tallyHeading(entry.tally)}</h3>}
+                  <PooledTable
+                    matchups={entry.pooled.matchups}
+                    dice={run.dice}
+                    caption={`Each class estimate is the relative frequency of the first die of its matchup winning, ${tieRulePhrase(run.tieRule)}, beside the exact probability under the same tie rule.`}
+                  />
+                </div>
+              ))}
+          </div>
         ) : (
           <p>No rolls that count are stored for this run.</p>
         )}

@@ -1,4 +1,6 @@
 import { tieRuleLabels } from "@shared/schemas/lessons";
+import type { ResultsTally } from "@shared/schemas/results";
+import { modeLabel } from "@/lib/probability-text";
 
 /** A probability or frequency as three decimal places ("0.556"); a dash when there is none yet. */
 export function three(value: number | null | undefined): string {
@@ -34,4 +36,19 @@ const tieRulePhrases: Record<string, string> = {
 /** A tie rule as a phrase for sentences: "with ties re-rolled". */
 export function tieRulePhrase(rule: string): string {
   return tieRulePhrases[rule] ?? `under the rule ${rule}`;
+}
+
+/** "one die each, two players". */
+export function modeText(mode: Pick<ResultsTally, "dicePerPlayer" | "players">): string {
+  return `${modeLabel(mode.dicePerPlayer)}, ${playersText(mode.players)}`;
+}
+
+/** A run by its main mode, with its Twist as a second tally: "one die each, two players · Twist: two dice each, two players". */
+export function runModeText(run: Pick<ResultsTally, "dicePerPlayer" | "players"> & { twist: ResultsTally | null }): string {
+  return run.twist ? `${modeText(run)} · Twist: ${modeText(run.twist)}` : modeText(run);
+}
+
+/** A tally by its part of the lesson: "Main tally: one die each, two players" or "Twist: two dice each, two players". */
+export function tallyHeading(tally: ResultsTally): string {
+  return `${tally.tally === 1 ? "Main tally" : "Twist"}: ${modeText(tally)}`;
 }

@@ -9,7 +9,7 @@ import { modeLabel } from "@/lib/probability-text";
 import { usePooledResults } from "../api/get-pooled-results";
 import { useResultsRuns } from "../api/list-results-runs";
 import { ConvergenceChart } from "./convergence-chart";
-import { dayText, playersText, plural, three, tieRuleText } from "./figures";
+import { dayText, playersText, plural, runModeText, three, tieRuleText } from "./figures";
 import { PooledTable } from "./pooled-table";
 
 type SetChoice = { setKey: string; label: string; runs: ResultsRunSummary[] };
@@ -35,7 +35,11 @@ export function PoolingPage({ canSeeDepartment }: { canSeeDepartment: boolean })
   const ofSet = sets.find((entry) => entry.setKey === setKey)?.runs ?? [];
   const requested = params.get("runIds")?.split(",").filter(Boolean);
   const selected = requested ? ofSet.filter((run) => requested.includes(run.id)).map((run) => run.id) : ofSet.map((run) => run.id);
-  const dicePerPlayer = Number(params.get("dicePerPlayer") ?? ofSet[0]?.dicePerPlayer ?? 1) === 2 ? 2 : 1;
+  // Runs are listed by their main mode, so the default pools what the lessons were about; the Twist is the other choice.
+  const mainDice = ofSet[0]?.dicePerPlayer === 2 ? 2 : 1;
+  const dicePerPlayer = Number(params.get("dicePerPlayer") ?? mainDice) === 2 ? 2 : 1;
+  const modeNote = (dice: number) =>
+    dice === mainDice ? " (the main mode)" : ofSet.some((run) => run.twist?.dicePerPlayer === dice) ? " (the Twist)" : "";
   const pooled = usePooledResults({ scope, dicePerPlayer, runIds: selected, includeSimulated }, selected.length > 0);
 
   const update = (next: Record<string, string | null>) => {
@@ -91,8 +95,8 @@ export function PoolingPage({ canSeeDepartment }: { canSeeDepartment: boolean })
           value={String(dicePerPlayer) as "1" | "2"}
           onChange={(value) => update({ dicePerPlayer: value })}
           options={[
-            { value: "1", label: "One die each" },
-            { value: "2", label: "Two dice each" },
+            { value: "1", label: `One die each${modeNote(1)}` },
+            { value: "2", label: `Two dice each${modeNote(2)}` },
           ]}
         />
         {ofSet.length > 0 && (
@@ -106,7 +110,7 @@ export function PoolingPage({ canSeeDepartment }: { canSeeDepartment: boolean })
                     <span>
                       <span className="font-bold">{run.classGroup || "No class"}</span> · {run.title}
                       <span className="block text-sm text-ink-soft">
-                        {dayText(run.taughtAt)} · {plural(run.rollCount, "roll")} · {playersText(run.players)}, {tieRuleText(run.tieRule).toLowerCase()}
+                        {dayText(run.taughtAt)} · {plural(run.rollCount, "roll")} · {runModeText(run)}, {tieRuleText(run.tieRule).toLowerCase()}
                         {scope === "department" && ` · ${run.ownerName}`}
                       </span>
                     </span>

@@ -8,9 +8,8 @@ import { LinkButton } from "@/components/ui/link-button";
 import { PageHeader } from "@/components/ui/page-header";
 import { SelectField } from "@/components/ui/select-field";
 import { TextField } from "@/components/ui/text-field";
-import { modeLabel } from "@/lib/probability-text";
 import { useResultsRuns } from "../api/list-results-runs";
-import { dayText, playersText, plural } from "./figures";
+import { dayText, plural, runModeText } from "./figures";
 import { PupilDataNote } from "./pupil-data-note";
 import { SortableTable } from "@/components/ui/sortable-table";
 import { searchableTableFeatures } from "@/lib/table-features";
@@ -44,7 +43,7 @@ const columns = helper.columns([
       <span>
         {info.getValue()}
         <span className="block text-sm text-ink-soft">
-          {modeLabel(info.row.original.dicePerPlayer)}, {playersText(info.row.original.players)}
+          {runModeText(info.row.original)}
         </span>
       </span>
     ),

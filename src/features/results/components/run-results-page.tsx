@@ -4,12 +4,11 @@ import { Alert } from "@/components/ui/alert";
 import { LinkButton } from "@/components/ui/link-button";
 import { PageHeader } from "@/components/ui/page-header";
 import { SelectField } from "@/components/ui/select-field";
-import { modeLabel } from "@/lib/probability-text";
 import { useRunResults } from "../api/get-run-results";
 import { ConvergenceChart } from "./convergence-chart";
 import { DeleteRunButton } from "./delete-run-button";
 import { ExportDownloads } from "./export-downloads";
-import { dayText, playersText, plural, tieRulePhrase, tieRuleText } from "./figures";
+import { dayText, plural, runModeText, tallyHeading, tieRulePhrase, tieRuleText } from "./figures";
 import { GroupTable } from "./group-table";
 import { GuessVotes } from "./guess-votes";
 import { PooledTable } from "./pooled-table";
@@ -49,7 +48,7 @@ export function RunResultsPage({ runId }: { runId: string }) {
       </Alert>
     );
   }
-  const { run, pooled, groups, guessVotes, findings, mainMatchupKey } = results.data;
+  const { run, pooled, tallies, groups, guessVotes, findings, mainMatchupKey } = results.data;
   const chartKey = chosenKey && pooled.matchups.some((entry) => entry.key === chosenKey) ? chosenKey : mainMatchupKey;
   const chartMatchup = pooled.matchups.find((entry) => entry.key === chartKey) ?? null;
   const simulated = pooled.totals.bySource.simulated;
@@ -65,7 +64,7 @@ export function RunResultsPage({ runId }: { runId: string }) {
         title={run.title}
         lead={
           <>
-            {run.diceSetName} · {run.classGroup ? `class ${run.classGroup}` : "no class"} · taught {dayText(run.taughtAt)} · {modeLabel(run.dicePerPlayer)}, {playersText(run.players)} ·{" "}
+            {run.diceSetName} · {run.classGroup ? `class ${run.classGroup}` : "no class"} · taught {dayText(run.taughtAt)} · {runModeText(run)} ·{" "}
             {tieRuleText(run.tieRule).toLowerCase()}
             {!run.isOwner && <> · run by {run.ownerName}</>}
           </>
@@ -118,11 +117,24 @@ export function RunResultsPage({ runId }: { runId: string }) {
         {pooled.matchups.length === 0 ? (
           <p className="text-ink-soft">No rolls that count are stored for this run yet.</p>
         ) : (
-          <PooledTable
-            matchups={pooled.matchups}
-            dice={run.dice}
-            caption={`Each class estimate is the relative frequency of the first die of its matchup winning, ${tieRulePhrase(run.tieRule)}; the exact value is the probability of the same. Undone rolls are never counted.`}
-          />
+          <div className="flex flex-col gap-6">
+            {tallies
+              .filter((entry) => entry.tally.tally === 1 || entry.pooled.matchups.length > 0)
+              .map((entry) => (
+                <div key={entry.tally.tally} data-testid={`results-tally-${entry.tally.tally}`}>
+                  {tallies.length > 1 && <h3 className="mb-2 text-xl">{tallyHeading(entry.tally)}</h3>}
+                  {entry.pooled.matchups.length === 0 ? (
+                    <p className="text-ink-soft">No rolls that count in this tally.</p>
+                  ) : (
+                    <PooledTable
+                      matchups={entry.pooled.matchups}
+                      dice={run.dice}
+                      caption={`Each class estimate is the relative frequency of the first die of its matchup winning, ${tieRulePhrase(run.tieRule)}; the exact value beside it is the probability of the same, under the tie rule. Undone rolls are never counted.`}
+                    />
+                  )}
+                </div>
+              ))}
+          </div>
         )}
       </Section>
 
