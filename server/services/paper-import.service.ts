@@ -2,6 +2,7 @@ import { createHash } from "node:crypto";
 import { fileTypeFromBuffer } from "file-type";
 import Papa from "papaparse";
 import { v5 as uuidv5 } from "uuid";
+import { unescapeFormulaCell } from "@shared/results/csv-text";
 import { checkPaperImportHeader, checkPaperImportRows, type CheckedPaperRoll, type PaperImportRecord } from "@shared/results/paper-import-check";
 import { paperImportColumns, type PaperImportColumn } from "@shared/schemas/paper-import";
 import { PAPER_IMPORT_MAX_ROWS, type PaperImportOptions, type PaperImportResult, type ResultsTally } from "@shared/schemas/results";
@@ -63,7 +64,7 @@ function parseCsv(text: string, players: number): { records: PaperImportRecord[]
   const records: PaperImportRecord[] = [];
   lines.forEach((cells, index) => {
     if (cells.every((cell) => cell.trim() === "")) return;
-    const entries = (Object.entries(positions) as [PaperImportColumn, number][]).map(([column, position]) => [column, cells[position] ?? ""]);
+    const entries = (Object.entries(positions) as [PaperImportColumn, number][]).map(([column, position]) => [column, unescapeFormulaCell(cells[position] ?? "")]);
     records.push({ row: index + 2, cells: Object.fromEntries(entries) });
   });
   if (records.length === 0) throw invalidFile("The file has a header row but no rolls under it.");
