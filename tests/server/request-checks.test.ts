@@ -152,6 +152,12 @@ describe("uploads", () => {
     expect(response.status).toBe(400);
     expect(response.body.error.code).toBe("invalid_input");
     expect(response.body.error.message).toMatch(/cut off/);
+    const lessonId = await createLessonFor(tomasz.email);
+    const attachment = await tomaszAgent.request("POST", `/api/lessons/${lessonId}/attachments`, body.replace("sheets.csv", "worksheet.pdf"), {
+      "content-type": `multipart/form-data; boundary=${boundary}`,
+    });
+    expect(attachment.status).toBe(400);
+    expect(attachment.body.error.code).toBe("invalid_input");
   });
 
   it("reads Paper import files saved as UTF-16 (either byte order, with or without a byte order mark) and as UTF-8 with a byte order mark", async () => {
