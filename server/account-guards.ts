@@ -11,7 +11,7 @@ import { accountKey, accountSignInFailures } from "./sign-in-limits";
 /** Paths whose answer must not tell an existing account from an unknown address, by content or by time. */
 const STEADY_ANSWER_PATHS = new Set(["/api/auth/sign-up/email", "/api/auth/request-password-reset"]);
 /** Both answers of those paths wait until this long after the request arrived (longer than either path's own work). */
-export const STEADY_ANSWER_MS = 300;
+export const STEADY_ANSWER_MS = 500;
 
 const refuse = (code: string, message: string) => new APIError("BAD_REQUEST", { code, message });
 
