@@ -1,6 +1,6 @@
 import { APIError, createAuthMiddleware } from "better-auth/api";
 import { RateLimiterRes } from "rate-limiter-flexible";
-import { teacherNameSchema } from "@shared/schemas/account";
+import { passwordSchema, teacherNameSchema } from "@shared/schemas/account";
 import { env } from "./env";
 import { logger } from "./logger";
 import { sendMail } from "./mail/mailer";
@@ -22,6 +22,9 @@ function checkName(name: unknown) {
 
 function checkNewPassword(password: unknown, personal: unknown[]) {
   if (typeof password !== "string") return;
+  // Length first, here rather than in better-auth, so an existing address's sign-up is refused the same way.
+  const length = passwordSchema.safeParse(password);
+  if (!length.success) throw refuse("invalid_input", length.error.issues[0].message);
   const weakness = passwordWeakness(password, personal.filter((text): text is string => typeof text === "string"));
   if (weakness) throw refuse("weak_password", weakness);
 }

@@ -135,6 +135,12 @@ describe("account existence", () => {
     const mail = await waitForMail(email, /already have an Outroll account/);
     expect(mail.text).toContain("no new account was made");
     expect((await storedUser(email))?.name).toBe("Ines Barlow");
+    // A password over the length limit is refused alike too, before anyone looks the address up.
+    const tooLong = "tidal-pool-lantern-".repeat(8);
+    const longAgain = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", { name: "Someone Else", email, password: tooLong });
+    const longFresh = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", { name: "Someone Else", email: uniqueEmail("fresh"), password: tooLong });
+    expect([longAgain.status, longAgain.body.error]).toEqual([longFresh.status, longFresh.body.error]);
+    expect(longAgain.status).toBe(400);
   });
 
   it("answers a password-reset request for an existing and an unknown address alike, and mails only the existing one", async () => {
