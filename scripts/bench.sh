@@ -29,3 +29,6 @@ node --expose-gc --import tsx scripts/bench/results-export.ts
 
 log "Class run load (300 phones on loopback against the real server and PostgreSQL, then a bare socket.io ceiling)"
 npx tsx scripts/bench/class-run-load.ts
+
+log "Account answers (sign-up and password reset for existing and unknown addresses)"
+npx tsx scripts/bench/account-timing.ts

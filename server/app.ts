@@ -5,10 +5,12 @@ import helmet from "helmet";
 import { rateLimit } from "express-rate-limit";
 import { pinoHttp } from "pino-http";
 import { toNodeHandler } from "better-auth/node";
-import { auth } from "./auth";
+import { authRequestHandler } from "./auth";
 import { env } from "./env";
 import { logger } from "./logger";
 import { errorHandler, notFoundHandler } from "./middleware/error-handler";
+import { refuseNulCharacters } from "./middleware/refuse-nul-characters";
+import { requireSameOrigin } from "./middleware/same-origin";
 import { classRunsRouter, padRouter } from "./routes/class-runs.routes";
 import { departmentsRouter } from "./routes/departments.routes";
 import { devMailRouter } from "./routes/dev-mail.routes";
@@ -22,13 +24,22 @@ import { privacyRouter } from "./routes/privacy.routes";
 import { setFinderRouter } from "./routes/set-finder.routes";
 import { resultsRouter } from "./routes/results.routes";
 
-export type AppOptions = { signInLimitPerMinute?: number; serveClient?: boolean };
+export type AppOptions = {
+  signInLimitPerMinute?: number;
+  serveClient?: boolean;
+  /** Overrides TRUST_PROXY (tests start apps behind a pretend proxy). */
+  trustProxy?: boolean | number | string[];
+};
+
+/** The largest request body the account routes (sign-up, sign-in, update-user…) read. */
+const AUTH_BODY_LIMIT = "16kb";
 
 /** Builds the Express app: security headers, auth, JSON API routes, the built client, one error shape. */
 export function createApp(options: AppOptions = {}) {
   const app = express();
   app.disable("x-powered-by");
-  app.set("trust proxy", "loopback");
+  // Forwarded addresses count only from the configured proxy; otherwise a client could pick its own rate-limit key.
+  app.set("trust proxy", options.trustProxy ?? env.TRUST_PROXY);
   app.use(
     pinoHttp({
       logger,
@@ -58,15 +69,26 @@ export function createApp(options: AppOptions = {}) {
     limit: options.signInLimitPerMinute ?? env.SIGN_IN_LIMIT_PER_MINUTE,
     standardHeaders: "draft-8",
     legacyHeaders: false,
+    // Without a trusted proxy a forwarded address is ignored on purpose (TRUST_PROXY), not a set-up mistake to warn about.
+    validate: { xForwardedForHeader: false },
     handler: (_req, res) => {
       res.status(429).json({ error: { code: "too_many_attempts", message: "Too many sign-in attempts. Wait a minute and try again." } });
     },
   });
+  app.use("/api", requireSameOrigin);
   app.use(["/api/auth/sign-in", "/api/auth/sign-up", "/api/auth/request-password-reset"], signInLimiter);
-  // better-auth reads its own request bodies, so it is mounted before express.json().
-  app.all("/api/auth/*splat", toNodeHandler(auth));
+  // better-auth takes a body already read (better-call's node adapter), so the size limit and the NUL check come first.
+  app.use(
+    "/api/auth",
+    express.json({ limit: AUTH_BODY_LIMIT }),
+    express.urlencoded({ limit: AUTH_BODY_LIMIT, extended: false }),
+    express.text({ type: () => true, limit: AUTH_BODY_LIMIT }),
+    refuseNulCharacters,
+  );
+  app.all("/api/auth/*splat", toNodeHandler(authRequestHandler));
 
   app.use(express.json({ limit: "200kb" }));
+  app.use("/api", refuseNulCharacters);
   app.use("/api/health", healthRouter);
   app.use("/api/me", meRouter);
   app.use("/api/privacy", privacyRouter);

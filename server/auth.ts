@@ -6,10 +6,12 @@ import { defaultStatements } from "better-auth/plugins/organization/access";
 import { db } from "./db/client";
 import * as schema from "./db/schema/index";
 import { PASSWORD_RESET_MINUTES } from "@shared/schemas/password-reset";
+import { accountHooks, steadyAuthHandler } from "./account-guards";
 import { env } from "./env";
 import { logger } from "./logger";
 import { sendMail } from "./mail/mailer";
 import { passwordResetMail } from "./mail/templates";
+import { trustedOrigins } from "./middleware/same-origin";
 
 const accessControl = createAccessControl(defaultStatements);
 
@@ -22,10 +24,6 @@ const departmentRoles = {
   }),
   teacher: accessControl.newRole({ organization: [], member: [], invitation: [] }),
 };
-
-const trustedOrigins = Array.from(
-  new Set([env.appOrigin, env.appOrigin.replace("127.0.0.1", "localhost"), "http://127.0.0.1:5173", "http://localhost:5173"]),
-);
 
 export const auth = betterAuth({
   appName: "Outroll",
@@ -42,14 +40,13 @@ export const auth = betterAuth({
     autoSignIn: true,
     resetPasswordTokenExpiresIn: PASSWORD_RESET_MINUTES * 60,
     revokeSessionsOnPasswordReset: true,
-    // The link opens our own /reset-password page; better-auth answers "check your e-mail" whether or not this succeeds.
+    // The link opens our own /reset-password page. The mail goes out after the answer, which is the same for any
+    // address, so waiting for the mail server cannot tell an existing account from an unknown one.
     sendResetPassword: async ({ user, token }) => {
       const resetUrl = `${env.appOrigin}/reset-password?token=${encodeURIComponent(token)}`;
-      try {
-        await sendMail(passwordResetMail({ to: user.email, name: user.name, resetUrl, validMinutes: PASSWORD_RESET_MINUTES }));
-      } catch (error) {
-        logger.error({ err: error }, "password reset e-mail not sent");
-      }
+      sendMail(passwordResetMail({ to: user.email, name: user.name, resetUrl, validMinutes: PASSWORD_RESET_MINUTES })).catch((error: unknown) =>
+        logger.error({ err: error }, "password reset e-mail not sent"),
+      );
     },
   },
   // Invitations go through /api/invitations (services/invitations.service.ts), which checks roles and sends the e-mail.
@@ -62,6 +59,8 @@ export const auth = betterAuth({
     "/organization/list-invitations",
     "/organization/list-user-invitations",
   ],
+  // Name rules, password strength, the per-account sign-in wait and the sign-up of an existing address (account-guards.ts).
+  hooks: accountHooks,
   session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
   // Our own limiter guards sign-in (see app.ts); better-auth's keys on IP alone and a school shares one.
   rateLimit: { enabled: false },
@@ -81,3 +80,6 @@ export const auth = betterAuth({
 });
 
 export type Auth = typeof auth;
+
+/** What app.ts mounts at /api/auth: better-auth behind steady answers and our error shape. */
+export const authRequestHandler = steadyAuthHandler(auth.handler);

@@ -14,6 +14,21 @@ const envSchema = z.object({
   BETTER_AUTH_SECRET: z.string().min(32).optional(),
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   SIGN_IN_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(20),
+  // Which reverse proxy may set X-Forwarded-For (Express's "trust proxy"): unset or "false" trusts none, so a client
+  // cannot choose its own address; "loopback", a comma-separated list of addresses or subnets, or a number of hops.
+  TRUST_PROXY: z
+    .string()
+    .trim()
+    .default("false")
+    .refine((value) => !/^true$/i.test(value), "TRUST_PROXY=true would let any client choose its address; name the proxy instead, e.g. loopback or 10.0.0.5.")
+    .transform((value): boolean | number | string[] => {
+      if (value === "" || /^false$/i.test(value)) return false;
+      if (/^\d+$/.test(value)) return Number(value);
+      return value.split(",").map((part) => part.trim()).filter(Boolean);
+    }),
+  // Wrong passwords one account may take in SIGN_IN_FAILURE_MINUTES before its sign-ins wait (any address).
+  SIGN_IN_FAILURES_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
+  SIGN_IN_FAILURE_MINUTES: z.coerce.number().int().positive().default(15),
   DATA_DIR: z.string().default(path.join(projectRoot, ".data")),
   // Where the built client is served from; test runs build into a folder of their own.
   CLIENT_DIR: z.string().default(path.join(projectRoot, "dist/client")),

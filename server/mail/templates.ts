@@ -132,3 +132,31 @@ export function proposalDigestMail(input: {
   );
   return { to: input.to, subject, text, html };
 }
+
+/** The e-mail to an existing account when someone signs up again with its address (the sign-up page answers as for a new one). */
+export function existingAccountMail(input: { to: string; name: string; signInUrl: string; resetUrl: string }): OutgoingMail {
+  const subject = "You already have an Outroll account";
+  const text = [
+    `Hello ${input.name},`,
+    ``,
+    `Someone, perhaps you, just tried to create an Outroll account with this address, ${input.to}. You already have one, so no new account was made and nothing changed.`,
+    ``,
+    `Sign in here: ${input.signInUrl}`,
+    `Forgotten your password? Choose a new one here: ${input.resetUrl}`,
+    ``,
+    `If it was not you, ignore this e-mail: your account and password are as they were.`,
+  ].join("\n");
+  const html = layout(
+    "You already have an Outroll account",
+    [
+      `Hello ${escapeHtml(input.name)},`,
+      `Someone, perhaps you, just tried to create an Outroll account with this address, ${escapeHtml(input.to)}. You already have one, so no new account was made and nothing changed.`,
+    ],
+    { label: "Sign in", url: input.signInUrl },
+    [
+      `Forgotten your password? <a href="${escapeHtml(input.resetUrl)}">Choose a new one</a>.`,
+      `If it was not you, ignore this e-mail: your account and password are as they were.`,
+    ],
+  );
+  return { to: input.to, subject, text, html };
+}

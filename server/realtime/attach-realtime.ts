@@ -1,6 +1,6 @@
 import type { Server as HttpServer } from "node:http";
 import { Server } from "socket.io";
-import { env } from "../env";
+import { allowSocketHandshake, trustedOrigins } from "../middleware/same-origin";
 import { registerClassRunEvents } from "./class-run-events";
 
 export type RealtimeServer = Server;
@@ -15,7 +15,9 @@ export function attachRealtime(server: HttpServer): Server {
     path: "/socket.io",
     serveClient: false,
     maxHttpBufferSize: 64 * 1024,
-    cors: { origin: [env.appOrigin], credentials: true },
+    cors: { origin: trustedOrigins, credentials: true },
+    // Boards and phones alike: a page of another origin may neither read a Run board nor record rolls.
+    allowRequest: allowSocketHandshake,
   });
   for (const register of featureHandlers) register(io);
   return io;

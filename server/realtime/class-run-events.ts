@@ -18,6 +18,7 @@ import {
   type RunPhaseBroadcast,
   type RunStatusBroadcast,
 } from "@shared/events";
+import { hasNulCharacter, NUL_CHARACTER_MESSAGE } from "@shared/schemas/nul-character";
 import { auth } from "../auth";
 import { findClassRun, writeRollBatch, type NewRoll, type RollWriteOutcome } from "../db/queries/class-runs";
 import { db } from "../db/client";
@@ -25,6 +26,7 @@ import { findMembershipForUser } from "../db/queries/memberships";
 import { env } from "../env";
 import { HttpError } from "../http-error";
 import { logger } from "../logger";
+import { isUnstorableText } from "../db/postgres-errors";
 import type { TeacherContext } from "../middleware/require-teacher";
 import { readBoardSnapshot, runForTeacher } from "../services/class-runs.service";
 import { castVote, checkedRoll, checkedRollFromCache, chooseMatchup, GroupRateLimiter, joinRun, PadError, resumeGroup, undoRoll } from "../services/roll-pad.service";
@@ -50,6 +52,8 @@ type Acknowledge<T extends object> = (answer: Ack<T>) => void;
 /** The `{ ok: false, error }` answer for anything a handler threw. */
 function refusalFor(error: unknown): EventError {
   if (error instanceof PadError) return error.toEventError();
+  // Text PostgreSQL cannot store is refused for good (invalid_input is not retryable), so the phone stops resending it.
+  if (isUnstorableText(error)) return { code: "invalid_input", message: NUL_CHARACTER_MESSAGE };
   if (error instanceof HttpError) {
     const code = error.status === 401 ? "unauthenticated" : error.status === 404 ? "not_found" : "forbidden";
     return { code, message: error.message };
@@ -66,6 +70,10 @@ function handle<S extends z.ZodType, T extends object>(schema: S, run: (payload:
   return (payload: unknown, acknowledge?: unknown) => {
     if (typeof acknowledge !== "function") return;
     const answer = acknowledge as Acknowledge<T>;
+    if (hasNulCharacter(payload)) {
+      answer({ ok: false, error: { code: "invalid_input", message: NUL_CHARACTER_MESSAGE } });
+      return;
+    }
     const parsed = schema.safeParse(payload);
     if (!parsed.success) {
       answer({ ok: false, error: { code: "invalid_input", message: payloadProblem(parsed.error) } });

@@ -33,7 +33,12 @@ const receiveCsv: RequestHandler = (req, res, next) => {
       }
       return;
     }
-    next(error);
+    // busboy's own complaints (a form cut off half-way, a broken part header) are the upload's fault, not the server's.
+    if (error) {
+      next(new HttpError(400, "invalid_input", "The upload was cut off or damaged before it finished, so nothing was read. Choose the file and upload it again."));
+      return;
+    }
+    next();
   });
 };
 

@@ -1,13 +1,15 @@
 import { diceSetFileName, diceSetInputFromFile, diceSetToFile, checkDiceSetFile, type DiceSetFile } from "@shared/schemas/dice-set-file";
 import type { DiceSet, DiceSetInput, DiceSetUpdate } from "@shared/schemas/dice-sets";
-import { db } from "../db/client";
+import { db, type Executor } from "../db/client";
 import {
   deleteOwnedDiceSet,
   type DiceSetRow,
   findDiceSetById,
   findReadableDiceSet,
   insertDiceSet,
+  listColleagueLessonsUsingSet,
   listReadableDiceSets,
+  lockDiceSet,
   updateDiceSetAtVersion,
 } from "../db/queries/dice-sets";
 import { HttpError, notFound } from "../http-error";
@@ -84,6 +86,10 @@ export async function updateDiceSet(teacher: TeacherContext, id: string, input: 
     const row = await findReadableDiceSet(id, teacher.user.id, teacher.department?.id ?? null, tx);
     if (!row) throw notFound("That dice set");
     requireOwner(row, teacher, "edit");
+    if (input.visibility === "private" && row.visibility === "department") {
+      await lockDiceSet(id, tx);
+      await refuseWhileColleaguesUse(tx, id, teacher.user.id, "made private");
+    }
     const values = { name: input.name, description: input.description, visibility: input.visibility, dice: input.dice, departmentId };
     const saved = await updateDiceSetAtVersion(id, teacher.user.id, input.version, values, tx);
     if (saved === null) {
@@ -111,12 +117,29 @@ export async function duplicateDiceSet(teacher: TeacherContext, id: string): Pro
   return createDiceSet(teacher, { name, description: source.description, visibility: "private", dice: source.dice }, source.id);
 }
 
-/** Deletes the owner's set; lessons that used it keep their plan and lose the link. */
+/**
+ * 409 `set_in_use`, naming them, while colleagues' lessons use the set: deleting it or taking it private would leave
+ * those lessons without dice, and their owners would not know. Call with the set's row locked.
+ */
+async function refuseWhileColleaguesUse(tx: Executor, id: string, ownerId: string, change: "deleted" | "made private") {
+  const lessons = await listColleagueLessonsUsingSet(id, ownerId, tx);
+  if (lessons.length === 0) return;
+  const named = lessons.map((entry) => `${entry.ownerName}’s “${entry.title}”`).join(", ");
+  throw new HttpError(
+    409,
+    "set_in_use",
+    `Colleagues' lessons use this set, so it was not ${change}: ${named}. Ask them to choose another set or to duplicate this one first.`,
+  );
+}
+
+/** Deletes the owner's set (the owner's own lessons keep their plan and lose the link); refused while colleagues' lessons use it. */
 export async function deleteDiceSet(teacher: TeacherContext, id: string): Promise<void> {
   await db.transaction(async (tx) => {
     const row = await findReadableDiceSet(id, teacher.user.id, teacher.department?.id ?? null, tx);
     if (!row) throw notFound("That dice set");
     requireOwner(row, teacher, "delete");
+    await lockDiceSet(id, tx);
+    await refuseWhileColleaguesUse(tx, id, teacher.user.id, "deleted");
     await deleteOwnedDiceSet(id, teacher.user.id, tx);
   });
 }

@@ -2,6 +2,7 @@ import { createHash } from "node:crypto";
 import { fileTypeFromBuffer } from "file-type";
 import Papa from "papaparse";
 import { v5 as uuidv5 } from "uuid";
+import { unescapeFormulaCell } from "@shared/results/csv-text";
 import { checkPaperImportHeader, checkPaperImportRows, type CheckedPaperRoll, type PaperImportRecord } from "@shared/results/paper-import-check";
 import { paperImportColumns, type PaperImportColumn } from "@shared/schemas/paper-import";
 import { PAPER_IMPORT_MAX_ROWS, type PaperImportOptions, type PaperImportResult, type ResultsTally } from "@shared/schemas/results";
@@ -29,10 +30,28 @@ export type PaperUpload = { originalName: string; buffer: Buffer };
 
 const invalidFile = (message: string) => new HttpError(422, "invalid_paper_import", message);
 
-/** Reads the upload as CSV text: refuses binary files (a workbook, a PDF, a photo) and text that is not UTF-8. */
+/**
+ * The text encoding of an upload from its byte order mark (UTF-8, UTF-16 LE or BE), or from the zero bytes UTF-16
+ * puts beside every ASCII character when a spreadsheet saved "Unicode text" without one; otherwise UTF-8.
+ */
+function textEncodingOf(bytes: Buffer): { encoding: "utf-8" | "utf-16le" | "utf-16be"; bomLength: number } {
+  if (bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf) return { encoding: "utf-8", bomLength: 3 };
+  if (bytes[0] === 0xff && bytes[1] === 0xfe) return { encoding: "utf-16le", bomLength: 2 };
+  if (bytes[0] === 0xfe && bytes[1] === 0xff) return { encoding: "utf-16be", bomLength: 2 };
+  if (bytes.length >= 4 && bytes[0] !== 0 && bytes[1] === 0 && bytes[2] !== 0 && bytes[3] === 0) return { encoding: "utf-16le", bomLength: 0 };
+  if (bytes.length >= 4 && bytes[0] === 0 && bytes[1] !== 0 && bytes[2] === 0 && bytes[3] !== 0) return { encoding: "utf-16be", bomLength: 0 };
+  return { encoding: "utf-8", bomLength: 0 };
+}
+
+const unreadableText = () =>
+  new HttpError(400, "invalid_input", "The file's text could not be read: it is not saved as UTF-8 or UTF-16. In your spreadsheet choose “Save as” → “CSV UTF-8” and upload again.");
+
+/** Reads the upload as CSV text (UTF-8 with or without a byte order mark, or UTF-16); refuses binary files (a workbook, a PDF, a photo). */
 async function csvText(upload: PaperUpload): Promise<string> {
   if (upload.buffer.length === 0) throw invalidFile("The file is empty. Type the rolls into a spreadsheet and save it as CSV.");
-  const detected = await fileTypeFromBuffer(upload.buffer);
+  const { encoding, bomLength } = textEncodingOf(upload.buffer);
+  // Sniffing a binary type only makes sense for bytes that are not UTF-16 text: its zero bytes look like audio to file-type.
+  const detected = encoding === "utf-8" && bomLength === 0 ? await fileTypeFromBuffer(upload.buffer) : undefined;
   if (detected) {
     throw new HttpError(
       415,
@@ -40,11 +59,14 @@ async function csvText(upload: PaperUpload): Promise<string> {
       `This file is ${detected.ext.toUpperCase()} (${detected.mime}), not CSV. In your spreadsheet choose “Save as” → “CSV UTF-8” and upload that file.`,
     );
   }
+  let text: string;
   try {
-    return new TextDecoder("utf-8", { fatal: true }).decode(upload.buffer).replace(/^\ufeff/, "");
+    text = new TextDecoder(encoding, { fatal: true }).decode(upload.buffer.subarray(bomLength));
   } catch {
-    throw invalidFile("The file is not UTF-8 text. In your spreadsheet choose “Save as” → “CSV UTF-8” and upload again.");
+    throw unreadableText();
   }
+  if (text.includes("\u0000")) throw unreadableText();
+  return text;
 }
 
 /** Parses the CSV with papaparse (RFC 4180; comma, semicolon or tab) into a header and numbered records. */
@@ -63,7 +85,7 @@ function parseCsv(text: string, players: number): { records: PaperImportRecord[]
   const records: PaperImportRecord[] = [];
   lines.forEach((cells, index) => {
     if (cells.every((cell) => cell.trim() === "")) return;
-    const entries = (Object.entries(positions) as [PaperImportColumn, number][]).map(([column, position]) => [column, cells[position] ?? ""]);
+    const entries = (Object.entries(positions) as [PaperImportColumn, number][]).map(([column, position]) => [column, unescapeFormulaCell(cells[position] ?? "")]);
     records.push({ row: index + 2, cells: Object.fromEntries(entries) });
   });
   if (records.length === 0) throw invalidFile("The file has a header row but no rolls under it.");

@@ -1,8 +1,8 @@
 import type { Writable } from "node:stream";
 import ExcelJS from "exceljs";
-import Papa from "papaparse";
 import { RollPool, type PooledResults } from "@shared/class-results/pooled-results";
 import type { TieRule } from "@shared/probability/index";
+import { csvLines } from "@shared/results/csv-text";
 import { groupInterval } from "@shared/results/group-interval";
 import { rollsExportColumns, summaryExportColumns, type RollsExportRow, type SummaryExportRow } from "@shared/results/export-columns";
 import { db } from "../db/client";
@@ -12,11 +12,6 @@ import { poolableRoll, poolRunRolls, visibleRun } from "./results.service";
 
 /** A download the route can send: its name, its type, and how to write it to the response. */
 export type ResultsDownload = { fileName: string; contentType: string; write: (out: Writable) => Promise<void> };
-
-/** A text cell that a spreadsheet would read as a formula gets a leading apostrophe (OWASP's advice on CSV injection). */
-function safeText(text: string): string {
-  return /^([=+@\t\r]|-(?!\d))/.test(text) ? `'${text}` : text;
-}
 
 function slug(text: string): string {
   return (
@@ -60,8 +55,10 @@ function waitForDrain(out: Writable): Promise<void> {
   });
 }
 
-function facesCell(faces: number[] | undefined): string {
-  return faces ? faces.join("+") : "";
+/** One die's face stays a number; two dice each are written "3+5" (text, escaped in CSV when it starts with "-"). */
+function facesCell(faces: number[] | undefined): string | number {
+  if (!faces) return "";
+  return faces.length === 1 ? faces[0] : faces.join("+");
 }
 
 /** One stored roll as a row of the rolls export (both the CSV and the workbook's Rolls sheet). */
@@ -75,7 +72,7 @@ function rollsRow(stored: StreamedRoll, names: string[], nicknames: Map<string, 
   const winner = stored.winnerSeat === null ? "" : names[stored.matchup[stored.winnerSeat]];
   return {
     roll_time: stored.recordedAt.toISOString(),
-    group: safeText(nicknames.get(stored.groupId) ?? ""),
+    group: nicknames.get(stored.groupId) ?? "",
     tally: stored.tally,
     matchup: stored.matchup.map((index) => names[index]).join(" v "),
     dice_per_player: stored.dicePerPlayer,
@@ -133,7 +130,7 @@ export function summaryRows(pooled: PooledResults): SummaryExportRow[] {
     const interval = groupInterval(group, pooled.tieRule);
     rows.push({
       section: "group",
-      group: safeText(group.groupNickname ?? ""),
+      group: group.groupNickname ?? "",
       matchup: group.label,
       dice_per_player: group.dicePerPlayer,
       players: group.players,
@@ -159,12 +156,8 @@ export function summaryRows(pooled: PooledResults): SummaryExportRow[] {
 // The Excel-friendly byte order mark; papaparse and most readers skip it.
 const BYTE_ORDER_MARK = "\ufeff";
 
-/** Rows as CSV text through papaparse (RFC 4180 quoting, CRLF), each line ending in CRLF; the header line alone when asked. */
-function csvChunk<Row extends Record<string, unknown>>(rows: Row[], columns: readonly string[], header: boolean): string {
-  if (rows.length === 0 && !header) return "";
-  const text = Papa.unparse({ fields: [...columns], data: rows.map((row) => columns.map((column) => row[column] ?? "")) }, { header, newline: "\r\n" });
-  return `${text}\r\n`;
-}
+/** Number columns written with a fixed number of decimals in every row of the summary CSV. */
+const summaryDecimals = { relative_frequency: 4, wilson_95_lower: 4, wilson_95_upper: 4, binomial_p_value: 6 };
 
 async function runContext(teacher: TeacherContext, runId: string) {
   const run = await visibleRun(teacher, runId);
@@ -179,9 +172,9 @@ export async function rollsCsvDownload(teacher: TeacherContext, runId: string, i
     fileName: exportFileName(run, "rolls", "csv"),
     contentType: "text/csv; charset=utf-8",
     write: async (out) => {
-      await writeChunk(out, BYTE_ORDER_MARK + csvChunk([], rollsExportColumns, true));
+      await writeChunk(out, BYTE_ORDER_MARK + csvLines(rollsExportColumns, [], { header: true }));
       for await (const batch of streamRunRolls(run.id, { includeSimulated })) {
-        await writeChunk(out, csvChunk(batch.map((stored) => rollsRow(stored, names, nicknames)), rollsExportColumns, false));
+        await writeChunk(out, csvLines(rollsExportColumns, batch.map((stored) => rollsRow(stored, names, nicknames)), { header: false }));
       }
     },
   };
@@ -203,7 +196,7 @@ export async function summaryCsvDownload(teacher: TeacherContext, runId: string,
     write: async (out) => {
       const pooled = await pooledForSummary(run, nicknames, includeSimulated);
       const rows = summaryRows(pooled);
-      await writeChunk(out, BYTE_ORDER_MARK + csvChunk(rows, summaryExportColumns, true));
+      await writeChunk(out, BYTE_ORDER_MARK + csvLines(summaryExportColumns, rows, { header: true, decimals: summaryDecimals }));
     },
   };
 }

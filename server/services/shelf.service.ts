@@ -16,7 +16,7 @@ import type {
 import type { SetDie } from "@shared/schemas/dice-sets";
 import { db, type Executor } from "../db/client";
 import { findOwnedDiceSetByName, insertDiceSet } from "../db/queries/dice-sets";
-import { buildLessonSnapshot, findDiceSetReadableBy, findLessonById, insertLesson } from "../db/queries/lessons";
+import { buildLessonSnapshot, findDiceSetReadableBy, findLessonById, insertLesson, lockLesson } from "../db/queries/lessons";
 import {
   countPendingProposals,
   decideProposal,
@@ -318,6 +318,8 @@ async function proposalById(executor: Executor, teacher: TeacherContext, proposa
 export async function proposeLesson(teacher: TeacherContext, input: ProposeLessonInput): Promise<ShelfProposal> {
   const department = departmentOf(teacher);
   return db.transaction(async (tx) => {
+    // The lesson's row lock makes simultaneous proposals of one lesson take turns: the second sees the first's.
+    await lockLesson(tx, input.lessonId);
     await ownLesson(tx, teacher, input.lessonId);
     await publishableSnapshot(tx, input.lessonId);
     if (await findPendingProposalForLesson(tx, input.lessonId)) {

@@ -6,6 +6,13 @@ export const passwordSchema = z
   .min(10, "Use at least 10 characters.")
   .max(128, "Use at most 128 characters.");
 
+/** A teacher's name as colleagues see it: 2 to 80 characters once trimmed (sign-up and account changes alike). */
+export const teacherNameSchema = z
+  .string({ error: "Enter your name as colleagues know it." })
+  .trim()
+  .min(2, "Enter your name as colleagues know it.")
+  .max(80, "Use at most 80 characters for your name.");
+
 export const signInSchema = z.object({
   email: z.email("Enter an e-mail address such as name@school.test."),
   password: z.string().min(1, "Enter your password."),
@@ -13,7 +20,7 @@ export const signInSchema = z.object({
 export type SignInInput = z.infer<typeof signInSchema>;
 
 export const signUpSchema = z.object({
-  name: z.string().trim().min(2, "Enter your name as colleagues know it.").max(80),
+  name: teacherNameSchema,
   email: z.email("Enter an e-mail address such as name@school.test."),
   password: passwordSchema,
   departmentName: z.string().trim().min(3, "Name your department, e.g. “Maths, Harbourside Academy”.").max(100),

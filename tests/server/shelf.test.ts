@@ -370,13 +370,13 @@ describe("proposals", () => {
     expect((await colleague.post("/api/shelf/proposals", { lessonId: own.id })).status).toBe(404);
   });
 
-  it("refuses to approve a proposal whose lesson was deleted", async () => {
+  it("answers 404 to approving a proposal whose lesson was deleted: the pending proposal went with the lesson", async () => {
     const own = await createLesson(teacher, { title: "Deleted after proposing" });
     const proposed = await teacher.post("/api/shelf/proposals", { lessonId: own.id });
     expect((await teacher.delete(`/api/lessons/${own.id}`)).status).toBe(204);
     const response = await head.post(`/api/shelf/proposals/${proposed.body.id}/approve`, { target: "new", changeNote: "First version" });
-    expect(response.status).toBe(409);
-    expect(response.body.error.code).toBe("lesson_gone");
+    expect(response.status).toBe(404);
+    expect(response.body.error.code).toBe("not_found");
   });
 });
 

@@ -1,7 +1,7 @@
-import { and, asc, desc, eq, or, sql } from "drizzle-orm";
+import { and, asc, desc, eq, ne, or, sql } from "drizzle-orm";
 import type { DiceSetVisibility, SetDie } from "@shared/schemas/dice-sets";
 import { db, type Executor } from "../client";
-import { diceSet, user } from "../schema/index";
+import { diceSet, lesson, user } from "../schema/index";
 
 /** A stored dice set row with its owner's name. */
 export type DiceSetRow = {
@@ -118,4 +118,19 @@ export async function findOwnedDiceSetByName(ownerId: string, name: string, exec
     .where(and(eq(diceSet.ownerId, ownerId), eq(diceSet.name, name)))
     .limit(1);
   return rows[0] ?? null;
+}
+
+/** Locks a set's row for the rest of the transaction: a lesson taking it up meanwhile waits (its foreign key needs the row). */
+export async function lockDiceSet(id: string, executor: Executor): Promise<void> {
+  await executor.select({ id: diceSet.id }).from(diceSet).where(eq(diceSet.id, id)).for("update");
+}
+
+/** Lessons of other teachers than the set's owner that use the set, with their owners' names. */
+export async function listColleagueLessonsUsingSet(id: string, ownerId: string, executor: Executor = db): Promise<{ title: string; ownerName: string }[]> {
+  return executor
+    .select({ title: lesson.title, ownerName: user.name })
+    .from(lesson)
+    .innerJoin(user, eq(user.id, lesson.ownerId))
+    .where(and(eq(lesson.diceSetId, id), ne(lesson.ownerId, ownerId)))
+    .orderBy(asc(user.name), asc(lesson.title));
 }

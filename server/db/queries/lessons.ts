@@ -12,7 +12,7 @@ import {
 } from "@shared/schemas/lessons";
 import type { SetDie } from "@shared/schemas/dice-sets";
 import type { Executor } from "../client";
-import { diceSet, lesson, lessonAttachment, user } from "../schema/index";
+import { diceSet, lesson, lessonAttachment, shelfProposal, user } from "../schema/index";
 
 export type LessonRow = typeof lesson.$inferSelect;
 export type LessonAttachmentRow = typeof lessonAttachment.$inferSelect;
@@ -176,12 +176,14 @@ export async function setLessonArchived(executor: Executor, id: string, archived
   return row ?? null;
 }
 
-/** Deletes a lesson and its attachment rows; returns the storage keys whose files the caller removes after commit. */
+/** Deletes a lesson, its attachment rows and its pending shelf proposals; returns the storage keys whose files the caller removes after commit. */
 export async function deleteLessonWithAttachments(executor: Executor, id: string): Promise<string[]> {
   const removed = await executor
     .delete(lessonAttachment)
     .where(eq(lessonAttachment.lessonId, id))
     .returning({ storageKey: lessonAttachment.storageKey });
+  // A pending proposal of a deleted lesson would wait in the head's queue with nothing to show; decided ones stay as history.
+  await executor.delete(shelfProposal).where(and(eq(shelfProposal.lessonId, id), eq(shelfProposal.status, "pending")));
   await executor.delete(lesson).where(eq(lesson.id, id));
   return removed.map((row) => row.storageKey);
 }

@@ -24,7 +24,7 @@ export function SignUpForm({ onSignedUp }: { onSignedUp: () => void }) {
         label="Password"
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters."
+        hint="At least 10 characters and hard to guess: three or four unrelated words work well."
         {...register("password")}
         error={errors.password?.message}
       />

@@ -38,7 +38,7 @@ function NewAccountForm({ preview, join, onJoined }: { preview: InvitationPrevie
         label="Choose a password"
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters."
+        hint="At least 10 characters and hard to guess: three or four unrelated words work well."
         {...register("password")}
         error={formState.errors.password?.message}
       />

@@ -52,7 +52,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
         label="New password"
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters."
+        hint="At least 10 characters and hard to guess: three or four unrelated words work well."
         {...register("newPassword")}
         error={formState.errors.newPassword?.message}
       />

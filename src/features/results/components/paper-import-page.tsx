@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useState, type FormEvent } from "react";
 import { Link } from "react-router-dom";
+import { csvLines } from "@shared/results/csv-text";
 import { paperImportColumnHelp, paperImportColumns } from "@shared/schemas/paper-import";
 import { PAPER_IMPORT_MAX_BYTES, type PaperImportResult, type ResultsDie } from "@shared/schemas/results";
 import { Alert } from "@/components/ui/alert";
@@ -17,13 +18,19 @@ import { PupilDataNote } from "./pupil-data-note";
 function exampleCsv(dice: ResultsDie[], dicePerPlayer: number, players: number, nickname: string): string {
   const faces = (die: ResultsDie, shift: number) =>
     Array.from({ length: dicePerPlayer }, (_, index) => die.faces[(shift + index * 2) % die.faces.length]).join("+");
-  const row = (roll: number, first: number, second: number, third: number) => {
-    const cells = [nickname, String(roll), dice[first].name, faces(dice[first], roll), dice[second].name, faces(dice[second], roll + 3)];
-    cells.push(players === 3 ? dice[third].name : "", players === 3 ? faces(dice[third], roll + 1) : "");
-    return cells.map((cell) => (/[",\r\n]/.test(cell) ? `"${cell.replace(/"/g, '""')}"` : cell)).join(",");
-  };
+  const row = (roll: number, first: number, second: number, third: number) => ({
+    group: nickname,
+    roll,
+    die_1: dice[first].name,
+    faces_1: faces(dice[first], roll),
+    die_2: dice[second].name,
+    faces_2: faces(dice[second], roll + 3),
+    die_3: players === 3 ? dice[third].name : "",
+    faces_3: players === 3 ? faces(dice[third], roll + 1) : "",
+  });
   const third = dice.length > 2 ? 2 : 0;
-  return [paperImportColumns.join(","), row(1, 0, 1, third), row(2, 0, 1, third), row(3, 0, 1, third)].join("\n");
+  // The same formula escaping as every download (a die named "=…" must not become a formula); Paper import undoes it.
+  return csvLines(paperImportColumns, [row(1, 0, 1, third), row(2, 0, 1, third), row(3, 0, 1, third)], { header: true }).trimEnd();
 }
 
 const statusWords: Record<PaperImportResult["rows"][number]["status"], string> = {
@@ -47,7 +54,7 @@ export function PaperImportPage({ runId }: { runId: string }) {
     () => (run && mode ? exampleCsv(run.dice, mode.dicePerPlayer, mode.players, results.data?.groups[0]?.nickname ?? "Puffins") : ""),
     [run, mode, results.data],
   );
-  const templateUrl = useMemo(() => (example ? URL.createObjectURL(new Blob([`${example}\n`], { type: "text/csv" })) : null), [example]);
+  const templateUrl = useMemo(() => (example ? URL.createObjectURL(new Blob([`${example}\r\n`], { type: "text/csv" })) : null), [example]);
   useEffect(() => () => void (templateUrl && URL.revokeObjectURL(templateUrl)), [templateUrl]);
 
   if (results.isPending) return <p role="status">Loading the run…</p>;

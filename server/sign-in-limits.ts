@@ -1,0 +1,16 @@
+import { RateLimiterMemory, type RateLimiterAbstract } from "rate-limiter-flexible";
+import { env } from "./env";
+
+/**
+ * Wrong passwords per account, whatever the address they come from: after SIGN_IN_FAILURES_PER_ACCOUNT within
+ * SIGN_IN_FAILURE_MINUTES the account's sign-ins wait until the window ends. Built here alone so a shared store
+ * (rate-limiter-flexible's RateLimiterPostgres, for several server processes) replaces the memory store in one place.
+ */
+export const accountSignInFailures: RateLimiterAbstract = new RateLimiterMemory({
+  keyPrefix: "sign-in-failures",
+  points: env.SIGN_IN_FAILURES_PER_ACCOUNT,
+  duration: env.SIGN_IN_FAILURE_MINUTES * 60,
+});
+
+/** The limiter key of an account: its e-mail address as better-auth stores it. */
+export const accountKey = (email: string) => email.trim().toLowerCase();
