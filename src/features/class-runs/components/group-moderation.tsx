@@ -9,12 +9,12 @@ export function GroupStateMarks({ group }: { group: BoardGroup }) {
   return (
     <>
       {group.leftOut && (
-        <span className="mt-1 block w-fit rounded-full border-2 border-line bg-white px-2 text-sm font-bold text-ink-soft" data-testid="left-out-mark">
+        <span className="mt-1 block w-fit rounded-lg border-2 border-line bg-white px-2 text-sm font-bold text-ink-soft" data-testid="left-out-mark">
           Left out of the figures
         </span>
       )}
       {group.floodedAt && (
-        <span className="mt-1 block w-fit rounded-full border-2 border-beacon bg-beacon-light px-2 text-sm font-bold" data-testid="flood-mark">
+        <span className="mt-1 block w-fit rounded-lg border-2 border-beacon bg-beacon-light px-2 text-sm font-bold" data-testid="flood-mark">
           <span aria-hidden="true">⚑ </span>Sent rolls too fast at {new Date(group.floodedAt).toLocaleTimeString("en-GB", { timeStyle: "short" })}
         </span>
       )}
