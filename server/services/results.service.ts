@@ -148,6 +148,7 @@ export async function poolRunRolls(
   pools: RollPool[],
   options: {
     includeSimulated: boolean;
+    includeLeftOut?: boolean;
     nicknames: Map<string, string>;
     dicePerPlayer?: number;
     players?: number;
@@ -157,7 +158,7 @@ export async function poolRunRolls(
   },
 ): Promise<Map<string, number>> {
   const perGroup = new Map<string, number>();
-  for await (const batch of streamRunRolls(runId, { includeSimulated: options.includeSimulated })) {
+  for await (const batch of streamRunRolls(runId, { includeSimulated: options.includeSimulated, includeLeftOut: options.includeLeftOut })) {
     for (const stored of batch) {
       if (options.dicePerPlayer !== undefined && stored.dicePerPlayer !== options.dicePerPlayer) continue;
       if (options.players !== undefined && stored.matchup.length !== options.players) continue;
@@ -171,14 +172,14 @@ export async function poolRunRolls(
 }
 
 /** A run's results page: pooled figures, convergence, per-group table, Guess votes and findings, from stored rolls. */
-export async function getRunResults(teacher: TeacherContext, runId: string, includeSimulated: boolean): Promise<RunResults> {
+export async function getRunResults(teacher: TeacherContext, runId: string, includeSimulated: boolean, includeLeftOut = false): Promise<RunResults> {
   const run = await visibleRun(teacher, runId);
   const groups = await listRunGroups(db, runId);
   const nicknames = new Map(groups.map((group) => [group.id, group.nickname]));
   const pool = new RollPool(run.dice, run.tieRule as TieRule);
   const tallies = runTallies(run);
   const byTally = new Map(tallies.map((tally) => [tally.tally, new RollPool(run.dice, run.tieRule as TieRule)]));
-  const rollsPerGroup = await poolRunRolls(runId, [pool], { includeSimulated, nicknames, byTally });
+  const rollsPerGroup = await poolRunRolls(runId, [pool], { includeSimulated, includeLeftOut, nicknames, byTally });
   const pooled = pool.result();
   const pooledByTally = tallies.map((tally) => ({ tally, pooled: byTally.get(tally.tally)!.result() }));
   // The report's main matchup and findings come from the main tally; a Twist is reported beside it, not in its place.
@@ -191,7 +192,13 @@ export async function getRunResults(teacher: TeacherContext, runId: string, incl
     pooled,
     tallies: pooledByTally,
     mainMatchupKey: mainMatchup(mainPooled)?.key ?? null,
-    groups: groups.map((group) => ({ id: group.id, nickname: group.nickname, source: group.source, rolls: rollsPerGroup.get(group.id) ?? 0 })),
+    groups: groups.map((group) => ({
+      id: group.id,
+      nickname: group.nickname,
+      source: group.source,
+      rolls: rollsPerGroup.get(group.id) ?? 0,
+      leftOut: group.leftOutAt !== null,
+    })),
     guessVotes: dieNames.map((dieName, dieIndex) => ({ dieIndex, dieName, votes: votes.find((vote) => vote.dieIndex === dieIndex)?.votes ?? 0 })),
     findings: classFindings(mainPooled, dieNames),
   };
