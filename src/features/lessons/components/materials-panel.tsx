@@ -38,6 +38,11 @@ export function RollsVerdictView({
       <p className="mt-2" data-testid="verdict-message">
         {verdict.message}
       </p>
+      <p className="mt-1 text-sm text-ink-soft" data-testid="roll-pace">
+        {verdict.budget === null
+          ? "The lesson has no Roll phase with minutes, so the rolls are not checked against the time."
+          : `Time budget: a ${verdict.budget.minutes}-minute Roll phase at about ${verdict.budget.rollsPerMinute} rolls a minute (a common-practice pace for rolling and writing each roll down, not a published rule) gives about ${verdict.budget.rollsPerGroup} rolls per group.`}
+      </p>
       {(verdict.suggestedRollsPerGroup !== null || verdict.suggestedGroups !== null) && (onUseRolls || onUseGroups) && (
         <div className="mt-3 flex flex-wrap gap-2 no-print">
           {verdict.suggestedGroups !== null && onUseGroups && (
