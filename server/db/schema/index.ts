@@ -11,3 +11,4 @@ export { lesson } from "./lessons";
 export { lessonTemplate, lessonTemplateVersion, shelfProposal } from "./lesson-templates";
 export { lessonAttachment } from "./lesson-attachments";
 export { classRun, runGroup, guessVote, paperImport, roll } from "./class-runs";
+export { paperCount } from "./paper-counts";
