@@ -177,8 +177,8 @@ export async function commitPaperImport(teacher: TeacherContext, runId: string, 
  */
 export async function commitTallyGridRolls(teacher: TeacherContext, runId: string, input: TallyGridRollsInput): Promise<PaperImportResult> {
   const { run, mode } = await runAndMode(teacher, runId, input.tally);
-  // Rows are numbered as the grid shows them: the first roll row is 1.
-  const records: PaperImportRecord[] = input.rows.map((cells, index) => ({ row: index + 1, cells }));
+  // Rows are numbered as the grid shows them: by the roll's line number, or its place in the list when that is not a number.
+  const records: PaperImportRecord[] = input.rows.map((cells, index) => ({ row: /^\d+$/.test(cells.roll.trim()) ? Number(cells.roll) : index + 1, cells }));
   const fileHash = createHash("sha256").update(JSON.stringify(input.rows)).digest("hex");
   const prepared = await prepareRecords(run, mode, records, [], { fileHash, fileName: "tally grid", createGroups: input.createGroups });
   return commitPrepared(teacher, prepared, "tally grid", "save again");
