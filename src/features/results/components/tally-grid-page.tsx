@@ -1,4 +1,4 @@
-import { useId, useState, type FormEvent } from "react";
+import { useId, useState, type FormEvent, type ReactNode } from "react";
 import { Link } from "react-router-dom";
 import type { ResultsTally } from "@shared/schemas/results";
 import type { StoredTallyCount, TallyGrid } from "@shared/schemas/tally-grid";
@@ -329,69 +329,64 @@ function CountsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
         nothing to the convergence chart and have no lines in the rolls download; the summary download marks them. Saving replaces this part of the lesson's counts.
       </p>
       <GroupNames id={listId} grid={grid} />
-      <div className="max-w-full overflow-x-auto rounded-xl border-2 border-line bg-shell" role="region" aria-label="Counts" tabIndex={0}>
-        <table className="w-full border-collapse text-left" data-testid="tally-counts">
-          <thead>
-            <tr className="border-b-2 border-line">
-              <th scope="col" className="p-2">Group</th>
-              <th scope="col" className="p-2">Die</th>
-              <th scope="col" className="p-2">Against</th>
-              <th scope="col" className="p-2">Die won</th>
-              <th scope="col" className="p-2">Tie</th>
-              <th scope="col" className="p-2">Against won</th>
-              <th scope="col" className="p-2">
-                <span className="sr-only">Remove</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {lines.map((line, index) => {
-              const label = `Line ${index + 1}`;
-              return (
-                <tr key={index} className="border-b border-line/60">
-                  <td className="p-1">
-                    <input className={cellInput} list={listId} maxLength={24} aria-label={`${label}: group`} value={line.group} onChange={(event) => update(index, { group: event.target.value })} />
-                  </td>
-                  <td className="p-1">
-                    <select className={cellInput} aria-label={`${label}: die`} value={line.first} onChange={(event) => update(index, { first: event.target.value })}>
-                      {dieOptions.map((option) => (
-                        <option key={option.value} value={option.value}>
-                          {option.label}
-                        </option>
-                      ))}
-                    </select>
-                  </td>
-                  <td className="p-1">
-                    <select className={cellInput} aria-label={`${label}: against`} value={line.second} onChange={(event) => update(index, { second: event.target.value })}>
-                      {dieOptions.map((option) => (
-                        <option key={option.value} value={option.value}>
-                          {option.label}
-                        </option>
-                      ))}
-                    </select>
-                  </td>
-                  {(["firstWins", "ties", "secondWins"] as const).map((field) => (
-                    <td key={field} className="p-1">
+      <ol className="flex flex-col gap-2" data-testid="tally-counts">
+        {lines.map((line, index) => {
+          const label = `Line ${index + 1}`;
+          const cell = (caption: string, control: ReactNode, wide = false) => (
+            <label className={`flex min-w-0 flex-col gap-0.5 ${wide ? "col-span-2 sm:col-span-1" : ""}`}>
+              <span className="text-xs font-bold text-ink-soft" aria-hidden="true">
+                {caption}
+              </span>
+              {control}
+            </label>
+          );
+          return (
+            <li key={index} className="grid grid-cols-2 items-end gap-2 rounded-xl border-2 border-line bg-shell p-2 sm:grid-cols-[minmax(8rem,2fr)_repeat(2,minmax(6rem,1.5fr))_repeat(3,minmax(4rem,1fr))_auto]">
+              {cell("Group", <input className={cellInput} list={listId} maxLength={24} aria-label={`${label}: group`} value={line.group} onChange={(event) => update(index, { group: event.target.value })} />, true)}
+              {cell(
+                "Die",
+                <select className={cellInput} aria-label={`${label}: die`} value={line.first} onChange={(event) => update(index, { first: event.target.value })}>
+                  {dieOptions.map((option) => (
+                    <option key={option.value} value={option.value}>
+                      {option.label}
+                    </option>
+                  ))}
+                </select>,
+              )}
+              {cell(
+                "Against",
+                <select className={cellInput} aria-label={`${label}: against`} value={line.second} onChange={(event) => update(index, { second: event.target.value })}>
+                  {dieOptions.map((option) => (
+                    <option key={option.value} value={option.value}>
+                      {option.label}
+                    </option>
+                  ))}
+                </select>,
+              )}
+              {(["firstWins", "ties", "secondWins"] as const).map((field) => {
+                const caption = field === "firstWins" ? `${line.first} won` : field === "ties" ? "Ties" : `${line.second} won`;
+                return (
+                  <span key={field} className="contents">
+                    {cell(
+                      caption,
                       <input
                         className={`${cellInput} ${countOf(line[field]) === null ? "border-alarm" : ""}`}
                         inputMode="numeric"
-                        aria-label={`${label}: ${field === "firstWins" ? `${line.first} won` : field === "ties" ? "ties" : `${line.second} won`}`}
+                        aria-label={`${label}: ${field === "ties" ? "ties" : caption}`}
                         value={line[field]}
                         onChange={(event) => update(index, { [field]: event.target.value })}
-                      />
-                    </td>
-                  ))}
-                  <td className="p-1">
-                    <Button type="button" variant="quiet" aria-label={`Remove line ${index + 1}`} onClick={() => setLines((current) => current.filter((_, position) => position !== index))}>
-                      ✕
-                    </Button>
-                  </td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+                      />,
+                    )}
+                  </span>
+                );
+              })}
+              <Button type="button" variant="quiet" aria-label={`Remove line ${index + 1}`} onClick={() => setLines((current) => current.filter((_, position) => position !== index))}>
+                ✕
+              </Button>
+            </li>
+          );
+        })}
+      </ol>
       {badCell && <p className="font-bold text-alarm">Counts are whole numbers from 0; fix the boxes marked red.</p>}
       {newGroups.length > 0 && (
         <label className="flex min-h-11 items-center gap-2">
