@@ -26,7 +26,7 @@ export function RecordingSheet({ set, plan }: { set: DiceSet; plan: RecordingShe
                 {pages.length > 1 && <span className="text-base font-normal"> · page {pageIndex + 1} of {pages.length}</span>}
               </h2>
               <p className="text-sm">
-                {plan.players} players, {plan.dicePerPlayer === 1 ? "one die each" : "two dice each: add your two numbers"}. Write one line for every roll.
+                {plan.players === 3 ? "Three" : "Two"} players, {plan.dicePerPlayer === 1 ? "one die each" : "two dice each: add your two numbers"}. Write one line for every roll.
               </p>
             </div>
             <p className="text-lg">
