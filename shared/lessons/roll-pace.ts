@@ -41,3 +41,21 @@ export function rollPhaseMinutes(phases: readonly { phase: string; included: boo
 export function paceText(budget: RollPhaseBudget): string {
   return `about ${budget.rollsPerMinute} rolls a minute (a common-practice pace, not a published rule)`;
 }
+
+/** Whether a class has time for a matchup's pooled rolls in the Roll phase, and what would make room if not. */
+export type ClassTimePlan =
+  | { kind: "fits"; perGroup: number }
+  | { kind: "more-groups"; perGroup: number; groupsNeeded: number }
+  | { kind: "too-close"; perGroup: number; mostRolls: number };
+
+/**
+ * For `pooledRolls` shared over `groups`, each making `budget.rollsPerGroup` in the Roll phase: fits; or the groups
+ * that would make them (at most `groupsMax`); or too close for one lesson, with the most rolls `groupsMax` groups make.
+ */
+export function classTimePlan(pooledRolls: number, groups: number, budget: RollPhaseBudget, groupsMax: number): ClassTimePlan {
+  const perGroup = Math.ceil(pooledRolls / groups);
+  if (perGroup <= budget.rollsPerGroup) return { kind: "fits", perGroup };
+  const groupsNeeded = budget.rollsPerGroup === 0 ? Infinity : Math.ceil(pooledRolls / budget.rollsPerGroup);
+  if (groupsNeeded <= groupsMax) return { kind: "more-groups", perGroup, groupsNeeded };
+  return { kind: "too-close", perGroup, mostRolls: groupsMax * budget.rollsPerGroup };
+}

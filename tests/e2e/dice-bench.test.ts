@@ -152,6 +152,8 @@ describe("the Dice bench and the Set finder in chromium", () => {
     await choose(page, "ties score half");
     await expect(page.getByTestId("series-outcome").textContent()).resolves.toMatch(/ends level with/);
     await expect(page.getByTestId("pooled-rolls").textContent()).resolves.toMatch(/Pool about \d+ rolls/);
+    // The default 15-minute Roll phase: 45 rolls a group at 3 a minute (one die each), 30 at 2 a minute (two dice each).
+    await expect(page.getByTestId("pooled-rolls-in-time").textContent()).resolves.toMatch(/about (3 rolls a minute .* about 45|2 rolls a minute .* about 30) rolls in 15 minutes/);
     await screenshot(page, "dice-bench-series-laptop");
 
     // One box per face: add a face, then remove it again.

@@ -11,7 +11,7 @@ import {
   type TieRule,
   winProbabilityUnderTieRule,
 } from "@shared/probability/index";
-import { rollPhaseBudget } from "@shared/lessons/roll-pace";
+import { classTimePlan, rollPhaseBudget, type RollPhaseBudget } from "@shared/lessons/roll-pace";
 import { LESSON_LIMITS } from "@shared/schemas/lessons";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { SelectField } from "@/components/ui/select-field";
@@ -227,23 +227,22 @@ function SeriesSentence({
 }
 
 /** Whether the class can make the pooled rolls in the Roll phase at the common-practice pace, and what to do if not. */
-function TimeAdvice({ pooled, groups, budget }: { pooled: number; groups: number; budget: NonNullable<ReturnType<typeof rollPhaseBudget>> }) {
+function TimeAdvice({ pooled, groups, budget }: { pooled: number; groups: number; budget: RollPhaseBudget }) {
   const pace = `At about ${budget.rollsPerMinute} rolls a minute (a common-practice pace, not a published rule) a group makes about ${budget.rollsPerGroup} rolls in ${budget.minutes} minutes`;
-  const perGroup = Math.ceil(pooled / groups);
-  if (perGroup <= budget.rollsPerGroup) return <>{pace}, so {groups} groups have time for their {perGroup} each.</>;
-  const groupsNeeded = Math.ceil(pooled / budget.rollsPerGroup);
-  if (groupsNeeded <= LESSON_LIMITS.groupsMax) {
+  const plan = classTimePlan(pooled, groups, budget, LESSON_LIMITS.groupsMax);
+  if (plan.kind === "fits") return <>{pace}, so {groups} groups have time for their {plan.perGroup} each.</>;
+  if (plan.kind === "more-groups") {
     return (
       <>
-        {pace}, not {perGroup}: play this matchup with about <strong>{groupsNeeded}</strong> groups, or top the class up with the Virtual class (simulated rolls, marked
-        simulated).
+        {pace}, not {plan.perGroup}: play this matchup with about <strong>{plan.groupsNeeded}</strong> groups, or top the class up with the Virtual class (simulated rolls,
+        marked simulated).
       </>
     );
   }
   return (
     <>
-      {pace}: this matchup is too close to show in one lesson ({LESSON_LIMITS.groupsMax} groups make about {LESSON_LIMITS.groupsMax * budget.rollsPerGroup}). Choose a
-      stronger matchup, or pool several classes or the Virtual class.
+      {pace}: this matchup is too close to show in one lesson ({LESSON_LIMITS.groupsMax} groups make about {plan.mostRolls}). Choose a stronger matchup, or pool several
+      classes or the Virtual class.
     </>
   );
 }
