@@ -3,6 +3,7 @@ import {
   analyzeSet,
   compareDice,
   fractionToNumber,
+  fractionToString,
   rollsNeededToExcludeHalf,
   wilsonIntervalFromProportion,
   winProbabilityUnderTieRule,
@@ -10,7 +11,6 @@ import {
   type ProportionInterval,
   type TieRule,
 } from "../probability/index";
-import { fractionToString } from "../probability/index";
 import { LESSON_LIMITS, type LessonMaterialsFields } from "../schemas/lessons";
 import { paceText, rollPhaseBudget, rollPhaseMinutes, type RollPhaseBudget } from "./roll-pace";
 
@@ -174,7 +174,9 @@ function coverageOf(pair: [number, number], games: number[][], groups: number, m
  * a player holds `copiesPerPlayer` of each die. The verdict asks, for each main matchup, whether its pooled rolls reach
  * `rollsNeededToExcludeHalf` (the smallest n whose 95% Wilson score interval, Wilson 1927, at the expected win count
  * excludes 1/2), using the win chance under the lesson's tie rule. In a three-player game every roll also compares each
- * pair of players, so a pair's pooled rolls are the rolls of every game holding both dice.
+ * pair of players, so a pair's pooled rolls are the rolls of every game holding both dice. A group's rolls are capped by
+ * the Roll phase's time budget at the common-practice pace (roll-pace.ts): the verdict, its suggestions and the
+ * recording sheets' rows never count more rolls than fit.
  */
 export function lessonMaterials(plan: LessonMaterialsFields, dice: MaterialsDie[] | null): LessonMaterialsResult {
   const twistIncluded = plan.phases.some((entry) => entry.phase === "Twist" && entry.included);
@@ -206,7 +208,7 @@ export function lessonMaterials(plan: LessonMaterialsFields, dice: MaterialsDie[
       verdict: {
         status: "no-set",
         pooledRolls,
-        budget: rollPhaseBudget(rollPhaseMinutes(plan.phases), plan.mode),
+        budget,
         fitsTime: true,
         matchups: [],
         suggestedRollsPerGroup: null,
