@@ -9,10 +9,12 @@ import {
   resultsListQuerySchema,
   resultsRunParamsSchema,
 } from "@shared/schemas/results";
+import { tallyGridCountsInputSchema, tallyGridRollsInputSchema } from "@shared/schemas/tally-grid";
 import { HttpError } from "../http-error";
 import { currentTeacher, requireTeacher } from "../middleware/require-teacher";
 import { parseBody, parseParams, parseQuery } from "../middleware/validate";
-import { commitPaperImport, previewPaperImport, type PaperUpload } from "../services/paper-import.service";
+import { commitPaperImport, commitTallyGridRolls, previewPaperImport, type PaperUpload } from "../services/paper-import.service";
+import { getTallyGrid, saveTallyCounts } from "../services/tally-grid.service";
 import { rollsCsvDownload, summaryCsvDownload, workbookDownload, type ResultsDownload } from "../services/results-export.service";
 import { createPaperRun, deleteResultsRun, getRunResults, listPaperRunLessons, listResultsRuns, pooledAcrossRuns } from "../services/results.service";
 
@@ -104,6 +106,22 @@ resultsRouter.post("/runs/:id/paper-import", receiveCsv, async (req, res) => {
   const options = parseBody(paperImportOptionsSchema, req);
   const result = await commitPaperImport(currentTeacher(req), id, uploadedCsv(req.file), options);
   res.status(result.imported ? 201 : 200).json(result);
+});
+
+resultsRouter.get("/runs/:id/tally-grid", async (req, res) => {
+  const { id } = parseParams(resultsRunParamsSchema, req);
+  res.json(await getTallyGrid(currentTeacher(req), id));
+});
+
+resultsRouter.post("/runs/:id/tally-grid/rolls", async (req, res) => {
+  const { id } = parseParams(resultsRunParamsSchema, req);
+  const result = await commitTallyGridRolls(currentTeacher(req), id, parseBody(tallyGridRollsInputSchema, req));
+  res.status(result.imported ? 201 : 200).json(result);
+});
+
+resultsRouter.put("/runs/:id/tally-grid/counts", async (req, res) => {
+  const { id } = parseParams(resultsRunParamsSchema, req);
+  res.json(await saveTallyCounts(currentTeacher(req), id, parseBody(tallyGridCountsInputSchema, req)));
 });
 
 resultsRouter.delete("/runs/:id", async (req, res) => {

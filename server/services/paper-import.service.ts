@@ -5,6 +5,7 @@ import { v5 as uuidv5 } from "uuid";
 import { unescapeFormulaCell } from "@shared/results/csv-text";
 import { checkPaperImportHeader, checkPaperImportRows, type CheckedPaperRoll, type PaperImportRecord } from "@shared/results/paper-import-check";
 import { paperImportColumns, type PaperImportColumn } from "@shared/schemas/paper-import";
+import type { TallyGridRollsInput } from "@shared/schemas/tally-grid";
 import { PAPER_IMPORT_MAX_ROWS, type PaperImportOptions, type PaperImportResult, type ResultsTally } from "@shared/schemas/results";
 import { db } from "../db/client";
 import { findPaperImportByHash, findRollsByIds, insertPaperImport, listRunGroups, type NewPaperRoll, type ResultsRunListRecord } from "../db/queries/results";
@@ -101,15 +102,35 @@ type PreparedImport = {
   result: PaperImportResult;
 };
 
-/** Checks an upload against the run and compares it with what is stored, without writing anything. */
-async function prepare(teacher: TeacherContext, runId: string, upload: PaperUpload, options: PaperImportOptions): Promise<PreparedImport> {
+/** The run, if the teacher owns it, and the mode of the tally asked for. */
+async function runAndMode(teacher: TeacherContext, runId: string, tally: number) {
   const run = await visibleRun(teacher, runId);
   assertOwnsRun(teacher, run, "import rolls into it");
+  const mode = runTallies(run).find((entry) => entry.tally === tally);
+  if (!mode) throw invalidFile(`This run has no tally ${tally}; its rolls belong to tally ${runTallies(run).map((entry) => entry.tally).join(" or ")}.`);
+  return { run, mode };
+}
+
+/** Checks an upload against the run and compares it with what is stored, without writing anything. */
+async function prepare(teacher: TeacherContext, runId: string, upload: PaperUpload, options: PaperImportOptions): Promise<PreparedImport> {
+  const { run, mode } = await runAndMode(teacher, runId, options.tally);
   const text = await csvText(upload);
   const fileHash = createHash("sha256").update(upload.buffer).digest("hex");
-  const mode = runTallies(run).find((entry) => entry.tally === options.tally);
-  if (!mode) throw invalidFile(`This run has no tally ${options.tally}; its rolls belong to tally ${runTallies(run).map((entry) => entry.tally).join(" or ")}.`);
   const { records, errors: parseErrors } = parseCsv(text, mode.players);
+  return prepareRecords(run, mode, records, parseErrors, { fileHash, fileName: upload.originalName, createGroups: options.createGroups });
+}
+
+/** Checks numbered records (from a CSV file or the tally grid) against the run and compares them with what is stored. */
+async function prepareRecords(
+  run: ResultsRunListRecord,
+  mode: ResultsTally,
+  records: PaperImportRecord[],
+  parseErrors: PaperImportResult["errors"],
+  source: { fileHash: string; fileName: string; createGroups: boolean },
+): Promise<PreparedImport> {
+  const { fileHash } = source;
+  const options = { createGroups: source.createGroups };
+  const runId = run.id;
   // Removed groups too: a sheet naming one files its rolls under it (set aside like the rest), not under a clashing new group.
   const groups = await listRunGroups(db, runId, { withRemoved: true });
   const check = checkPaperImportRows({ dice: run.dice, dicePerPlayer: mode.dicePerPlayer, players: mode.players, groups, createGroups: options.createGroups }, records);
@@ -148,7 +169,7 @@ async function prepare(teacher: TeacherContext, runId: string, upload: PaperUplo
     fileHash,
     rolls: check.rolls,
     result: {
-      fileName: upload.originalName,
+      fileName: source.fileName,
       rows,
       errors,
       newRows,
@@ -170,14 +191,30 @@ export async function previewPaperImport(teacher: TeacherContext, runId: string,
  * in `fields` under "row N"); the same file again, or rows already stored, add nothing.
  */
 export async function commitPaperImport(teacher: TeacherContext, runId: string, upload: PaperUpload, options: PaperImportOptions): Promise<PaperImportResult> {
-  const prepared = await prepare(teacher, runId, upload, options);
+  return commitPrepared(teacher, await prepare(teacher, runId, upload, options), upload.originalName);
+}
+
+/**
+ * Stores rolls typed into the tally grid: the rows go through the same checks and ids as a Paper import file, all
+ * stored in one transaction or none (422 with each row's problems), and rows already stored add nothing.
+ */
+export async function commitTallyGridRolls(teacher: TeacherContext, runId: string, input: TallyGridRollsInput): Promise<PaperImportResult> {
+  const { run, mode } = await runAndMode(teacher, runId, input.tally);
+  // Rows are numbered as the grid shows them: by the roll's line number, or its place in the list when that is not a number.
+  const records: PaperImportRecord[] = input.rows.map((cells, index) => ({ row: /^\d+$/.test(cells.roll.trim()) ? Number(cells.roll) : index + 1, cells }));
+  const fileHash = createHash("sha256").update(JSON.stringify(input.rows)).digest("hex");
+  const prepared = await prepareRecords(run, mode, records, [], { fileHash, fileName: "tally grid", createGroups: input.createGroups });
+  return commitPrepared(teacher, prepared, "tally grid", "save again");
+}
+
+async function commitPrepared(teacher: TeacherContext, prepared: PreparedImport, fileName: string, again = "upload the file again"): Promise<PaperImportResult> {
   const { result, run, mode } = prepared;
   if (result.errors.length > 0) {
     const count = result.errors.length;
     throw new HttpError(
       422,
       "paper_import_invalid",
-      `${count} ${count === 1 ? "row has" : "rows have"} problems, so nothing was imported. Correct ${count === 1 ? "it" : "them"} and upload the file again.`,
+      `${count} ${count === 1 ? "row has" : "rows have"} problems, so nothing was imported. Correct ${count === 1 ? "it" : "them"} and ${again}.`,
       Object.fromEntries(result.errors.map((entry) => [`row ${entry.row}`, entry.messages])),
     );
   }
@@ -186,7 +223,7 @@ export async function commitPaperImport(teacher: TeacherContext, runId: string, 
   const outcome = await insertPaperImport(db, {
     runId: run.id,
     fileHash: prepared.fileHash,
-    fileName: upload.originalName.slice(0, 200),
+    fileName: fileName.slice(0, 200),
     rowCount: prepared.rolls.length,
     importedById: teacher.user.id,
     newGroups: result.newGroups,

@@ -8,7 +8,7 @@ import { rollsExportColumns, summaryExportColumns, type RollsExportRow, type Sum
 import { db } from "../db/client";
 import { listRunGroups, streamRunRolls, type ResultsRunListRecord, type StreamedRoll } from "../db/queries/results";
 import type { TeacherContext } from "../middleware/require-teacher";
-import { poolableRoll, poolRunRolls, visibleRun } from "./results.service";
+import { poolableRoll, poolRunCounts, poolRunRolls, visibleRun } from "./results.service";
 
 /** A download the route can send: its name, its type, and how to write it to the response. */
 export type ResultsDownload = { fileName: string; contentType: string; write: (out: Writable) => Promise<void> };
@@ -93,6 +93,12 @@ function rollsRow(stored: StreamedRoll, names: string[], nicknames: Map<string, 
   };
 }
 
+/** Whether a summary row's rolls were recorded one by one, typed as counts, or both. */
+function enteredAs(rolls: number, countedRolls: number): string {
+  if (countedRolls === 0) return "rolls";
+  return countedRolls === rolls ? "counts" : "rolls and counts";
+}
+
 const round = (value: number | null | undefined, places = 4) => (value === null || value === undefined ? null : Number(value.toFixed(places)));
 
 /** The summary export: one row per matchup, then one per group and matchup, all from poolRolls. */
@@ -122,6 +128,8 @@ export function summaryRows(pooled: PooledResults): SummaryExportRow[] {
       wilson_95_upper: round(entry.interval?.upper),
       binomial_p_value: null,
       implausible: "",
+      entered_as: enteredAs(entry.rolls, entry.countedRolls),
+      rolls_from_counts: entry.countedRolls,
     });
   }
   for (const group of pooled.groups) {
@@ -148,6 +156,8 @@ export function summaryRows(pooled: PooledResults): SummaryExportRow[] {
       wilson_95_upper: round(interval?.upper),
       binomial_p_value: round(group.test.pValue, 6),
       implausible: group.test.implausible ? "yes" : "no",
+      entered_as: enteredAs(group.rolls, group.countedRolls),
+      rolls_from_counts: group.countedRolls,
     });
   }
   return rows;
@@ -227,6 +237,8 @@ export async function workbookDownload(teacher: TeacherContext, runId: string, i
         if (out.writableNeedDrain) await waitForDrain(out);
       }
       rollsSheet.commit();
+      // Counts have no rows on the Rolls sheet; they join the Summary only, which says so per row.
+      await poolRunCounts(run.id, [pool], { nicknames, includeLeftOut });
       const pooled = pool.result();
       const summarySheet = workbook.addWorksheet("Summary", { views: [{ state: "frozen", ySplit: 1 }] });
       summarySheet.columns = summaryExportColumns.map((key) => ({ header: key, key, width: key === "matchup" ? 24 : 14 }));

@@ -1,5 +1,5 @@
 import { randomInt } from "node:crypto";
-import { RollPool, type PoolableRoll } from "@shared/class-results/pooled-results";
+import { RollPool, type PoolableCounts, type PoolableRoll } from "@shared/class-results/pooled-results";
 import { lessonPlanSchema } from "@shared/schemas/lessons";
 import { setDiceSchema } from "@shared/schemas/dice-sets";
 import type { TieRule } from "@shared/probability/index";
@@ -20,6 +20,7 @@ import {
   type RunResults,
 } from "@shared/schemas/results";
 import { db } from "../db/client";
+import { listPaperCounts } from "../db/queries/paper-counts";
 import {
   countGuessVotes,
   deleteRunWithEverything,
@@ -92,6 +93,7 @@ export function runSummary(record: ResultsRunListRecord, viewerId: string): Resu
     rollCount: record.rollCount,
     simulatedRollCount: record.simulatedRollCount,
     paperRollCount: record.paperRollCount,
+    countedRollCount: record.countedRollCount,
     groupCount: record.groupCount,
     recordedOn: recordedOn(record),
     ownerName: record.ownerName,
@@ -167,6 +169,36 @@ export async function poolRunRolls(
       options.byTally?.get(stored.tally)?.addOne(entry);
       perGroup.set(stored.groupId, (perGroup.get(stored.groupId) ?? 0) + 1);
     }
+  }
+  await poolRunCounts(runId, pools, options, perGroup);
+  return perGroup;
+}
+
+/**
+ * Adds a run's tally-grid counts to `pools` (they are paper, never simulated): into every count, frequency, interval
+ * and test, never into a convergence series; adds each group's counted rolls to `perGroup`.
+ */
+export async function poolRunCounts(
+  runId: string,
+  pools: RollPool[],
+  options: { nicknames: Map<string, string>; includeLeftOut?: boolean; dicePerPlayer?: number; mapMatchup?: (matchup: number[]) => number[] },
+  perGroup = new Map<string, number>(),
+): Promise<Map<string, number>> {
+  for (const row of await listPaperCounts(db, runId, { includeLeftOut: options.includeLeftOut })) {
+    if (options.dicePerPlayer !== undefined && row.dicePerPlayer !== options.dicePerPlayer) continue;
+    const entry: PoolableCounts = {
+      groupId: row.groupId,
+      groupNickname: options.nicknames.get(row.groupId),
+      tally: row.tally,
+      dicePerPlayer: row.dicePerPlayer,
+      matchup: options.mapMatchup ? options.mapMatchup(row.matchup) : row.matchup,
+      firstWins: row.firstWins,
+      ties: row.ties,
+      secondWins: row.secondWins,
+      source: "paper",
+    };
+    for (const pool of pools) pool.addCounts(entry);
+    perGroup.set(row.groupId, (perGroup.get(row.groupId) ?? 0) + row.firstWins + row.ties + row.secondWins);
   }
   return perGroup;
 }
@@ -344,7 +376,7 @@ export async function createPaperRun(teacher: TeacherContext, input: PaperRunInp
     departmentId: teacher.department?.id ?? lesson.departmentId,
     lessonId: lesson.id,
     title: lesson.title,
-    classGroup: lesson.classGroup,
+    classGroup: input.classGroup || lesson.classGroup,
     diceSetName: lesson.diceSetName ?? "Dice set",
     dice,
     dicePerPlayer: plan.mode.dicePerPlayer,

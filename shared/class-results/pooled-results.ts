@@ -35,6 +35,23 @@ export interface PoolableRoll {
   recordedAt: string;
 }
 
+/**
+ * One group's win/tie/loss counts for one two-player matchup, entered as counts (the tally grid's quick mode) with no
+ * rolls behind them: they count in every tally, frequency, interval and test, and never in the convergence series.
+ */
+export interface PoolableCounts {
+  groupId: string;
+  groupNickname?: string;
+  tally: number;
+  dicePerPlayer: number;
+  /** The two die indexes (into `dice`), in the order the counts are given. */
+  matchup: number[];
+  firstWins: number;
+  ties: number;
+  secondWins: number;
+  source: RollSource;
+}
+
 /** An exact probability for display: the fraction "a/b", a 3-place decimal string and the nearest double. */
 export interface ExactValue {
   fraction: string;
@@ -91,6 +108,8 @@ export interface PooledMatchup {
   dicePerPlayer: number;
   players: number;
   rolls: number;
+  /** Of `rolls`, those entered as win/tie/loss counts rather than roll by roll; the convergence series leaves them out. */
+  countedRolls: number;
   /** Rolls with one outright highest total (the rolls that count under "re-roll ties"). */
   decidedRolls: number;
   seats: SeatCounts[];
@@ -101,7 +120,7 @@ export interface PooledMatchup {
   exact: MatchupExact;
   /** Wilson 95% score interval around `frequencyUnderTieRule`; null when no roll counts yet. */
   interval: ProportionInterval | null;
-  /** Running frequency after each roll in recordedAt order, evenly downsampled to at most CONVERGENCE_POINTS_MAX points (the last roll always kept). */
+  /** Running frequency after each roll recorded one by one (counts have no order), in recordedAt order, evenly downsampled to at most CONVERGENCE_POINTS_MAX points (the last roll always kept). */
   convergence: ConvergencePoint[];
 }
 
@@ -118,6 +137,8 @@ export interface PooledGroup {
   dicePerPlayer: number;
   players: number;
   rolls: number;
+  /** Of `rolls`, those entered as win/tie/loss counts. */
+  countedRolls: number;
   decidedRolls: number;
   seats: SeatCounts[];
   sources: RollSource[];
@@ -144,6 +165,8 @@ export interface PooledResults {
   groups: PooledGroup[];
   totals: {
     rolls: number;
+    /** Of `rolls`, those entered as win/tie/loss counts. */
+    countedRolls: number;
     bySource: Record<RollSource, number>;
     /** Distinct groups with at least one roll. */
     groups: number;
@@ -316,6 +339,21 @@ interface SeatTally {
   seats: SeatCounts[];
   decided: number;
   rolls: number;
+  counted: number;
+}
+
+/** Adds a two-player matchup's counts (first seat's wins, ties, second seat's wins, in the tally's seat order) into a tally. */
+function countCounts(tally: SeatTally, firstWins: number, ties: number, secondWins: number) {
+  const [first, second] = tally.seats;
+  first.wins += firstWins;
+  first.ties += ties;
+  first.losses += secondWins;
+  second.wins += secondWins;
+  second.ties += ties;
+  second.losses += firstWins;
+  tally.decided += firstWins + secondWins;
+  tally.rolls += firstWins + ties + secondWins;
+  tally.counted += firstWins + ties + secondWins;
 }
 
 /** Counts one roll (totals in the tally's seat order) into a tally. */
@@ -359,6 +397,7 @@ export class RollPool {
   private readonly tests = new Map<string, { wins: number; rolls: number; pValue: number; method: PlausibilityMethod }>();
   private readonly bySource: Record<RollSource, number> = { phone: 0, simulated: 0, paper: 0 };
   private count = 0;
+  private counted = 0;
 
   private readonly series: boolean;
 
@@ -383,33 +422,73 @@ export class RollPool {
     return this;
   }
 
-  addOne(roll: PoolableRoll): void {
-    const recorded = `${roll.dicePerPlayer}:${roll.matchup.join("-")}`;
+  /** The pooled key and seat order of a matchup as recorded (seats sorted by die index). */
+  private orderOf(dicePerPlayer: number, recordedMatchup: number[]) {
+    const recorded = `${dicePerPlayer}:${recordedMatchup.join("-")}`;
     let known = this.orderKeys.get(recorded);
     if (!known) {
-      if (roll.matchup.length < 2) throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
-      if (roll.matchup.some((index) => !Number.isInteger(index) || index < 0 || index >= this.dice.length)) {
+      if (recordedMatchup.length < 2) throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
+      if (recordedMatchup.some((index) => !Number.isInteger(index) || index < 0 || index >= this.dice.length)) {
         throw new RangeError(`A roll names a die that is not in the set (the set has ${this.dice.length} dice).`);
       }
-      const seats = roll.matchup.map((dieIndex, seat) => ({ dieIndex, seat })).sort((x, y) => x.dieIndex - y.dieIndex || x.seat - y.seat);
+      const seats = recordedMatchup.map((dieIndex, seat) => ({ dieIndex, seat })).sort((x, y) => x.dieIndex - y.dieIndex || x.seat - y.seat);
       const matchup = seats.map((entry) => entry.dieIndex);
-      known = { key: `${roll.dicePerPlayer}:${matchup.join("-")}`, seats: seats.map((entry) => entry.seat), matchup };
+      known = { key: `${dicePerPlayer}:${matchup.join("-")}`, seats: seats.map((entry) => entry.seat), matchup };
       this.orderKeys.set(recorded, known);
     }
+    return known;
+  }
+
+  private matchupTally(known: { key: string; matchup: number[] }, dicePerPlayer: number): MatchupTally {
+    let ofMatchup = this.matchups.get(known.key);
+    if (!ofMatchup) {
+      ofMatchup = { ...this.emptyTally(known, dicePerPlayer), times: [], arrivals: [], codes: [], inOrder: true };
+      this.matchups.set(known.key, ofMatchup);
+    }
+    return ofMatchup;
+  }
+
+  private groupTally(known: { key: string; matchup: number[] }, entry: { groupId: string; groupNickname?: string; dicePerPlayer: number; source: RollSource }): GroupTally {
+    const groupKey = `${entry.groupId} ${known.key}`;
+    let ofGroup = this.groups.get(groupKey);
+    if (!ofGroup) {
+      ofGroup = { ...this.emptyTally(known, entry.dicePerPlayer), groupId: entry.groupId, nickname: null, sources: new Set() };
+      this.groups.set(groupKey, ofGroup);
+    }
+    ofGroup.sources.add(entry.source);
+    if (ofGroup.nickname === null && entry.groupNickname) ofGroup.nickname = entry.groupNickname;
+    return ofGroup;
+  }
+
+  /**
+   * Adds a group's win/tie/loss counts of one two-player matchup, rolls nobody recorded one by one: they count in the
+   * tallies, frequencies, intervals and tests, and add nothing to the convergence series. Throws a RangeError for
+   * counts that are not whole numbers from 0 or a matchup that is not two dice of the set.
+   */
+  addCounts(entry: PoolableCounts): void {
+    if (entry.matchup.length !== 2) throw new RangeError("Counts are for two-player matchups: two dice.");
+    const numbers = [entry.firstWins, entry.ties, entry.secondWins];
+    if (numbers.some((value) => !Number.isInteger(value) || value < 0)) throw new RangeError("Counts must be whole numbers from 0.");
+    const known = this.orderOf(entry.dicePerPlayer, entry.matchup);
+    const swapped = known.seats[0] === 1;
+    const firstWins = swapped ? entry.secondWins : entry.firstWins;
+    const secondWins = swapped ? entry.firstWins : entry.secondWins;
+    const rolls = firstWins + entry.ties + secondWins;
+    if (rolls === 0) return;
+    countCounts(this.matchupTally(known, entry.dicePerPlayer), firstWins, entry.ties, secondWins);
+    countCounts(this.groupTally(known, entry), firstWins, entry.ties, secondWins);
+    this.groupIds.add(entry.groupId);
+    this.bySource[entry.source] += rolls;
+    this.count += rolls;
+    this.counted += rolls;
+  }
+
+  addOne(roll: PoolableRoll): void {
+    const known = this.orderOf(roll.dicePerPlayer, roll.matchup);
     if (roll.totals.length !== known.seats.length) throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
     const totals = known.seats.map((seat) => roll.totals[seat]);
 
-    let ofMatchup = this.matchups.get(known.key);
-    if (!ofMatchup) {
-      ofMatchup = {
-        ...this.emptyTally(known, roll.dicePerPlayer),
-        times: [],
-        arrivals: [],
-        codes: [],
-        inOrder: true,
-      };
-      this.matchups.set(known.key, ofMatchup);
-    }
+    const ofMatchup = this.matchupTally(known, roll.dicePerPlayer);
     countRoll(ofMatchup, totals);
     if (this.series) {
       const time = Date.parse(roll.recordedAt);
@@ -419,15 +498,7 @@ export class RollPool {
       ofMatchup.codes.push(firstSeatCode(totals));
     }
 
-    const groupKey = `${roll.groupId} ${known.key}`;
-    let ofGroup = this.groups.get(groupKey);
-    if (!ofGroup) {
-      ofGroup = { ...this.emptyTally(known, roll.dicePerPlayer), groupId: roll.groupId, nickname: null, sources: new Set() };
-      this.groups.set(groupKey, ofGroup);
-    }
-    countRoll(ofGroup, totals);
-    ofGroup.sources.add(roll.source);
-    if (ofGroup.nickname === null && roll.groupNickname) ofGroup.nickname = roll.groupNickname;
+    countRoll(this.groupTally(known, roll), totals);
 
     this.groupIds.add(roll.groupId);
     this.bySource[roll.source] += 1;
@@ -446,6 +517,7 @@ export class RollPool {
       groups,
       totals: {
         rolls: this.count,
+        countedRolls: this.counted,
         bySource: { ...this.bySource },
         groups: this.groupIds.size,
         matchups: matchups.length,
@@ -455,7 +527,7 @@ export class RollPool {
   }
 
   private emptyTally(known: { key: string; matchup: number[] }, dicePerPlayer: number): SeatTally {
-    return { key: known.key, matchup: known.matchup, dicePerPlayer, seats: emptySeats(known.matchup, this.names), decided: 0, rolls: 0 };
+    return { key: known.key, matchup: known.matchup, dicePerPlayer, seats: emptySeats(known.matchup, this.names), decided: 0, rolls: 0, counted: 0 };
   }
 
   private exactFor(key: string, matchup: number[], dicePerPlayer: number): ExactFractions {
@@ -481,14 +553,16 @@ export class RollPool {
     const underTieRule = exactUnderTieRule(exact, tieRule);
     const sigma = underTieRule === null ? 0 : Math.sqrt(Math.max(0, scoreVariance(exact, tieRule, underTieRule)));
     const centre = underTieRule === null ? null : fractionToNumber(underTieRule);
-    const kept = this.series ? convergenceRollCounts(rolls) : [];
+    // Only rolls recorded one by one have an order; counts never enter the series.
+    const recordedRolls = tally.codes.length;
+    const kept = this.series ? convergenceRollCounts(recordedRolls) : [];
     const convergence: ConvergencePoint[] = [];
     // The running first-seat figures, replayed from the codes in recorded order.
     let wins = 0;
     let ties = 0;
     let decidedSoFar = 0;
     let next = 0;
-    for (let index = 0; index < rolls && next < kept.length; index += 1) {
+    for (let index = 0; index < recordedRolls && next < kept.length; index += 1) {
       const code = tally.codes[index];
       const first = code & 3;
       if (first === FIRST_WIN) wins += 1;
@@ -523,6 +597,7 @@ export class RollPool {
       dicePerPlayer,
       players: matchup.length,
       rolls,
+      countedRolls: tally.counted,
       decidedRolls: decided,
       seats: seats.map((seat) => ({ ...seat })),
       frequency: seats[0].wins / rolls,
@@ -563,6 +638,7 @@ export class RollPool {
       dicePerPlayer,
       players: matchup.length,
       rolls,
+      countedRolls: tally.counted,
       decidedRolls: decided,
       seats: seats.map((seat) => ({ ...seat })),
       sources: [...tally.sources],

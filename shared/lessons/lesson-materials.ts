@@ -3,6 +3,7 @@ import {
   analyzeSet,
   compareDice,
   fractionToNumber,
+  fractionToString,
   rollsNeededToExcludeHalf,
   wilsonIntervalFromProportion,
   winProbabilityUnderTieRule,
@@ -10,7 +11,8 @@ import {
   type ProportionInterval,
   type TieRule,
 } from "../probability/index";
-import type { LessonMaterialsFields } from "../schemas/lessons";
+import { LESSON_LIMITS, type LessonMaterialsFields } from "../schemas/lessons";
+import { paceText, rollPhaseBudget, rollPhaseMinutes, type RollPhaseBudget } from "./roll-pace";
 
 /** A die of the lesson's set, as the materials list needs it. */
 export interface MaterialsDie {
@@ -62,16 +64,37 @@ export interface MatchupVerdict {
   expectedInterval: ProportionInterval | null;
 }
 
-/** Whether the pooled rolls are enough for a convincing class result, and what to change if not. */
+/** The set's matchup that needs the fewest rolls, proposed when a main matchup is too close for one lesson. */
+export interface StrongestMatchup {
+  winner: string;
+  loser: string;
+  /** The winner's chance under the lesson's tie rule, exact. */
+  winChance: Fraction;
+  neededRolls: number;
+  /** Groups whose Roll phase makes the needed rolls when they all play it; null without a Roll phase. */
+  groupsInTime: number | null;
+}
+
+/** Whether the pooled rolls are enough for a convincing class result, and what to change if not, within the Roll phase. */
 export interface RollsVerdict {
   status: "enough" | "not-enough" | "no-set" | "no-winner";
   /** groups × rollsPerGroup. */
   pooledRolls: number;
+  /** The Roll phase's minutes, the common-practice pace and the rolls a group makes in them; null without a Roll phase. */
+  budget: RollPhaseBudget | null;
+  /** False when the plan's rolls per group do not fit in the Roll phase (the verdict then counts only those that fit). */
+  fitsTime: boolean;
   matchups: MatchupVerdict[];
-  /** Smallest rolls per group that gives every main matchup its needed rolls (with `suggestedGroups` groups); null when enough. */
+  /** Rolls per group to use (never more than fit in the Roll phase), with `suggestedGroups` groups; null when the plan's are right. */
   suggestedRollsPerGroup: number | null;
-  /** More groups, when some main matchups would otherwise get no group at all; null when the groups are enough. */
+  /** More groups (at most the lesson limit), when the rolls that fit are not enough with the planned groups; null otherwise. */
   suggestedGroups: number | null;
+  /** Simulated rolls per short matchup a Virtual class would add, when no class can make them in time; null otherwise. */
+  virtualTopUp: number | null;
+  /** Main matchups too close to show in one lesson ("Puffin over Gannet"). */
+  tooClose: string[];
+  /** Proposed when some main matchup is too close: the set's matchup that needs the fewest rolls. */
+  strongestMatchup: StrongestMatchup | null;
   message: string;
 }
 
@@ -151,7 +174,9 @@ function coverageOf(pair: [number, number], games: number[][], groups: number, m
  * a player holds `copiesPerPlayer` of each die. The verdict asks, for each main matchup, whether its pooled rolls reach
  * `rollsNeededToExcludeHalf` (the smallest n whose 95% Wilson score interval, Wilson 1927, at the expected win count
  * excludes 1/2), using the win chance under the lesson's tie rule. In a three-player game every roll also compares each
- * pair of players, so a pair's pooled rolls are the rolls of every game holding both dice.
+ * pair of players, so a pair's pooled rolls are the rolls of every game holding both dice. A group's rolls are capped by
+ * the Roll phase's time budget at the common-practice pace (roll-pace.ts): the verdict, its suggestions and the
+ * recording sheets' rows never count more rolls than fit.
  */
 export function lessonMaterials(plan: LessonMaterialsFields, dice: MaterialsDie[] | null): LessonMaterialsResult {
   const twistIncluded = plan.phases.some((entry) => entry.phase === "Twist" && entry.included);
@@ -161,15 +186,21 @@ export function lessonMaterials(plan: LessonMaterialsFields, dice: MaterialsDie[
   const pooledRolls = plan.groups * plan.rollsPerGroup;
   const notes: string[] = [];
   const sheetsPerGroup = twistIncluded ? 2 : 1;
+  const budget = rollPhaseBudget(rollPhaseMinutes(plan.phases), plan.mode);
+  // A sheet has rows for the rolls a group can make in the Roll phase, never for a plan that does not fit.
+  const rowsPerSheet = budget === null ? plan.rollsPerGroup : Math.max(1, Math.min(plan.rollsPerGroup, budget.rollsPerGroup));
   const recordingSheets = {
     perGroup: sheetsPerGroup,
     forGroups: sheetsPerGroup * plan.groups,
     spares,
     total: sheetsPerGroup * plan.groups + spares,
-    rowsPerSheet: plan.rollsPerGroup,
+    rowsPerSheet,
   };
   const exitTicketSlips = reflectIncluded && plan.exitTicket.trim() !== "" ? plan.groups * plan.pupilsPerGroup : 0;
-  notes.push(`Recording sheets: ${sheetsPerGroup === 2 ? "two per group (the Roll round and the Twist round)" : "one per group"}, each with room for ${plan.rollsPerGroup} rolls, plus ${spares} spare.`);
+  notes.push(`Recording sheets: ${sheetsPerGroup === 2 ? "two per group (the Roll round and the Twist round)" : "one per group"}, each with room for ${rowsPerSheet} rolls, plus ${spares} spare.`);
+  if (rowsPerSheet < plan.rollsPerGroup && budget !== null) {
+    notes.push(`The plan asks for ${plan.rollsPerGroup} rolls per group, but at ${paceText(budget)} a group makes about ${budget.rollsPerGroup} in the ${budget.minutes}-minute Roll phase, so the sheets have ${rowsPerSheet} rows.`);
+  }
 
   if (dice === null || dice.length === 0) {
     return {
@@ -177,9 +208,14 @@ export function lessonMaterials(plan: LessonMaterialsFields, dice: MaterialsDie[
       verdict: {
         status: "no-set",
         pooledRolls,
+        budget,
+        fitsTime: true,
         matchups: [],
         suggestedRollsPerGroup: null,
         suggestedGroups: null,
+        virtualTopUp: null,
+        tooClose: [],
+        strongestMatchup: null,
         message: "Choose a dice set to check whether the planned rolls are enough.",
       },
       games: [],
@@ -239,52 +275,125 @@ function rollsNeededUnderTieRule(result: MatchupResult, rule: TieRule): { tested
   return { testedChance, neededRolls: Math.ceil(decided / decidedShare), decidedShare };
 }
 
+/** The smallest number of groups (up to the lesson limit) whose rolls in the Roll phase give `pair` its needed rolls; null when none does. */
+function groupsReaching(pair: [number, number], games: number[][], fromGroups: number, matchupChoice: LessonMaterialsFields["matchupChoice"], rollsEach: number, needed: number): number | null {
+  for (let groups = fromGroups; groups <= LESSON_LIMITS.groupsMax; groups += 1) {
+    if (Math.floor(coverageOf(pair, games, groups, matchupChoice) * rollsEach) >= needed) return groups;
+  }
+  return null;
+}
+
+/** The set's matchup (two players, the lesson's dice each and tie rule) that needs the fewest rolls, or null when every matchup is even. */
+function strongestMatchupOf(plan: LessonMaterialsFields, dice: MaterialsDie[], rollsEach: number | null): StrongestMatchup | null {
+  let best: StrongestMatchup | null = null;
+  dice.forEach((first, firstIndex) =>
+    dice.forEach((second, secondIndex) => {
+      if (firstIndex === secondIndex) return;
+      const result = compareDice(first.faces, second.faces, { dicePerPlayer: plan.mode.dicePerPlayer });
+      const winChance = winProbabilityUnderTieRule(result, plan.tieRule);
+      if (winChance === null || winChance.compare(new Fraction(1, 2)) <= 0) return;
+      const { neededRolls } = rollsNeededUnderTieRule(result, plan.tieRule);
+      if (neededRolls === null || (best !== null && neededRolls >= best.neededRolls)) return;
+      best = { winner: first.name, loser: second.name, winChance, neededRolls, groupsInTime: rollsEach === null ? null : Math.ceil(neededRolls / rollsEach) };
+    }),
+  );
+  return best;
+}
+
 function rollsVerdict(plan: LessonMaterialsFields, dice: MaterialsDie[], main: MainMatchups, games: number[][], pooledRolls: number): RollsVerdict {
-  const base = { pooledRolls, suggestedRollsPerGroup: null, suggestedGroups: null };
+  const budget = rollPhaseBudget(rollPhaseMinutes(plan.phases), plan.mode);
+  const fitsTime = budget === null || plan.rollsPerGroup <= budget.rollsPerGroup;
+  // Only rolls that fit in the Roll phase count: a plan cannot promise more than a group can make.
+  const rollsEach = budget === null ? plan.rollsPerGroup : Math.min(plan.rollsPerGroup, budget.rollsPerGroup);
+  const cap = budget === null ? LESSON_LIMITS.rollsPerGroupMax : budget.rollsPerGroup;
+  const base = { pooledRolls, budget, fitsTime, suggestedRollsPerGroup: null, suggestedGroups: null, virtualTopUp: null, tooClose: [], strongestMatchup: null };
   if (main.pairs.length === 0) {
     return { ...base, status: "no-winner", matchups: [], message: "Every matchup of this set is even, so no number of rolls can show a winner." };
   }
+  const timeNote =
+    budget === null || fitsTime
+      ? ""
+      : ` ${plan.rollsPerGroup} rolls per group do not fit in the ${budget.minutes}-minute Roll phase: at ${paceText(budget)} a group makes about ${budget.rollsPerGroup}, so the verdict counts ${budget.rollsPerGroup}.`;
   const neededGroups = plan.matchupChoice === "assigned" && games.length > plan.groups ? games.length : plan.groups;
-  let suggestedRollsPerGroup = plan.rollsPerGroup;
   const matchups: MatchupVerdict[] = [];
+  const pairs: [number, number][] = [];
   for (const pair of main.pairs) {
     // A main matchup not in any game (three players, no cycle through every die) is left out of the verdict.
     if (!games.some((game) => game.includes(pair[0]) && game.includes(pair[1]))) continue;
     const result = compareDice(dice[pair[0]].faces, dice[pair[1]].faces, { dicePerPlayer: plan.mode.dicePerPlayer });
     const winChance = winProbabilityUnderTieRule(result, plan.tieRule) ?? new Fraction(1, 2);
     const { testedChance, neededRolls, decidedShare } = rollsNeededUnderTieRule(result, plan.tieRule);
-    const plannedRolls = Math.floor(coverageOf(pair, games, plan.groups, plan.matchupChoice) * plan.rollsPerGroup);
+    const plannedRolls = Math.floor(coverageOf(pair, games, plan.groups, plan.matchupChoice) * rollsEach);
     const enough = neededRolls !== null && plannedRolls >= neededRolls;
-    if (neededRolls !== null && !enough) {
-      const coverage = coverageOf(pair, games, neededGroups, plan.matchupChoice);
-      suggestedRollsPerGroup = Math.max(suggestedRollsPerGroup, Math.ceil(neededRolls / coverage));
-    }
     const effectiveRolls = plannedRolls * decidedShare;
     const expectedInterval = effectiveRolls > 0 ? wilsonIntervalFromProportion(fractionToNumber(testedChance), effectiveRolls, VERDICT_CONFIDENCE) : null;
     matchups.push({ winner: dice[pair[0]].name, loser: dice[pair[1]].name, winChance, tieChance: result.tie, testedChance, plannedRolls, neededRolls, enough, expectedInterval });
+    pairs.push(pair);
   }
   if (matchups.length === 0) {
     return { ...base, status: "no-winner", matchups, message: "No game of this lesson plays a matchup that one die wins." };
   }
   if (matchups.every((entry) => entry.enough)) {
-    return { ...base, status: "enough", matchups, message: `Enough: ${pooledRolls} pooled rolls give every main matchup the rolls it needs for a 95% interval that leaves out 1/2.` };
+    return {
+      ...base,
+      status: "enough",
+      matchups,
+      suggestedRollsPerGroup: fitsTime ? null : cap,
+      message: `Enough: ${fitsTime ? pooledRolls : rollsEach * plan.groups} pooled rolls give every main matchup the rolls it needs for a 95% interval that leaves out 1/2.${timeNote}`,
+    };
   }
-  if (matchups.every((entry) => entry.neededRolls === null)) {
-    return { ...base, status: "not-enough", matchups, message: "The main matchups are too close to even for any class to show a winner by rolling." };
-  }
-  const suggestedGroups = neededGroups > plan.groups ? neededGroups : null;
-  const suggestedRolls = suggestedRollsPerGroup > plan.rollsPerGroup ? suggestedRollsPerGroup : null;
+
+  // Groups first: the most any short matchup needs at the rolls that fit, within the lesson limit.
+  let groups = neededGroups;
+  const tooClose: string[] = [];
+  matchups.forEach((entry, index) => {
+    if (entry.enough) return;
+    const reaching = entry.neededRolls === null ? null : groupsReaching(pairs[index], games, neededGroups, plan.matchupChoice, cap, entry.neededRolls);
+    if (reaching === null) tooClose.push(`${entry.winner} over ${entry.loser}`);
+    else groups = Math.max(groups, reaching);
+  });
+  // Then the rolls per group those groups need (never more than fit in the Roll phase).
+  let rollsPerGroup = 1;
+  let virtualTopUp = 0;
+  matchups.forEach((entry, index) => {
+    if (entry.neededRolls === null) return;
+    const coverage = coverageOf(pairs[index], games, groups, plan.matchupChoice);
+    const perGroup = coverage === 0 ? cap : Math.ceil(entry.neededRolls / coverage);
+    rollsPerGroup = Math.max(rollsPerGroup, Math.min(cap, perGroup));
+    virtualTopUp = Math.max(virtualTopUp, entry.neededRolls - Math.floor(coverage * cap));
+  });
+  const suggestedGroups = groups > plan.groups ? groups : null;
+  const suggestedRolls = rollsPerGroup > plan.rollsPerGroup || !fitsTime ? rollsPerGroup : null;
+  const short = matchups.filter((entry) => !entry.enough).length;
   const parts = [
-    ...(suggestedGroups === null ? [] : [`${suggestedGroups} groups, so every main matchup is played`]),
+    ...(suggestedGroups === null ? [] : [`${suggestedGroups} groups${suggestedGroups === neededGroups && neededGroups > plan.groups ? ", so every main matchup is played" : ""}`]),
     ...(suggestedRolls === null ? [] : [`${suggestedRolls} rolls per group`]),
   ];
-  const short = matchups.filter((entry) => !entry.enough).length;
+  const topUp = tooClose.length > 0 && virtualTopUp > 0 ? virtualTopUp : null;
+  const strongest = tooClose.length > 0 ? strongestMatchupOf(plan, dice, budget === null ? null : cap) : null;
+  const sentences = [`Not enough yet: ${short} of ${matchups.length} main matchups fall short.${timeNote}`];
+  if (parts.length > 0) sentences.push(`Try ${parts.join(" and ")}.`);
+  if (tooClose.length > 0) {
+    const limit = budget === null ? "" : ` in the ${budget.minutes}-minute Roll phase`;
+    sentences.push(`${tooClose.join(", ")} ${tooClose.length === 1 ? "is" : "are"} too close to show in one lesson: even ${LESSON_LIMITS.groupsMax} groups cannot make the rolls needed${limit}.`);
+    if (topUp !== null) sentences.push(`A Virtual class could top the class up with about ${topUp} simulated rolls of each short matchup (marked simulated).`);
+    if (strongest !== null) {
+      const s = strongest as StrongestMatchup;
+      const groupsText = s.groupsInTime === null ? "" : `, about ${s.groupsInTime} ${s.groupsInTime === 1 ? "group's" : "groups'"} Roll phase`;
+      sentences.push(`The set's strongest matchup, ${s.winner} over ${s.loser} (wins ${fractionToString(s.winChance)}), needs about ${s.neededRolls} rolls${groupsText}.`);
+    }
+  }
   return {
     status: "not-enough",
     pooledRolls,
+    budget,
+    fitsTime,
     matchups,
     suggestedRollsPerGroup: suggestedRolls,
     suggestedGroups,
-    message: `Not enough yet: ${short} of ${matchups.length} main matchups fall short. Try ${parts.join(" and ")}.`,
+    virtualTopUp: topUp,
+    tooClose,
+    strongestMatchup: strongest,
+    message: sentences.join(" "),
   };
 }

@@ -67,6 +67,8 @@ export const summaryExportColumns = [
   "wilson_95_upper",
   "binomial_p_value",
   "implausible",
+  "entered_as",
+  "rolls_from_counts",
 ] as const;
 export type SummaryExportColumn = (typeof summaryExportColumns)[number];
 export type SummaryExportRow = Record<SummaryExportColumn, string | number | null>;
@@ -92,4 +94,6 @@ export const summaryExportColumnHelp: Record<SummaryExportColumn, string> = {
   wilson_95_upper: "Upper end of the Wilson 95% score interval.",
   binomial_p_value: "Group rows: the exact two-sided binomial test's p-value of the group's outright wins against the exact chance.",
   implausible: "Group rows: yes when that p-value is below 0.01, a sign the recording may need checking.",
+  entered_as: "rolls when every roll of the row was recorded one by one; counts when the row's rolls were typed into the tally grid as win/tie/loss counts only; rolls and counts when both.",
+  rolls_from_counts: "How many of the row's rolls were entered as counts: they are in every figure of the row, but have no row in the rolls export and no point in the convergence chart.",
 };

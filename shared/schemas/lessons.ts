@@ -110,7 +110,7 @@ export const lessonMaterialsFieldsSchema = z
     pupilsPerGroup: planFields.pupilsPerGroup,
     rollsPerGroup: planFields.rollsPerGroup,
     matchupChoice: planFields.matchupChoice,
-    phases: z.array(lessonPhaseSchema.pick({ phase: true, included: true })),
+    phases: z.array(lessonPhaseSchema.pick({ phase: true, included: true, minutes: true })),
     exitTicket: z.string(),
   })
   .refine(playersFitGroups, playersFitGroupsIssue);

@@ -53,6 +53,8 @@ export type ResultsRunSummary = {
   rollCount: number;
   simulatedRollCount: number;
   paperRollCount: number;
+  /** Of rollCount (and paperRollCount), the rolls typed into the tally grid as win/tie/loss counts, with no roll-level record. */
+  countedRollCount: number;
   groupCount: number;
   recordedOn: RecordedOn;
   ownerName: string;
@@ -97,6 +99,8 @@ export type PooledQuery = z.infer<typeof pooledQuerySchema>;
 /** POST /api/results/paper-runs: a closed run for rolls recorded only on paper, made from one of the teacher's lessons. */
 export const paperRunInputSchema = z.object({
   lessonId: z.uuid({ error: "Pick one of your lessons." }),
+  // The class taught; the lesson's own class when left out, so a second class's paper run shows under its own name.
+  classGroup: z.string().trim().max(40, "Keep the class under 40 characters.").optional(),
   taughtOn: isoDate.optional(),
 });
 export type PaperRunInput = z.infer<typeof paperRunInputSchema>;

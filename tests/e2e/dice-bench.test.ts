@@ -3,7 +3,6 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { paperImportColumns } from "@shared/schemas/paper-import";
 import type { DiceSet } from "@shared/schemas/dice-sets";
 import { demoPassword, demoTeachers } from "../../seed/demo-scenario";
 import { openBrowser, screenshot, signInThroughUi, viewports } from "../helpers/browser";
@@ -153,6 +152,8 @@ describe("the Dice bench and the Set finder in chromium", () => {
     await choose(page, "ties score half");
     await expect(page.getByTestId("series-outcome").textContent()).resolves.toMatch(/ends level with/);
     await expect(page.getByTestId("pooled-rolls").textContent()).resolves.toMatch(/Pool about \d+ rolls/);
+    // The default 15-minute Roll phase: 45 rolls a group at 3 a minute (one die each), 30 at 2 a minute (two dice each).
+    await expect(page.getByTestId("pooled-rolls-in-time").textContent()).resolves.toMatch(/about (3 rolls a minute .* about 45|2 rolls a minute .* about 30) rolls in 15 minutes/);
     await screenshot(page, "dice-bench-series-laptop");
 
     // One box per face: add a face, then remove it again.
@@ -335,18 +336,22 @@ describe("the Dice bench and the Set finder in chromium", () => {
 
     await choose(page, "Recording sheet");
     await page.waitForURL(/kind=sheet/);
-    const headings = await page.getByTestId("recording-sheet").locator("thead tr").first().locator("th").allTextContents();
-    expect(headings).toEqual([...paperImportColumns]);
-    await expect(page.getByTestId("recording-sheet").locator("tbody tr").count()).resolves.toBeGreaterThan(10);
+    // Plain headings, a column per player; without a lesson the sheet has 20 lines for two players, one die each.
+    const headings = () => page.getByTestId("recording-sheet").first().locator("thead th").evaluateAll((cells) => cells.map((cell) => cell.firstChild?.textContent ?? ""));
+    await expect(headings()).resolves.toEqual(["Roll", "Player 1 rolled", "Player 2 rolled", "Who won?"]);
+    await expect(page.getByTestId("recording-sheet").locator("tbody tr").count()).resolves.toBe(20);
     await screenshot(page, "print-sheet-letter-laptop");
-    // The recording sheet prints landscape, 792 × 612 pt, on one page.
+    // The recording sheet prints portrait, 612 × 792 pt, on one page.
     const sheet = await page.pdf({ preferCSSPageSize: true });
-    expectPageSize(sheet, [792, 612]);
+    expectPageSize(sheet, [612, 792]);
     expect(pdfPageCount(sheet)).toBe(1);
     await choose(page, "A4");
     await page.waitForURL(/kind=sheet&paper=a4/);
+    await choose(page, "Three players");
+    await page.waitForURL(/players=3/);
+    await expect(headings()).resolves.toEqual(["Roll", "Player 1 rolled", "Player 2 rolled", "Player 3 rolled", "Who won?"]);
     const a4Sheet = await page.pdf({ preferCSSPageSize: true });
-    expectPageSize(a4Sheet, [841.89, 595.28]);
+    expectPageSize(a4Sheet, [595.28, 841.89]);
     expect(pdfPageCount(a4Sheet)).toBe(1);
   });
 

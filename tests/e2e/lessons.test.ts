@@ -83,23 +83,43 @@ describe("Lessons in chromium", () => {
     await page.waitForURL(`${appUrl}/app/lessons/${lessonId}`);
     const verdict = page.getByTestId("verdict-message");
     const totalDice = page.getByTestId("total-dice");
-    // 6 groups × 30 rolls over the 3 matchups round the cycle: 60 each, short of the 139 that 7/12 needs and the 312 that 5/9 needs.
-    await expect.poll(() => verdict.textContent()).toMatch(/^Not enough yet: 2 of 3 main matchups fall short\. Try 156 rolls per group\./);
+    const pace = page.getByTestId("roll-pace");
+    const sheets = page.getByTestId("recording-sheets");
+    // A 10-minute Roll phase at 3 rolls a minute (our common-practice pace) gives 30 rolls a group. 6 groups × 30 rolls
+    // over the 3 matchups round the cycle: 60 each, short of the 139 that 7/12 needs and the 312 that 5/9 needs; even 20
+    // groups make only 7 × 30 = 210 rolls of Auk v Eider, so the verdict says it is too close and proposes Tern over Auk.
+    await expect.poll(() => pace.textContent()).toContain("a 10-minute Roll phase at about 3 rolls a minute");
+    await expect.poll(() => verdict.textContent()).toMatch(/^Not enough yet: 2 of 3 main matchups fall short\. Try 15 groups\./);
+    await expect(verdict.textContent()).resolves.toContain("Auk over Eider is too close to show in one lesson");
+    await expect(verdict.textContent()).resolves.toContain("The set's strongest matchup, Tern over Auk (wins 25/36), needs about 26 rolls");
     // 6 groups, 2 per matchup: each die sits in 4 groups' games; 2 spares each.
     await expect.poll(() => totalDice.textContent()).toBe("18");
 
     await fill(page, "Groups", "9");
     await expect.poll(() => totalDice.textContent()).toBe("27");
+    // More rolls than fit in the Roll phase are never promised: the sheets keep 30 rows and the plan is offered 30.
+    await fill(page, "Rolls per group", "110");
+    await expect.poll(() => verdict.textContent()).toContain("110 rolls per group do not fit in the 10-minute Roll phase");
+    await expect.poll(() => sheets.textContent()).toContain("room for 30 rolls each");
+    await page.getByRole("button", { name: "Use 30 rolls per group" }).click();
+    await expect.poll(() => page.getByLabel("Rolls per group", { exact: true }).inputValue()).toBe("30");
+    await screenshot(page, "lesson-editor-too-close-laptop");
+
+    // A 40-minute Roll phase holds 120 rolls a group: 9 groups × 110 rolls are enough.
+    await fill(page, "Roll minutes", "40");
     await fill(page, "Rolls per group", "110");
     await expect.poll(() => verdict.textContent()).toMatch(/^Enough: 990 pooled rolls/);
     await screenshot(page, "lesson-editor-enough-laptop");
 
-    await fill(page, "Groups", "2");
-    await expect.poll(() => verdict.textContent()).toMatch(/Try 3 groups, so every main matchup is played/);
-    await page.getByRole("button", { name: "Use 3 groups" }).click();
-    await expect.poll(() => page.getByLabel("Groups", { exact: true }).inputValue()).toBe("3");
+    // The issue's impossible plan: 312 rolls a group. The verdict counts the 120 that fit and suggests more groups instead.
+    await fill(page, "Groups", "3");
     await fill(page, "Rolls per group", "312");
-    await expect.poll(() => verdict.textContent()).toMatch(/^Enough: 936 pooled rolls/);
+    await expect.poll(() => verdict.textContent()).toMatch(/312 rolls per group do not fit in the 40-minute Roll phase.*Try 8 groups and 104 rolls per group\./);
+    await expect.poll(() => sheets.textContent()).toContain("room for 120 rolls each");
+    await expect(page.getByRole("button", { name: "Use 312 rolls per group" }).count()).resolves.toBe(0);
+    await page.getByRole("button", { name: "Use 104 rolls per group" }).click();
+    await expect.poll(() => page.getByLabel("Rolls per group", { exact: true }).inputValue()).toBe("104");
+    await expect.poll(() => sheets.textContent()).toContain("room for 104 rolls each");
 
     await page.getByRole("button", { name: "Save lesson" }).first().click();
     await page.getByText("Saved (version 2).").waitFor();

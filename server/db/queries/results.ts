@@ -3,7 +3,7 @@ import type { ResultsListQuery } from "@shared/schemas/results";
 import type { SetDie } from "@shared/schemas/dice-sets";
 import type { RollSource } from "@shared/class-results/pooled-results";
 import { pool, type Executor } from "../client";
-import { classRun, diceSet, guessVote, lesson, paperImport, roll, runGroup, user } from "../schema/index";
+import { classRun, diceSet, guessVote, lesson, paperCount, paperImport, roll, runGroup, user } from "../schema/index";
 import { setAsideGroups } from "./class-runs";
 
 export type ClassRunRow = typeof classRun.$inferSelect;
@@ -16,6 +16,8 @@ export type ResultsRunListRecord = ResultsRunRecord & {
   rollCount: number;
   simulatedRollCount: number;
   paperRollCount: number;
+  /** Of rollCount (and paperRollCount), the rolls typed into the tally grid as win/tie/loss counts. */
+  countedRollCount: number;
   groupCount: number;
 };
 
@@ -29,14 +31,17 @@ const liveRoll = (runId: SQL | typeof classRun.id) => and(eq(roll.runId, runId),
 
 const countOf = (condition: SQL | undefined) => sql<number>`(select count(*)::int from ${roll} where ${condition})`;
 
-const rollCount = countOf(liveRoll(classRun.id));
+// Rolls typed into the tally grid as win/tie/loss counts: they count as paper rolls, though no roll row stands for them.
+const countedRollCount = sql<number>`(select coalesce(sum(${paperCount.firstWins} + ${paperCount.ties} + ${paperCount.secondWins}), 0)::int from ${paperCount} where ${paperCount.runId} = ${classRun.id} and ${paperCount.groupId} not in (${setAsideGroups(classRun.id)}))`;
+const rollCount = sql<number>`(${countOf(liveRoll(classRun.id))} + ${countedRollCount})`;
 const groupCount = sql<number>`(select count(*)::int from ${runGroup} where ${runGroup.runId} = ${classRun.id} and ${runGroup.removedAt} is null)`;
 const columnsWithCounts = {
   ...columnsOfRun,
   ownerName: user.name,
   rollCount,
   simulatedRollCount: countOf(and(liveRoll(classRun.id), eq(roll.source, "simulated"))),
-  paperRollCount: countOf(and(liveRoll(classRun.id), eq(roll.source, "paper"))),
+  paperRollCount: sql<number>`(${countOf(and(liveRoll(classRun.id), eq(roll.source, "paper")))} + ${countedRollCount})`,
+  countedRollCount,
   groupCount,
 };
 

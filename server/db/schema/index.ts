@@ -12,3 +12,4 @@ export { lessonTemplate, lessonTemplateVersion, shelfProposal } from "./lesson-t
 export { proposalDigest } from "./proposal-digests";
 export { lessonAttachment } from "./lesson-attachments";
 export { classRun, runGroup, guessVote, paperImport, roll } from "./class-runs";
+export { paperCount } from "./paper-counts";

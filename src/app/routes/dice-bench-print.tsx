@@ -1,9 +1,10 @@
 import { useParams, useSearchParams } from "react-router-dom";
+import { recordingSheetPlanFromParams } from "@shared/results/recording-sheet-layout";
 import { Alert } from "@/components/ui/alert";
 import { useDiceSet } from "@/features/dice-bench/api/get-dice-set";
 import { PrintView } from "@/features/dice-bench/components/printables/print-view";
 
-/** /app/bench/:id/print?kind=nets|sheet&paper=a4|letter */
+/** /app/bench/:id/print?kind=nets|sheet&paper=a4|letter, and for the sheet &rolls=&players=&dice= (a lesson's plan) */
 export function DiceBenchPrintRoute() {
   const { id = "" } = useParams();
   const [params] = useSearchParams();
@@ -18,5 +19,5 @@ export function DiceBenchPrintRoute() {
       </Alert>
     );
   }
-  return <PrintView set={set.data} kind={kind} paper={paper} />;
+  return <PrintView set={set.data} kind={kind} paper={paper} plan={recordingSheetPlanFromParams(params)} />;
 }

@@ -3,6 +3,7 @@ import { useCurrentTeacher } from "@/features/account/api/get-current-teacher";
 import { ClassReportPage } from "@/features/results/components/class-report-page";
 import { NewPaperRunPage } from "@/features/results/components/new-paper-run-page";
 import { PaperImportPage } from "@/features/results/components/paper-import-page";
+import { TallyGridPage } from "@/features/results/components/tally-grid-page";
 import { PoolingPage } from "@/features/results/components/pooling-page";
 import { ResultsArchive } from "@/features/results/components/results-archive";
 import { RunResultsPage } from "@/features/results/components/run-results-page";
@@ -18,13 +19,18 @@ function PaperImportRoute() {
   return <PaperImportPage key={runId} runId={runId} />;
 }
 
+function TallyGridRoute() {
+  const { runId = "" } = useParams();
+  return <TallyGridPage key={runId} runId={runId} />;
+}
+
 function ClassReportRoute() {
   const { runId = "" } = useParams();
   const [params] = useSearchParams();
   return <ClassReportPage runId={runId} includeSimulated={params.get("includeSimulated") !== "false"} />;
 }
 
-/** The Results area: archive, a run's results, Paper import, the class report and pooling across classes. */
+/** The Results area: archive, a run's results, Paper import, the tally grid, the class report and pooling across classes. */
 export function ResultsRoutes() {
   const teacher = useCurrentTeacher();
   const canSeeDepartment = teacher.data?.role === "head";
@@ -35,6 +41,7 @@ export function ResultsRoutes() {
       <Route path="paper-runs/new" element={<NewPaperRunPage />} />
       <Route path=":runId" element={<RunResultsRoute />} />
       <Route path=":runId/paper-import" element={<PaperImportRoute />} />
+      <Route path=":runId/tally-grid" element={<TallyGridRoute />} />
       <Route path=":runId/report" element={<ClassReportRoute />} />
       <Route path="*" element={<NotFoundRoute inShell />} />
     </Routes>

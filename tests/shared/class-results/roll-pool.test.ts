@@ -182,3 +182,59 @@ describe("BoardPool, a Run board's running pools", () => {
     expect(() => board.add([{ ...rolls[0], source: "simulated" }])).toThrow(SimulatedRollError);
   });
 });
+
+describe("RollPool.addCounts: win/tie/loss counts with no rolls behind them", () => {
+  const rollOf = (groupId: string, matchup: number[], totals: number[], second: number): PoolableRoll => ({
+    groupId,
+    tally: 1,
+    dicePerPlayer: 1,
+    matchup,
+    totals,
+    winnerSeat: null,
+    source: "paper",
+    recordedAt: new Date(Date.UTC(2026, 2, 1, 9, 0, second)).toISOString(),
+  });
+
+  it("gives every count, frequency, interval and test the same figures as the same rolls added one by one", () => {
+    fc.assert(
+      fc.property(fc.nat(30), fc.nat(30), fc.nat(30), fc.boolean(), fc.constantFrom<TieRule>(...TIE_RULES), (firstWins, ties, secondWins, typedSwapped, tieRule) => {
+        // Fulmar (die 0) v Shag (die 1), totals as recorded: 6 v 5 a win for Fulmar, 5 v 5 a tie, 4 v 5 a win for Shag.
+        const rolls: PoolableRoll[] = [];
+        let second = 0;
+        for (let index = 0; index < firstWins; index += 1) rolls.push(rollOf("crew", [0, 1], [6, 5], second++));
+        for (let index = 0; index < ties; index += 1) rolls.push(rollOf("crew", [0, 1], [5, 5], second++));
+        for (let index = 0; index < secondWins; index += 1) rolls.push(rollOf("crew", [0, 1], [4, 5], second++));
+        const byRolls = new RollPool(dice, tieRule).add(rolls).result();
+        const counted = new RollPool(dice, tieRule);
+        counted.addCounts(
+          typedSwapped
+            ? { groupId: "crew", tally: 1, dicePerPlayer: 1, matchup: [1, 0], firstWins: secondWins, ties, secondWins: firstWins, source: "paper" }
+            : { groupId: "crew", tally: 1, dicePerPlayer: 1, matchup: [0, 1], firstWins, ties, secondWins, source: "paper" },
+        );
+        const byCounts = counted.result();
+        const total = firstWins + ties + secondWins;
+        expect(byCounts.totals).toEqual({ ...byRolls.totals, countedRolls: total });
+        expect(byCounts.matchups.length).toBe(byRolls.matchups.length);
+        for (const [index, entry] of byCounts.matchups.entries()) {
+          const { convergence: countedSeries, countedRolls, ...countedFigures } = entry;
+          const { convergence: rolledSeries, countedRolls: none, ...rolledFigures } = byRolls.matchups[index];
+          expect(countedFigures).toEqual(rolledFigures);
+          expect(countedRolls).toBe(total);
+          expect(none).toBe(0);
+          // Counts have no order, so they add no point to the convergence series.
+          expect(countedSeries).toEqual([]);
+          expect(rolledSeries.length).toBeGreaterThan(0);
+        }
+        expect(byCounts.groups.map(({ countedRolls, ...group }) => group)).toEqual(byRolls.groups.map(({ countedRolls, ...group }) => group));
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it("refuses counts that are not whole numbers from 0, or that are not for two dice", () => {
+    const pool = new RollPool(dice, "re-roll-ties");
+    expect(() => pool.addCounts({ groupId: "g", tally: 1, dicePerPlayer: 1, matchup: [0, 1], firstWins: -1, ties: 0, secondWins: 0, source: "paper" })).toThrow(RangeError);
+    expect(() => pool.addCounts({ groupId: "g", tally: 1, dicePerPlayer: 1, matchup: [0, 1, 2], firstWins: 1, ties: 0, secondWins: 0, source: "paper" })).toThrow(RangeError);
+    expect(pool.size).toBe(0);
+  });
+});

@@ -21,10 +21,29 @@ const z95 = jStat.normal.inv(0.975, 0, 1);
 /** Score-test planning size n > z²/(4(p − 1/2)²), with z from jstat (outside reference; common practice for planning). */
 const plannedSize = (p: number) => Math.floor((z95 * z95) / (4 * (p - 0.5) ** 2)) + 1;
 
+/** A plan without a Twist and with a 30-minute Roll phase (room for 90 rolls at 3 a minute), unless overridden. */
 function plan(overrides: Partial<LessonInput> = {}): LessonInput {
-  const base = { ...emptyLessonInput(), title: "Test", phases: emptyLessonInput().phases.map((entry) => ({ ...entry, included: entry.phase !== "Twist" })) };
-  return { ...base, ...overrides };
+  const phases = emptyLessonInput().phases.map((entry) => ({ ...entry, included: entry.phase !== "Twist", minutes: entry.phase === "Roll" ? 30 : entry.minutes }));
+  return { ...emptyLessonInput(), title: "Test", phases, ...overrides };
 }
+
+/** The same plan with a Roll phase of `minutes`. */
+function withRollMinutes(input: LessonInput, minutes: number): LessonInput {
+  return { ...input, phases: input.phases.map((entry) => (entry.phase === "Roll" ? { ...entry, minutes } : entry)) };
+}
+
+// Our demo Kittiwake trio: each die of the cycle wins 7/12 (checked in tests/shared/set-finder/demo-dice-sets.test.ts).
+const kittiwake = [
+  { name: "Puffin", faces: [1, 1, 6, 6, 7, 11] },
+  { name: "Gannet", faces: [3, 3, 4, 4, 5, 10] },
+  { name: "Skua", faces: [2, 2, 2, 8, 8, 9] },
+];
+// Our own transitive trio with one close matchup: Middle beats Low 16 to 15 in 36 (5 ties), High beats both outright or nearly.
+const nearlyEven = [
+  { name: "Low", faces: [1, 2, 3, 4, 5, 6] },
+  { name: "Middle", faces: [1, 2, 3, 4, 5, 7] },
+  { name: "High", faces: [7, 7, 7, 7, 7, 8] },
+];
 
 describe("lessonMaterials: the materials list", () => {
   it("gives each group the dice of its assigned matchup round the cycle", () => {
@@ -165,5 +184,60 @@ describe("lessonMaterials: is the class's pooled result convincing?", () => {
     const result = lessonMaterials(plan({ groups: 3 }), transitive);
     expect(result.mainMatchupSource).toBe("beats");
     expect(result.verdict.matchups.map((entry) => `${entry.winner}>${entry.loser}`).sort()).toEqual(["High>Low", "High>Middle", "Middle>Low"]);
+  });
+});
+
+describe("lessonMaterials: the rolls verdict within the Roll phase", () => {
+  it("counts only the rolls that fit in the Roll phase at the common-practice pace", () => {
+    // 15 minutes at 3 rolls a minute (our common-practice pace for one die each, two players) = 45 rolls per group.
+    const result = lessonMaterials(withRollMinutes(plan({ groups: 3, rollsPerGroup: 312 }), 15), kittiwake);
+    expect(result.verdict.budget).toEqual({ minutes: 15, rollsPerMinute: 3, rollsPerGroup: 45 });
+    expect(result.verdict.fitsTime).toBe(false);
+    expect(result.verdict.matchups.map((entry) => entry.plannedRolls)).toEqual([45, 45, 45]);
+    expect(result.verdict.message).toContain("312 rolls per group do not fit in the 15-minute Roll phase");
+    expect(result.verdict.suggestedRollsPerGroup).not.toBeNull();
+    expect(result.verdict.suggestedRollsPerGroup!).toBeLessThanOrEqual(45);
+    // The sheets never promise the rolls that do not fit.
+    expect(result.materials.recordingSheets.rowsPerSheet).toBe(45);
+    expect(result.materials.notes.join(" ")).not.toContain("312 rolls each");
+  });
+
+  it("suggests more groups rather than more rolls than fit: 3 groups × 20 rolls of a 7/12 cycle in 15 minutes", () => {
+    const result = lessonMaterials(withRollMinutes(plan({ groups: 3, rollsPerGroup: 20 }), 15), kittiwake);
+    // Each main matchup needs the planning size for p = 7/12 (139); 45 rolls a group reach it with 4 groups per matchup.
+    expect(plannedSize(7 / 12)).toBe(139);
+    expect(result.verdict.matchups.map((entry) => entry.neededRolls)).toEqual([139, 139, 139]);
+    expect(result.verdict.status).toBe("not-enough");
+    expect(result.verdict.suggestedGroups).toBe(12);
+    expect(result.verdict.suggestedRollsPerGroup).toBe(Math.ceil(139 / 4));
+    expect(result.verdict.tooClose).toEqual([]);
+    const applied = lessonMaterials(withRollMinutes(plan({ groups: 12, rollsPerGroup: 35 }), 15), kittiwake);
+    expect(applied.verdict.status).toBe("enough");
+  });
+
+  it("slows the pace to 2 rolls a minute with two dice each", () => {
+    const result = lessonMaterials(withRollMinutes(plan({ groups: 4, mode: { dicePerPlayer: 2, players: 2 } }), 15), gardner);
+    expect(result.verdict.budget).toEqual({ minutes: 15, rollsPerMinute: 2, rollsPerGroup: 30 });
+  });
+
+  it("says plainly when a matchup is too close for one lesson, offers a Virtual class top-up and proposes the strongest matchup", () => {
+    const result = lessonMaterials(withRollMinutes(plan({ groups: 6, rollsPerGroup: 30 }), 15), nearlyEven);
+    // Middle over Low under re-roll ties: 16/31, so the planning size is in the thousands, beyond 20 groups × 45 rolls.
+    const close = result.verdict.matchups.find((entry) => entry.winner === "Middle")!;
+    expect(close.testedChance.equals(new Fraction(16, 31))).toBe(true);
+    expect(close.neededRolls).toBe(plannedSize(16 / 31));
+    expect(result.verdict.tooClose).toEqual(["Middle over Low"]);
+    expect(result.verdict.message).toContain("too close to show in one lesson");
+    expect(result.verdict.virtualTopUp).toBeGreaterThan(0);
+    expect(result.verdict.strongestMatchup).toMatchObject({ winner: "High", loser: "Low", neededRolls: 4, groupsInTime: 1 });
+    expect(result.verdict.suggestedRollsPerGroup ?? 0).toBeLessThanOrEqual(45);
+  });
+
+  it("does not check the time when the lesson has no Roll phase", () => {
+    const noRoll = plan({ groups: 4, rollsPerGroup: 500 });
+    const result = lessonMaterials({ ...noRoll, phases: noRoll.phases.map((entry) => (entry.phase === "Roll" ? { ...entry, included: false } : entry)) }, gardner);
+    expect(result.verdict.budget).toBeNull();
+    expect(result.verdict.fitsTime).toBe(true);
+    expect(result.materials.recordingSheets.rowsPerSheet).toBe(500);
   });
 });

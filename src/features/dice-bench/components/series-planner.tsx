@@ -11,6 +11,8 @@ import {
   type TieRule,
   winProbabilityUnderTieRule,
 } from "@shared/probability/index";
+import { classTimePlan, rollPhaseBudget, type RollPhaseBudget } from "@shared/lessons/roll-pace";
+import { LESSON_LIMITS } from "@shared/schemas/lessons";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { SelectField } from "@/components/ui/select-field";
 import { TextField } from "@/components/ui/text-field";
@@ -42,6 +44,7 @@ export function SeriesPlanner({ dice, choice, onChoice }: { dice: BenchDie[]; ch
   const [games, setGames] = useState(5);
   const [rollsText, setRollsText] = useState("30");
   const [groupsText, setGroupsText] = useState("8");
+  const [minutesText, setMinutesText] = useState("15");
   const rollsId = useId();
   const first = dice[choice.first];
   const second = dice[choice.second];
@@ -49,6 +52,8 @@ export function SeriesPlanner({ dice, choice, onChoice }: { dice: BenchDie[]; ch
   const everyRollTies = result.win.add(result.loss).equals(0);
   const rolls = wholeNumber(rollsText, 1, 100_000);
   const groups = wholeNumber(groupsText, 1, 60);
+  const minutes = wholeNumber(minutesText, 1, LESSON_LIMITS.phaseMinutesMax);
+  const budget = minutes === null ? null : rollPhaseBudget(minutes, { dicePerPlayer: choice.dicePerPlayer, players: 2 });
   const underRule = winProbabilityUnderTieRule(result, tieRule);
   const pooled = underRule === null ? null : rollsNeededToExcludeHalf(underRule);
   const leader = underRule !== null && underRule.compare(0.5) < 0 ? second.name : first.name;
@@ -157,6 +162,13 @@ export function SeriesPlanner({ dice, choice, onChoice }: { dice: BenchDie[]; ch
                 onChange={(event) => setGroupsText(event.target.value)}
                 error={groups === null ? "Enter a whole number of groups from 1 to 60." : undefined}
               />
+              <TextField
+                label="Roll phase (minutes)"
+                inputMode="numeric"
+                value={minutesText}
+                onChange={(event) => setMinutesText(event.target.value)}
+                error={minutes === null ? `Enter a whole number of minutes from 1 to ${LESSON_LIMITS.phaseMinutesMax}.` : undefined}
+              />
             </div>
             <p data-testid="pooled-rolls">
               {pooled === null ? (
@@ -175,6 +187,11 @@ export function SeriesPlanner({ dice, choice, onChoice }: { dice: BenchDie[]; ch
                 </>
               )}
             </p>
+            {pooled !== null && groups !== null && budget !== null && (
+              <p data-testid="pooled-rolls-in-time">
+                <TimeAdvice pooled={pooled} groups={groups} budget={budget} />
+              </p>
+            )}
           </section>
         </>
       )}
@@ -206,5 +223,26 @@ function SeriesSentence({
       {second} with {probabilityText(outcome.loss)}
       {tieRule === "re-roll-ties" ? "." : `, and it ends level with ${probabilityText(outcome.draw)}.`}
     </p>
+  );
+}
+
+/** Whether the class can make the pooled rolls in the Roll phase at the common-practice pace, and what to do if not. */
+function TimeAdvice({ pooled, groups, budget }: { pooled: number; groups: number; budget: RollPhaseBudget }) {
+  const pace = `At about ${budget.rollsPerMinute} rolls a minute (a common-practice pace, not a published rule) a group makes about ${budget.rollsPerGroup} rolls in ${budget.minutes} minutes`;
+  const plan = classTimePlan(pooled, groups, budget, LESSON_LIMITS.groupsMax);
+  if (plan.kind === "fits") return <>{pace}, so {groups} groups have time for their {plan.perGroup} each.</>;
+  if (plan.kind === "more-groups") {
+    return (
+      <>
+        {pace}, not {plan.perGroup}: play this matchup with about <strong>{plan.groupsNeeded}</strong> groups, or top the class up with the Virtual class (simulated rolls,
+        marked simulated).
+      </>
+    );
+  }
+  return (
+    <>
+      {pace}: this matchup is too close to show in one lesson ({LESSON_LIMITS.groupsMax} groups make about {plan.mostRolls}). Choose a stronger matchup, or pool several
+      classes or the Virtual class.
+    </>
   );
 }

@@ -355,6 +355,11 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                 tieRule={values.tieRule ?? "re-roll-ties"}
                 onUseRolls={readOnly ? undefined : (rolls) => setValue("rollsPerGroup", rolls, { shouldDirty: true, shouldValidate: true })}
                 onUseGroups={readOnly ? undefined : (groups) => setValue("groups", groups, { shouldDirty: true, shouldValidate: true })}
+                sheetHref={
+                  chosenId && values.mode
+                    ? (rows) => `/app/bench/${chosenId}/print?kind=sheet&paper=a4&rolls=${rows}&players=${values.mode!.players}&dice=${values.mode!.dicePerPlayer}`
+                    : undefined
+                }
               />
             </aside>
 

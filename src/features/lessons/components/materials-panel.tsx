@@ -1,3 +1,4 @@
+import { Link } from "react-router-dom";
 import { fractionToPercent, fractionToString } from "@shared/probability/index";
 import type { LessonMaterialsResult } from "@shared/lessons/lesson-materials";
 import type { SetDie } from "@shared/schemas/dice-sets";
@@ -37,6 +38,11 @@ export function RollsVerdictView({
       </h3>
       <p className="mt-2" data-testid="verdict-message">
         {verdict.message}
+      </p>
+      <p className="mt-1 text-sm text-ink-soft" data-testid="roll-pace">
+        {verdict.budget === null
+          ? "The lesson has no Roll phase with minutes, so the rolls are not checked against the time."
+          : `Time budget: a ${verdict.budget.minutes}-minute Roll phase at about ${verdict.budget.rollsPerMinute} rolls a minute (a common-practice pace for rolling and writing each roll down, not a published rule) gives about ${verdict.budget.rollsPerGroup} rolls per group.`}
       </p>
       {(verdict.suggestedRollsPerGroup !== null || verdict.suggestedGroups !== null) && (onUseRolls || onUseGroups) && (
         <div className="mt-3 flex flex-wrap gap-2 no-print">
@@ -91,7 +97,7 @@ export function RollsVerdictView({
 }
 
 /** The materials list: printed dice of each kind, recording sheets and exit ticket slips. */
-export function MaterialsList({ result, dice }: { result: LessonMaterialsResult; dice: SetDie[] | null }) {
+export function MaterialsList({ result, dice, sheetHref }: { result: LessonMaterialsResult; dice: SetDie[] | null; sheetHref?: (rowsPerSheet: number) => string }) {
   const { materials } = result;
   const look = (name: string) => dice?.find((die) => die.name === name);
   return (
@@ -141,6 +147,14 @@ export function MaterialsList({ result, dice }: { result: LessonMaterialsResult;
         <li data-testid="recording-sheets">
           <b>{materials.recordingSheets.total} recording sheets</b> ({materials.recordingSheets.forGroups} for groups + {materials.recordingSheets.spares} spare), room for{" "}
           {materials.recordingSheets.rowsPerSheet} rolls each
+          {sheetHref && (
+            <>
+              {" · "}
+              <Link to={sheetHref(materials.recordingSheets.rowsPerSheet)} className="font-bold text-tide-dark underline underline-offset-2">
+                Print the recording sheet
+              </Link>
+            </>
+          )}
         </li>
         {materials.exitTicketSlips > 0 && (
           <li>
@@ -164,12 +178,15 @@ export function LiveMaterialsPanel({
   tieRule,
   onUseRolls,
   onUseGroups,
+  sheetHref,
 }: {
   state: LessonMaterialsState;
   dice: SetDie[] | null;
   tieRule: keyof typeof tieRuleLabels;
   onUseRolls?: (rolls: number) => void;
   onUseGroups?: (groups: number) => void;
+  /** The recording sheet's print address for the plan, given its rows (absent until the lesson has a dice set). */
+  sheetHref?: (rowsPerSheet: number) => string;
 }) {
   if (!state.ok) {
     return (
@@ -186,7 +203,7 @@ export function LiveMaterialsPanel({
   return (
     <div className={`flex flex-col gap-4 transition-opacity ${state.isStale ? "opacity-70" : ""}`} aria-live="polite" aria-busy={state.isStale}>
       <RollsVerdictView result={state.result} tieRule={tieRule} onUseRolls={onUseRolls} onUseGroups={onUseGroups} />
-      <MaterialsList result={state.result} dice={dice} />
+      <MaterialsList result={state.result} dice={dice} sheetHref={sheetHref} />
     </div>
   );
 }

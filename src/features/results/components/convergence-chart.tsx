@@ -29,7 +29,7 @@ export function ConvergenceChart({
   const chartProps = size ? { width: size.width, height: size.height } : { responsive: true, style: { width: "100%", height: 300 } };
   return (
     <figure className="min-w-0">
-      <div role="img" aria-label={`Convergence chart of ${matchup.label}: the class estimate of ${firstDie} winning after ${matchup.rolls} rolls is ${three(last?.frequency)}; the exact value is ${exact?.fraction ?? "undefined"}.`}>
+      <div role="img" aria-label={`Convergence chart of ${matchup.label}: the class estimate of ${firstDie} winning after ${matchup.countedRolls > 0 ? `${matchup.rolls - matchup.countedRolls} rolls recorded one by one` : `${matchup.rolls} rolls`} is ${three(last?.frequency)}; the exact value is ${exact?.fraction ?? "undefined"}.`}>
         <ComposedChart data={data} margin={{ top: 12, right: 16, bottom: 24, left: 4 }} {...chartProps}>
           <CartesianGrid stroke="#d8cfc0" strokeDasharray="2 4" />
           <XAxis dataKey="rolls" type="number" domain={[1, "dataMax"]} allowDecimals={false} tick={{ fill: "#3b4f63" }} label={{ value: "rolls", position: "insideBottom", offset: -12, fill: "#3b4f63" }} />
@@ -59,6 +59,12 @@ export function ConvergenceChart({
           </svg>
           where 95% of class estimates fall for fair dice
         </span>
+        {matchup.countedRolls > 0 && (
+          <span className="mt-1 block" data-testid="counted-rolls-note">
+            {matchup.countedRolls} of the {matchup.rolls} rolls were entered as win/tie/loss counts: they are in the table and the interval, but have no order, so the chart
+            shows only the {matchup.rolls - matchup.countedRolls} recorded one by one.
+          </span>
+        )}
       </figcaption>
     </figure>
   );

@@ -1,3 +1,4 @@
+import { useRef } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { Link, useNavigate } from "react-router-dom";
@@ -18,7 +19,9 @@ export function NewPaperRunPage() {
   const create = useCreatePaperRun();
   const { register, handleSubmit, formState, watch } = useForm<PaperRunInput>({ resolver: zodResolver(paperRunInputSchema), defaultValues: { lessonId: "" } });
   const chosen = lessons.data?.lessons.find((lesson) => lesson.id === watch("lessonId"));
-  const submit = handleSubmit((values) => create.mutate(values, { onSuccess: (run) => navigate(`/app/results/${run.id}/paper-import`) }));
+  // Which button sent the form: the tally grid (type the sheets in) or Paper import (upload a CSV file).
+  const next = useRef<"tally-grid" | "paper-import">("tally-grid");
+  const submit = handleSubmit((values) => create.mutate(values, { onSuccess: (run) => navigate(`/app/results/${run.id}/${next.current}`) }));
 
   return (
     <>
@@ -29,7 +32,7 @@ export function NewPaperRunPage() {
       </p>
       <PageHeader
         title="Paper import for a lesson"
-        lead="Taught a lesson with the printed recording sheets instead of phones? Choose the lesson and the day; Outroll makes a closed run with the lesson's dice and mode, and you upload the typed-up sheets into it. To add paper sheets to a run pupils recorded on phones, open that run's results instead."
+        lead="Taught a lesson with the printed recording sheets instead of phones? Choose the lesson, the class and the day; Outroll makes a closed run with the lesson's dice and mode. Then type each group's sheet into the tally grid, or upload the sheets typed up as a CSV file. To add paper sheets to a run pupils recorded on phones, open that run's results instead."
       />
       {lessons.isPending && <p role="status">Loading your lessons…</p>}
       {lessons.isError && (
@@ -64,14 +67,24 @@ export function NewPaperRunPage() {
           {chosen && !chosen.ready && <p className="font-bold text-alarm">{chosen.reason}</p>}
           {chosen?.ready && <p className="text-ink-soft">Dice set: {chosen.diceSetName}</p>}
           <TextField
+            label="Class"
+            hint={chosen?.classGroup ? `Leave empty for the lesson's class, ${chosen.classGroup}; type another to record a second class under its own name.` : "The class that was taught, e.g. 9M."}
+            maxLength={40}
+            {...register("classGroup", { setValueAs: (value: string) => (value.trim() === "" ? undefined : value) })}
+            error={formState.errors.classGroup?.message}
+          />
+          <TextField
             label="Day the lesson was taught"
             type="date"
             hint="Leave empty for today."
             {...register("taughtOn", { setValueAs: (value: string) => (value === "" ? undefined : value) })}
             error={formState.errors.taughtOn?.message}
           />
-          <div>
-            <Button type="submit" busy={create.isPending} disabled={chosen !== undefined && !chosen.ready}>
+          <div className="flex flex-wrap gap-3">
+            <Button type="submit" busy={create.isPending} disabled={chosen !== undefined && !chosen.ready} onClick={() => (next.current = "tally-grid")}>
+              Make the run and open the tally grid
+            </Button>
+            <Button type="submit" variant="secondary" busy={create.isPending} disabled={chosen !== undefined && !chosen.ready} onClick={() => (next.current = "paper-import")}>
               Make the run and go to Paper import
             </Button>
           </div>

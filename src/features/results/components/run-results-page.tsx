@@ -78,9 +78,14 @@ export function RunResultsPage({ runId }: { runId: string }) {
               Pool with other runs
             </LinkButton>
             {run.isOwner && (
-              <LinkButton to={`/app/results/${run.id}/paper-import`} variant="secondary">
-                Paper import
-              </LinkButton>
+              <>
+                <LinkButton to={`/app/results/${run.id}/tally-grid`} variant="secondary">
+                  Tally grid
+                </LinkButton>
+                <LinkButton to={`/app/results/${run.id}/paper-import`} variant="secondary">
+                  Paper import
+                </LinkButton>
+              </>
             )}
           </>
         }

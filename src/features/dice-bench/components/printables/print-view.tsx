@@ -1,10 +1,13 @@
 import { useNavigate } from "react-router-dom";
+import { useState } from "react";
 import type { DiceSet, SetDie } from "@shared/schemas/dice-sets";
+import { RECORDING_SHEET_ROWS_MAX, type RecordingSheetPlan } from "@shared/results/recording-sheet-layout";
 import { DieSwatch } from "@/components/dice/die-swatch";
 import { Button } from "@/components/ui/button";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { LinkButton } from "@/components/ui/link-button";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextField } from "@/components/ui/text-field";
 import { CubeNet } from "./cube-net";
 import { FaceCards } from "./face-cards";
 import { RecordingSheet } from "./recording-sheet";
@@ -15,9 +18,9 @@ export type PaperSize = "a4" | "letter";
 const paperNames: Record<PaperSize, string> = { a4: "A4", letter: "US Letter" };
 const netsPerPage = 4;
 
-/** The page rule for the chosen paper: nets print portrait, the recording sheet landscape. */
-function pageStyle(kind: PrintKind, paper: PaperSize) {
-  const size = `${paper === "a4" ? "A4" : "letter"} ${kind === "sheet" ? "landscape" : "portrait"}`;
+/** The page rule for the chosen paper: nets and the recording sheet (a column per player) print portrait. */
+function pageStyle(paper: PaperSize) {
+  const size = `${paper === "a4" ? "A4" : "letter"} portrait`;
   return `@page { size: ${size}; margin: 10mm; }
 @media print {
   html, body, #root > div { min-height: 0 !important; }
@@ -32,15 +35,20 @@ function chunks<T>(items: T[], size: number): T[][] {
 }
 
 /** Printables of a set: cut-and-fold nets (six faces) or face cards (other counts), or the group recording sheet, for A4 or Letter. */
-export function PrintView({ set, kind, paper }: { set: DiceSet; kind: PrintKind; paper: PaperSize }) {
+export function PrintView({ set, kind, paper, plan }: { set: DiceSet; kind: PrintKind; paper: PaperSize; plan: RecordingSheetPlan }) {
   const navigate = useNavigate();
-  const choose = (next: { kind?: PrintKind; paper?: PaperSize }) =>
-    navigate(`?kind=${next.kind ?? kind}&paper=${next.paper ?? paper}`, { replace: true });
+  const [rollsText, setRollsText] = useState(String(plan.rolls));
+  const choose = (next: { kind?: PrintKind; paper?: PaperSize } & Partial<RecordingSheetPlan>) => {
+    const sheet = { ...plan, ...next };
+    navigate(`?kind=${next.kind ?? kind}&paper=${next.paper ?? paper}&rolls=${sheet.rolls}&players=${sheet.players}&dice=${sheet.dicePerPlayer}`, { replace: true });
+  };
+  const rollsValue = Number(rollsText);
+  const rollsValid = Number.isInteger(rollsValue) && rollsValue >= 1 && rollsValue <= RECORDING_SHEET_ROWS_MAX;
   const cubes = set.dice.filter((die) => die.faces.length === 6);
   const others = set.dice.filter((die) => die.faces.length !== 6);
   return (
     <>
-      <style>{pageStyle(kind, paper)}</style>
+      <style>{pageStyle(paper)}</style>
       <div className="no-print">
         <PageHeader
           title="Dice bench"
@@ -72,15 +80,50 @@ export function PrintView({ set, kind, paper }: { set: DiceSet; kind: PrintKind;
             ]}
           />
         </div>
+        {kind === "sheet" && (
+          <div className="mb-6 flex flex-wrap items-start gap-6" data-testid="sheet-plan">
+            <ChoiceGroup
+              legend="Players"
+              value={String(plan.players)}
+              onChange={(value) => choose({ players: Number(value) })}
+              options={[
+                { value: "2", label: "Two players" },
+                { value: "3", label: "Three players" },
+              ]}
+            />
+            <ChoiceGroup
+              legend="Dice each"
+              value={String(plan.dicePerPlayer)}
+              onChange={(value) => choose({ dicePerPlayer: Number(value) })}
+              options={[
+                { value: "1", label: "One die each" },
+                { value: "2", label: "Two dice each" },
+              ]}
+            />
+            <div className="max-w-48">
+              <TextField
+                label="Rolls per group"
+                inputMode="numeric"
+                value={rollsText}
+                onChange={(event) => {
+                  setRollsText(event.target.value);
+                  const value = Number(event.target.value);
+                  if (Number.isInteger(value) && value >= 1 && value <= RECORDING_SHEET_ROWS_MAX) choose({ rolls: value });
+                }}
+                error={rollsValid ? undefined : `Enter a whole number of rolls from 1 to ${RECORDING_SHEET_ROWS_MAX}.`}
+              />
+            </div>
+          </div>
+        )}
         <p className="mb-4 max-w-3xl text-ink-soft">
           {kind === "nets"
             ? "Print at 100% (actual size), not “fit to page”. Cut along solid lines, fold along dashed lines, glue the grey tabs inside."
-            : "Print one sheet per group. The columns are those of the Paper import CSV, in the same order."}
+            : "Print one sheet per group: a line for every planned roll and a column for each player. Opened from a lesson, the sheet follows its rolls, players and dice each. Type the filled-in sheets into the run's tally grid in Results, or up as a Paper import CSV."}
         </p>
       </div>
       <div className="flex flex-col gap-6 print:gap-0" data-testid="printables" data-paper={paper}>
         {kind === "sheet" ? (
-          <RecordingSheet set={set} />
+          <RecordingSheet set={set} plan={plan} />
         ) : (
           <>
             {chunks(cubes, netsPerPage).map((page, index) => (
