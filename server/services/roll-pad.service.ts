@@ -282,29 +282,3 @@ export async function undoRoll(token: string, rollId: string): Promise<{ runId: 
   return { runId: run.id, id: undone.id };
 }
 
-/** A token bucket per group: a stuck button cannot flood the run, while a phone emptying its outbox gets a burst. */
-export class GroupRateLimiter {
-  private readonly buckets = new Map<string, { tokens: number; at: number }>();
-  constructor(
-    private readonly perSecond: number,
-    private readonly burst: number,
-  ) {}
-
-  /** Takes one token for the group, or answers how long to wait for the next. */
-  take(groupId: string, now = Date.now()): { allowed: true } | { allowed: false; retryAfterMs: number } {
-    const bucket = this.buckets.get(groupId) ?? { tokens: this.burst, at: now };
-    bucket.tokens = Math.min(this.burst, bucket.tokens + ((now - bucket.at) / 1000) * this.perSecond);
-    bucket.at = now;
-    this.buckets.set(groupId, bucket);
-    if (this.buckets.size > 10_000) this.forgetFull(now);
-    if (bucket.tokens >= 1) {
-      bucket.tokens -= 1;
-      return { allowed: true };
-    }
-    return { allowed: false, retryAfterMs: Math.ceil(((1 - bucket.tokens) / this.perSecond) * 1000) };
-  }
-
-  private forgetFull(now: number) {
-    for (const [groupId, bucket] of this.buckets) if (bucket.tokens + ((now - bucket.at) / 1000) * this.perSecond >= this.burst) this.buckets.delete(groupId);
-  }
-}

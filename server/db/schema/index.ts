@@ -11,3 +11,6 @@ export { lesson } from "./lessons";
 export { lessonTemplate, lessonTemplateVersion, shelfProposal } from "./lesson-templates";
 export { lessonAttachment } from "./lesson-attachments";
 export { classRun, runGroup, guessVote, paperImport, roll } from "./class-runs";
+export { rateLimit } from "./rate-limits";
+export { socketIoAttachment } from "./socket-io-attachments";
+export { setFinderSearch } from "./set-finder-searches";

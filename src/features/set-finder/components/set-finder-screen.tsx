@@ -20,6 +20,7 @@ export function timeLeftText(seconds: number | null): string {
 }
 
 const statusWords: Record<SetFinderJob["status"], string> = {
+  queued: "Waiting for a free search slot",
   running: "Searching",
   finished: "Finished",
   cancelled: "Cancelled",
