@@ -8,6 +8,7 @@ source "$(dirname "$0")/lib/setup.sh"
 ensure_node_modules || exit 1
 ensure_postgres_package || exit 1
 ensure_chromium || exit 1
+ensure_nginx || exit 1
 
 free_port() { node -e "const s=require('net').createServer().listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})"; }
 

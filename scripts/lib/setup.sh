@@ -44,6 +44,17 @@ ensure_postgres_package() {
   export PG_BIN
 }
 
+# Debian's nginx, the reverse proxy of the two-process tests and of the deploy/ set-up; run with a config of our own.
+ensure_nginx() {
+  if ! command -v nginx >/dev/null 2>&1 && [ ! -x /usr/sbin/nginx ]; then
+    apt_install nginx
+    # Debian starts its own nginx on port 80; ours runs on loopback ports with deploy/ or test configs, so stop Debian's.
+    as_root service nginx stop >/dev/null 2>&1 || true
+  fi
+  NGINX_BIN=$(command -v nginx || echo /usr/sbin/nginx)
+  export NGINX_BIN
+}
+
 ensure_chromium() {
   if ! command -v chromium >/dev/null 2>&1; then
     apt_install chromium

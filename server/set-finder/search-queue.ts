@@ -1,3 +1,5 @@
+import path from "node:path";
+import { pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
 import PgBoss from "pg-boss";
 import type { SetFinderProgress, SetFinderRequest } from "@shared/schemas/set-finder";
@@ -27,7 +29,7 @@ const local = new Map<string, LocalSearch>();
 
 /** The search worker's entry: TypeScript through tsx in development and tests, the built file in production. */
 function searchWorkerUrl(): URL {
-  return import.meta.url.endsWith(".ts") ? new URL("./start-search-worker.mjs", import.meta.url) : new URL("./search-worker.js", import.meta.url);
+  return import.meta.url.endsWith(".ts") ? new URL("./start-search-worker.mjs", import.meta.url) : pathToFileURL(path.join(env.projectRoot, "dist/server/search-worker.js"));
 }
 
 /**
