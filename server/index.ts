@@ -10,7 +10,8 @@ import { startSearchQueue, stopSearchQueue } from "./set-finder/search-queue";
 
 await runMigrations(pool);
 const mail = await startMailDelivery();
-await startSearchQueue();
+// Set finder searches are optional to a lesson: a queue that cannot start is logged, and the page says searches cannot start.
+await startSearchQueue().catch((error: unknown) => logger.error({ err: error }, "the Set finder queue did not start"));
 
 const { server, io } = createHttpServer();
 

@@ -4,7 +4,7 @@ import { Worker } from "node:worker_threads";
 import PgBoss from "pg-boss";
 import type { SetFinderProgress, SetFinderRequest } from "@shared/schemas/set-finder";
 import type { SetFinderUpdate } from "@shared/set-finder/search-dice-sets";
-import { db } from "../db/client";
+import { db, pool } from "../db/client";
 import { endSearch, findSearch, markSearchRunning, requeueSearch, writeSearchProgress } from "../db/queries/set-finder-searches";
 import { env } from "../env";
 import { logger } from "../logger";
@@ -18,6 +18,9 @@ const PROGRESS_WRITE_MS = 400;
 const STOP_GRACE_MS = 1500;
 /** A search whose process died is taken up again this long after its time budget ran out. */
 const EXPIRY_MARGIN_SECONDS = 30;
+
+// Any fixed 64-bit key, as the migrations' lock.
+const QUEUE_SETUP_LOCK_KEY = 7_413_900_212;
 
 export const emptyProgress: SetFinderProgress = { examined: 0, total: 0, fraction: 0, etaSeconds: null };
 
@@ -41,8 +44,16 @@ export function startSearchQueue(): Promise<PgBoss> {
   starting ??= (async () => {
     const queue = new PgBoss({ connectionString: env.DATABASE_URL, max: 3, schema: "pgboss" });
     queue.on("error", (error) => logger.warn({ err: error }, "Set finder queue could not reach the database"));
-    await queue.start();
-    await queue.createQueue(SEARCH_QUEUE, { name: SEARCH_QUEUE, retryLimit: 3, retryDelay: 1 });
+    // Processes starting at once take turns: pg-boss's schema set-up and createQueue deadlock when two run together.
+    const lock = await pool.connect();
+    try {
+      await lock.query("select pg_advisory_lock($1)", [QUEUE_SETUP_LOCK_KEY]);
+      await queue.start();
+      if (!(await queue.getQueue(SEARCH_QUEUE))) await queue.createQueue(SEARCH_QUEUE, { name: SEARCH_QUEUE, retryLimit: 3, retryDelay: 1 });
+    } finally {
+      await lock.query("select pg_advisory_unlock($1)", [QUEUE_SETUP_LOCK_KEY]).catch(() => undefined);
+      lock.release();
+    }
     for (let slot = 0; slot < env.SET_FINDER_SEARCHES_PER_PROCESS; slot += 1) {
       await queue.work<SearchJobData>(SEARCH_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => runSearch(job.data.searchId));
     }
