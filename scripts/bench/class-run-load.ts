@@ -187,8 +187,8 @@ async function main() {
     }
     const ports = await Promise.all(Array.from({ length: processes }, () => freePort()));
     // Several processes (or one, for the like-for-like comparison) sit behind Debian's nginx, as deploy/ runs them.
-    const proxy = viaProxy ? await startNginx(proxyFolder.path, ports) : null;
-    const baseUrl = proxy?.url ?? `http://127.0.0.1:${ports[0]}`;
+    const proxyPort = viaProxy ? await freePort() : null;
+    const baseUrl = proxyPort ? `http://127.0.0.1:${proxyPort}` : `http://127.0.0.1:${ports[0]}`;
     // BENCH_PROFILE_DIR=/some/folder writes a CPU profile of each server process there, to see where the time goes.
     const profile = process.env.BENCH_PROFILE_DIR ? ["--cpu-prof", `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : [];
     const servers = ports.map((port) =>
@@ -198,6 +198,7 @@ async function main() {
       }),
     );
     for (const port of ports) await waitFor(`http://127.0.0.1:${port}`, async () => (await fetch(`http://127.0.0.1:${port}/api/ready`)).ok);
+    const proxy = proxyPort ? await startNginx(proxyFolder.path, ports, proxyPort) : null;
     const phones: Phone[] = [];
     for (let index = 0; index < PHONES; index += 1) {
       const socket = await openPhoneSocket(baseUrl);

@@ -18,11 +18,12 @@ export const sleep = (milliseconds: number) => new Promise((resolve) => setTimeo
 
 /**
  * nginx in front of the given app ports, as deploy/nginx/outroll.conf (without TLS): WebSocket upgrade, round robin,
- * and a process that refuses connections is skipped for the next two seconds.
+ * and a process that refuses connections three times is skipped for the next two seconds. Start it once the app
+ * processes are ready, or its first probes mark them down.
  */
-export async function startNginx(folder: string, appPorts: number[]): Promise<{ url: string; stop: () => Promise<void> }> {
+export async function startNginx(folder: string, appPorts: number[], listenPort?: number): Promise<{ url: string; stop: () => Promise<void> }> {
   const binary = ["/usr/sbin/nginx", "/usr/bin/nginx"].find((candidate) => existsSync(candidate)) ?? "nginx";
-  const port = await freePort();
+  const port = listenPort ?? (await freePort());
   const prefix = path.join(folder, "nginx");
   mkdirSync(path.join(prefix, "logs"), { recursive: true });
   const config = path.join(prefix, "nginx.conf");
@@ -42,7 +43,7 @@ http {
   scgi_temp_path ${prefix}/scgi;
   map $http_upgrade $connection_upgrade { default upgrade; '' close; }
   upstream outroll {
-${appPorts.map((appPort) => `    server 127.0.0.1:${appPort} max_fails=1 fail_timeout=2s;`).join("\n")}
+${appPorts.map((appPort) => `    server 127.0.0.1:${appPort} max_fails=3 fail_timeout=2s;`).join("\n")}
   }
   server {
     listen 127.0.0.1:${port};
@@ -56,13 +57,16 @@ ${appPorts.map((appPort) => `    server 127.0.0.1:${appPort} max_fails=1 fail_ti
       proxy_set_header X-Forwarded-Proto $scheme;
       proxy_read_timeout 120s;
       proxy_next_upstream error timeout http_502 http_503;
-      proxy_connect_timeout 2s;
+      proxy_connect_timeout 5s;
     }
   }
 }
 `,
   );
   const child = spawn(binary, ["-c", config, "-p", prefix], { stdio: ["ignore", "ignore", "inherit"] });
+  // If the caller dies half-way (a failed bench), nginx goes with it rather than holding its port.
+  const stopWithCaller = () => child.kill("SIGQUIT");
+  process.once("exit", stopWithCaller);
   const url = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 15_000;
   for (;;) {
@@ -77,6 +81,7 @@ ${appPorts.map((appPort) => `    server 127.0.0.1:${appPort} max_fails=1 fail_ti
   return {
     url,
     stop: async () => {
+      process.off("exit", stopWithCaller);
       if (child.exitCode !== null) return;
       const exited = new Promise((resolve) => child.once("exit", resolve));
       child.kill("SIGQUIT");

@@ -52,11 +52,11 @@ describe("two app processes behind nginx on one PostgreSQL", () => {
     { timeout: 240_000 },
     async () => {
       cluster = await startOwnCluster(scratch.path);
-      const [portA, portB] = [await freePort(), await freePort()];
-      nginx = await startNginx(scratch.path, [portA, portB]);
-      const origin = nginx.url;
+      const [portA, portB, proxyPort] = [await freePort(), await freePort(), await freePort()];
+      const origin = `http://127.0.0.1:${proxyPort}`;
       apps.push(startAppProcess(portA, cluster.url, origin), startAppProcess(portB, cluster.url, origin));
       await Promise.all(apps.map((app) => waitUntilReady(app.url)));
+      nginx = await startNginx(scratch.path, [portA, portB], proxyPort);
 
       const teacher = await signUpAgent(origin, "fault-two", "Jo Harbour");
       const lessonId = await createLessonFor(teacher.email, { phases: ["Roll", "Pool"] }, cluster.db);

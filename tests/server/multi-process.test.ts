@@ -131,4 +131,35 @@ describe("several app processes on one database", () => {
     expect(recent[0]).toMatchObject({ id: started.body.id, status: "cancelled" });
     expect(recent[0]).not.toHaveProperty("results");
   });
+
+  it("drains on SIGTERM: rolls sent as it stops are acknowledged, readiness turns 503, and phones are left to reconnect elsewhere", async () => {
+    const teacher = await signUpAgent(a.url, "two-process-drain", "Lee Drain");
+    const { db } = await import("../../server/db/client");
+    const lessonId = await createLessonFor(teacher.email, { phases: ["Roll", "Pool"] }, db);
+    const opened = await teacher.agent.post("/api/class-runs", { lessonId });
+    const pupil = await joinAsPupil(b.url, opened.body.joinCode, "Slipway");
+    cleanups.push(() => pupil.socket.disconnect());
+    const reasons: string[] = [];
+    pupil.socket.on("disconnect", (reason) => reasons.push(reason));
+    const rolls = [randomRollOf(pupil), randomRollOf(pupil), randomRollOf(pupil)];
+    const answers = Promise.all(rolls.map((roll) => record(pupil, roll)));
+    b.child.kill("SIGTERM");
+    const readiness: number[] = [];
+    for (let index = 0; index < 5; index += 1) {
+      const answer = await fetch(`${b.url}/api/ready`).then((response) => response.status, () => 0);
+      readiness.push(answer);
+      if (answer !== 200) break;
+      await sleep(20);
+    }
+    expect((await answers).every((ack) => ack.ok)).toBe(true);
+    if (b.child.exitCode === null && b.child.signalCode === null) await new Promise((resolve) => b.child.once("exit", resolve));
+    expect(b.child.exitCode).toBe(0);
+    // A transport close, not socket.io's "io server disconnect" (after which a client would not reconnect by itself).
+    expect(reasons[0]).toBe("transport close");
+    expect(readiness.at(-1)).not.toBe(200);
+    const { roll: rollTable } = await import("../../server/db/schema/index");
+    const { inArray } = await import("drizzle-orm");
+    const stored = await db.select({ id: rollTable.id }).from(rollTable).where(inArray(rollTable.id, rolls.map((roll) => roll.id)));
+    expect(stored).toHaveLength(3);
+  });
 });
