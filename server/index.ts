@@ -4,6 +4,7 @@ import { env } from "./env";
 import { createHttpServer } from "./http-server";
 import { startDraining } from "./lifecycle";
 import { logger } from "./logger";
+import { clearExpiredLimits } from "./limits/shared-limiter";
 import { startMailDelivery, stopMailDelivery } from "./mail/mailer";
 import { drainRolls } from "./realtime/class-run-events";
 import { startSearchQueue, stopSearchQueue } from "./set-finder/search-queue";
@@ -14,6 +15,8 @@ const mail = await startMailDelivery();
 await startSearchQueue().catch((error: unknown) => logger.error({ err: error }, "the Set finder queue did not start"));
 
 const { server, io } = createHttpServer();
+// Expired limit counts are rewritten when their key comes back; this only keeps the table small.
+setInterval(() => void clearExpiredLimits().catch(() => undefined), 60 * 60 * 1000).unref();
 
 server.listen(env.PORT, env.HOST, () => {
   const address = server.address();
