@@ -131,10 +131,11 @@ export async function drainRolls(io: Server): Promise<void> {
  */
 export function registerClassRunEvents(io: Server) {
   // A group's rolls are counted in PostgreSQL, so a group whose phones use two processes still gets one limit:
-  // ROLL_BURST_PER_GROUP rolls per window of burst / rate seconds, leased five at a time (see roll-allowance.ts).
+  // ROLL_BURST_PER_GROUP rolls per window of burst / rate seconds, leased a twelfth of the burst at a time (5 of the
+  // default 60; see roll-allowance.ts), so at most one roll in five waits for the database.
   const allowance = new RollAllowance(
     sharedLimiter({ keyPrefix: "group-rolls", points: env.ROLL_BURST_PER_GROUP, duration: Math.max(1, Math.round(env.ROLL_BURST_PER_GROUP / env.ROLL_RATE_PER_GROUP)) }),
-    Math.min(5, env.ROLL_BURST_PER_GROUP),
+    Math.max(1, Math.ceil(env.ROLL_BURST_PER_GROUP / 12)),
   );
   const broadcaster = new BoardBroadcaster(io, env.BOARD_UPDATE_MS);
   const lastRollsNotice = new Map<string, number>();
@@ -283,7 +284,7 @@ export function registerClassRunEvents(io: Server) {
           return timed(row ? writeRoll(row) : checkedRoll(token, roll).then(writeRoll));
         };
         if (!claims) return record();
-        // Four rolls in five are allowed from this process's lease without waiting; the fifth takes a lease from PostgreSQL.
+        // Most rolls are allowed from this process's lease without waiting; the last of a lease takes a new one from PostgreSQL.
         const local = allowance.takeLocally(claims.groupId);
         if (local) return local.allowed ? record() : refuse(local.retryAfterMs);
         return allowance.take(claims.groupId).then((answer) => (answer.allowed ? record() : refuse(answer.retryAfterMs)));
