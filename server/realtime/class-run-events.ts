@@ -228,7 +228,17 @@ export function registerClassRunEvents(io: Server) {
     clearInterval(depthTimer);
     for (const timer of pendingRollsNotice.values()) clearTimeout(timer);
   });
-  drainers.set(io, () => batcher.drain());
+  // Rolls still being checked (a group's first roll reads the database, a lease may be taken) reach the batcher later.
+  let rollsBeforeBatcher = 0;
+  drainers.set(io, async () => {
+    for (;;) {
+      await batcher.drain();
+      if (rollsBeforeBatcher === 0 && batcher.depth() === 0) break;
+      await new Promise((resolve) => setTimeout(resolve, 10));
+    }
+    // Let every acknowledgement callback run before the connections close.
+    await new Promise((resolve) => setImmediate(resolve));
+  });
 
   io.on("connection", (socket: Socket) => {
     connectedPhones.inc();
@@ -281,13 +291,20 @@ export function registerClassRunEvents(io: Server) {
         const record = () => {
           // Only a group's first roll (or one after a change to its run) waits for the database before the batcher.
           const row = checkedRollFromCache(token, roll);
-          return timed(row ? writeRoll(row) : checkedRoll(token, roll).then(writeRoll));
+          if (row) return timed(writeRoll(row));
+          rollsBeforeBatcher += 1;
+          const checked = checkedRoll(token, roll).finally(() => (rollsBeforeBatcher -= 1));
+          return timed(checked.then(writeRoll));
         };
         if (!claims) return record();
         // Most rolls are allowed from this process's lease without waiting; the last of a lease takes a new one from PostgreSQL.
         const local = allowance.takeLocally(claims.groupId);
         if (local) return local.allowed ? record() : refuse(local.retryAfterMs);
-        return allowance.take(claims.groupId).then((answer) => (answer.allowed ? record() : refuse(answer.retryAfterMs)));
+        rollsBeforeBatcher += 1;
+        return allowance
+          .take(claims.groupId)
+          .finally(() => (rollsBeforeBatcher -= 1))
+          .then((answer) => (answer.allowed ? record() : refuse(answer.retryAfterMs)));
       }),
     );
 
