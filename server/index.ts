@@ -22,7 +22,8 @@ server.listen(env.PORT, env.HOST, () => {
   const address = server.address();
   const port = typeof address === "object" && address ? address.port : env.PORT;
   logger.info({ port, pid: process.pid }, "listening");
-  console.log(`\nOutroll is running at http://${env.HOST}:${port}${env.APP_ORIGIN ? ` (reached as ${env.appOrigin})` : ""}`);
+  const local = `http://${env.HOST}:${port}`;
+  console.log(`\nOutroll is running at ${local}${env.appOrigin !== local ? ` (reached as ${env.appOrigin})` : ""}`);
   if (mail.fakeServer) {
     console.log(`E-mail goes to the local fake mail server on 127.0.0.1:${mail.fakeServer.port}; read it at ${env.appOrigin}/dev/mail`);
   } else if (!env.SMTP_URL) {
