@@ -27,7 +27,13 @@ export function attachRealtime(server: HttpServer): Server {
   });
   const adapterPool = guardPool(new pg.Pool({ connectionString: env.DATABASE_URL, max: 3, connectionTimeoutMillis: 5_000 }), "socket.io adapter");
   io.adapter(createAdapter(adapterPool, { errorHandler: (error) => logger.warn({ err: error }, "socket.io adapter could not reach the database") }));
-  server.once("close", () => void adapterPool.end().catch(() => undefined));
+  // The adapter publishes its goodbye while io.close() runs, so its pool ends only after that.
+  const closeIo = io.close.bind(io);
+  io.close = (done?: (error?: Error) => void) =>
+    closeIo((error?: Error) => {
+      void adapterPool.end().catch(() => undefined);
+      done?.(error);
+    });
   for (const register of featureHandlers) register(io);
   return io;
 }
