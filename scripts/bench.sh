@@ -5,6 +5,7 @@ set -euo pipefail
 source "$(dirname "$0")/lib/setup.sh"
 ensure_node_modules
 ensure_postgres_package
+ensure_nginx
 
 free_port() { node -e "const s=require('net').createServer().listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})"; }
 run_dir=$(mktemp -d /tmp/outroll-bench-XXXXXX)

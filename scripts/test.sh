@@ -8,6 +8,7 @@ source "$(dirname "$0")/lib/setup.sh"
 ensure_node_modules || exit 1
 ensure_postgres_package || exit 1
 ensure_chromium || exit 1
+ensure_nginx || exit 1
 
 free_port() { node -e "const s=require('net').createServer().listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})"; }
 
@@ -27,6 +28,8 @@ export NODE_ENV=test
 export DATABASE_URL="postgres://postgres@127.0.0.1:$pg_port/outroll_test"
 export TEST_PG_PORT="$pg_port"
 export DATA_DIR="$run_dir/data"
+# Sign-in limits are shared through PostgreSQL, and every test file signs in from 127.0.0.1 at once.
+export SIGN_IN_LIMIT_PER_MINUTE=${SIGN_IN_LIMIT_PER_MINUTE:-100000}
 export SCREENSHOT_DIR="$project_root/screenshots"
 export CLIENT_DIR="$run_dir/client"
 export BETTER_AUTH_SECRET="test-secret-$(node -e "console.log(require('crypto').randomBytes(16).toString('hex'))")"

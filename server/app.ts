@@ -2,7 +2,6 @@ import { existsSync } from "node:fs";
 import path from "node:path";
 import express from "express";
 import helmet from "helmet";
-import { rateLimit } from "express-rate-limit";
 import { pinoHttp } from "pino-http";
 import { toNodeHandler } from "better-auth/node";
 import { authRequestHandler } from "./auth";
@@ -17,7 +16,8 @@ import { devMailRouter } from "./routes/dev-mail.routes";
 import { invitationsRouter } from "./routes/invitations.routes";
 import { shelfRouter } from "./routes/shelf.routes";
 import { diceSetsRouter } from "./routes/dice-sets.routes";
-import { healthRouter } from "./routes/health.routes";
+import { healthRouter, metricsRouter } from "./routes/health.routes";
+import { isLimitRefusal, sharedLimiter } from "./limits/shared-limiter";
 import { lessonsRouter } from "./routes/lessons.routes";
 import { meRouter } from "./routes/me.routes";
 import { privacyRouter } from "./routes/privacy.routes";
@@ -43,17 +43,17 @@ export function createApp(options: AppOptions = {}) {
   app.use(
     pinoHttp({
       logger,
-      autoLogging: { ignore: (req) => req.url === "/api/health" || !req.url?.startsWith("/api") },
+      autoLogging: { ignore: (req) => req.url === "/api/health" || req.url === "/api/ready" || !req.url?.startsWith("/api") },
       serializers: {
         req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
         res: (res: { statusCode: number }) => ({ status: res.statusCode }),
       },
     }),
   );
-  // Pupils' phones reach the app over plain http on the school network, so no HTTPS upgrade or HSTS here.
+  // On a school network pupils' phones reach the app over plain http: HSTS only when APP_ORIGIN is https.
   app.use(
     helmet({
-      strictTransportSecurity: false,
+      strictTransportSecurity: env.https ? { maxAge: 180 * 24 * 60 * 60, includeSubDomains: false } : false,
       contentSecurityPolicy: {
         directives: {
           "img-src": ["'self'", "data:", "blob:"],
@@ -64,17 +64,23 @@ export function createApp(options: AppOptions = {}) {
     }),
   );
 
-  const signInLimiter = rateLimit({
-    windowMs: 60_000,
-    limit: options.signInLimitPerMinute ?? env.SIGN_IN_LIMIT_PER_MINUTE,
-    standardHeaders: "draft-8",
-    legacyHeaders: false,
-    // Without a trusted proxy a forwarded address is ignored on purpose (TRUST_PROXY), not a set-up mistake to warn about.
-    validate: { xForwardedForHeader: false },
-    handler: (_req, res) => {
-      res.status(429).json({ error: { code: "too_many_attempts", message: "Too many sign-in attempts. Wait a minute and try again." } });
-    },
-  });
+  // Counted in PostgreSQL, so every app process behind the proxy refuses the same address after the same attempts.
+  const signInLimit = options.signInLimitPerMinute ?? env.SIGN_IN_LIMIT_PER_MINUTE;
+  const signInCounts = sharedLimiter({ keyPrefix: `sign-in-${signInLimit}`, points: signInLimit, duration: 60 });
+  const signInLimiter: express.RequestHandler = (req, res, next) => {
+    signInCounts.consume(req.ip ?? "unknown").then(
+      (counted) => {
+        res.setHeader("RateLimit-Policy", `${signInLimit};w=60`);
+        res.setHeader("RateLimit-Remaining", String(counted.remainingPoints));
+        next();
+      },
+      (refusal: unknown) => {
+        if (!isLimitRefusal(refusal)) return next(refusal);
+        res.setHeader("Retry-After", String(Math.ceil(refusal.msBeforeNext / 1000)));
+        res.status(429).json({ error: { code: "too_many_attempts", message: "Too many sign-in attempts. Wait a minute and try again." } });
+      },
+    );
+  };
   app.use("/api", requireSameOrigin);
   app.use(["/api/auth/sign-in", "/api/auth/sign-up", "/api/auth/request-password-reset"], signInLimiter);
   // better-auth takes a body already read (better-call's node adapter), so the size limit and the NUL check come first.
@@ -89,7 +95,7 @@ export function createApp(options: AppOptions = {}) {
 
   app.use(express.json({ limit: "200kb" }));
   app.use("/api", refuseNulCharacters);
-  app.use("/api/health", healthRouter);
+  app.use("/api", healthRouter);
   app.use("/api/me", meRouter);
   app.use("/api/privacy", privacyRouter);
   app.use("/api/departments", departmentsRouter);
@@ -103,6 +109,7 @@ export function createApp(options: AppOptions = {}) {
   app.use("/api/class-runs", classRunsRouter);
   app.use("/api/pad", padRouter);
   app.use("/api", notFoundHandler);
+  app.use("/metrics", metricsRouter);
 
   const clientDir = env.CLIENT_DIR;
   if ((options.serveClient ?? true) && existsSync(clientDir)) {

@@ -64,7 +64,8 @@ export const auth = betterAuth({
   session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
   // Our own limiter guards sign-in (see app.ts); better-auth's keys on IP alone and a school shares one.
   rateLimit: { enabled: false },
-  advanced: { database: { generateId: () => crypto.randomUUID() } },
+  // Behind HTTPS (APP_ORIGIN https:) session cookies are Secure and __Secure- prefixed.
+  advanced: { database: { generateId: () => crypto.randomUUID() }, useSecureCookies: env.https },
   plugins: [
     organization({
       ac: accessControl,

@@ -3,7 +3,19 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { z } from "zod";
 
-const projectRoot = path.resolve(import.meta.dirname, "..");
+/** The folder holding package.json: two levels up from server/env.ts, or from dist/server/ in the built server. */
+function findProjectRoot(start: string): string {
+  for (let folder = start; ; folder = path.dirname(folder)) {
+    if (existsSync(path.join(folder, "package.json")) && existsSync(path.join(folder, "drizzle"))) return folder;
+    if (path.dirname(folder) === folder) return path.resolve(start, "..");
+  }
+}
+
+const projectRoot = findProjectRoot(import.meta.dirname);
+
+const flag = z
+  .enum(["1", "0", "true", "false", "yes", "no"])
+  .transform((value) => value === "1" || value === "true" || value === "yes");
 
 const envSchema = z.object({
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
@@ -13,7 +25,6 @@ const envSchema = z.object({
   APP_ORIGIN: z.string().url().optional(),
   BETTER_AUTH_SECRET: z.string().min(32).optional(),
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
-  SIGN_IN_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(20),
   // Which reverse proxy may set X-Forwarded-For (Express's "trust proxy"): unset or "false" trusts none, so a client
   // cannot choose its own address; "loopback", a comma-separated list of addresses or subnets, or a number of hops.
   TRUST_PROXY: z
@@ -36,6 +47,16 @@ const envSchema = z.object({
   SMTP_URL: z.string().url().optional(),
   MAIL_FROM: z.string().min(3).default("Outroll <no-reply@outroll.test>"),
   FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  // The local fake mail server: on by default in development and tests, never started by a production server on its own.
+  FAKE_SMTP: flag.optional(),
+  // Which proxies' X-Forwarded-* headers Express believes (its "trust proxy" setting): "loopback", a hop count, or addresses.
+  // Database connections per process, and Set finder searches one process runs at once (each takes a core).
+  DATABASE_POOL_SIZE: z.coerce.number().int().min(2).max(100).default(10),
+  SET_FINDER_SEARCHES_PER_PROCESS: z.coerce.number().int().min(0).max(16).default(2),
+  // Seconds a stopping process waits for its rolls to be written and its phones to move before it exits anyway.
+  SHUTDOWN_GRACE_SECONDS: z.coerce.number().int().min(1).max(120).default(10),
+  // Sign-in attempts per address per minute, kept in PostgreSQL so every process counts the same attempts.
+  SIGN_IN_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(20),
   // Class runs: rolls a group may send per second after a burst (a stuck button cannot flood), and the batch window.
   ROLL_RATE_PER_GROUP: z.coerce.number().positive().default(4),
   ROLL_BURST_PER_GROUP: z.coerce.number().int().positive().default(60),
@@ -58,7 +79,18 @@ const envSchema = z.object({
   RUN_IDLE_SWEEP_SECONDS: z.coerce.number().int().min(1).default(300),
 });
 
-export type Env = z.infer<typeof envSchema> & { appOrigin: string; authSecret: string; projectRoot: string };
+export type Env = z.infer<typeof envSchema> & {
+  appOrigin: string;
+  authSecret: string;
+  projectRoot: string;
+  /** Whether the app is reached over HTTPS (APP_ORIGIN starts with https:): secure cookies and HSTS. */
+  https: boolean;
+  /** Whether this process may start the local fake mail server. */
+  fakeMail: boolean;
+  /** Express's "trust proxy" value made from TRUST_PROXY. */
+  trustProxy: boolean | number | string[];
+};
+
 
 /** A secret generated once per machine and kept under .data/, so sessions survive restarts without any set-up. */
 function localAuthSecret(dataDir: string): string {
@@ -78,10 +110,14 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     throw new Error(`Outroll cannot start: the environment is not valid.\n${problems}`);
   }
   const values = parsed.data;
+  const appOrigin = values.APP_ORIGIN ?? `http://127.0.0.1:${values.PORT}`;
   return {
     ...values,
     projectRoot,
-    appOrigin: values.APP_ORIGIN ?? `http://127.0.0.1:${values.PORT}`,
+    appOrigin,
+    https: appOrigin.startsWith("https:"),
+    fakeMail: !values.SMTP_URL && (values.FAKE_SMTP ?? values.NODE_ENV !== "production"),
+    trustProxy: values.TRUST_PROXY,
     authSecret: values.BETTER_AUTH_SECRET ?? localAuthSecret(values.DATA_DIR),
   };
 }

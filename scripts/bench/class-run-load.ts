@@ -3,12 +3,14 @@
 // server and fresh runs with a signed-in teacher's Run board watching each run, and on that server the same phones at
 // a paced combined rate; then the same clients against two yardsticks: a bare socket.io server that only acknowledges,
 // and one that only stores each roll in PostgreSQL before acknowledging. Run by `npm run bench` (scripts/bench.sh gives
-// it a throwaway cluster in BENCH_DATABASE_URL). Prints; asserts nothing.
+// it a throwaway cluster in BENCH_DATABASE_URL). Then the phones alone behind nginx, against one process and against
+// two processes on the same PostgreSQL, for the overhead ratio of several processes. Prints; asserts nothing.
 import { spawn, execFileSync, type ChildProcess } from "node:child_process";
 import { createServer } from "node:net";
 import { cpus, loadavg } from "node:os";
 import { io as connect, type Socket } from "socket.io-client";
 import { v4 as uuidv4 } from "uuid";
+import { scratchFolder, startNginx } from "../../tests/helpers/nginx-proxy";
 
 const databaseUrl = process.env.BENCH_DATABASE_URL ?? process.env.DATABASE_URL;
 if (!databaseUrl) {
@@ -23,6 +25,9 @@ const WARM_UP_SECONDS = 2;
 const WITH_BOARDS = process.env.BENCH_BOARDS !== "0";
 // The paced case: every phone records at a steady pace, so the class as a whole sends this many rolls a second.
 const PACED_RATE = Number(process.env.BENCH_PACED_RATE ?? 1000);
+// BENCH_TWO_PROCESSES=0 leaves out the cases behind nginx (one process, then two on the same PostgreSQL).
+const WITH_TWO_PROCESSES = process.env.BENCH_TWO_PROCESSES !== "0";
+const proxyFolder = scratchFolder("bench-proxy");
 const dataDir = process.env.BENCH_DATA_DIR ?? "/tmp/outroll-bench-data";
 // The load case measures the server, so the per-group limit for stuck buttons (default 4 rolls/s) is lifted.
 const serverEnv = {
@@ -31,6 +36,7 @@ const serverEnv = {
   DATA_DIR: dataDir,
   NODE_ENV: "production",
   LOG_LEVEL: "warn",
+  TRUST_PROXY: "loopback",
   ROLL_RATE_PER_GROUP: "100000",
   ROLL_BURST_PER_GROUP: "100000",
   // The abuse limits too: the load case's phones join and roll far beyond a class's figures on purpose.
@@ -159,7 +165,7 @@ async function main() {
   const [ownerRow] = await db.select({ id: user.id }).from(user).where(eq(user.email, owner.email));
 
   /** One case against the real server: fresh runs, a fresh server process, the phones joined, then the load. */
-  async function outrollCase(withBoards: boolean, label: string): Promise<OutrollCase> {
+  async function outrollCase(withBoards: boolean, label: string, processes = 1, viaProxy = false): Promise<OutrollCase> {
     const runs = [];
     for (let index = 0; index < RUNS; index += 1) {
       runs.push(
@@ -184,15 +190,20 @@ async function main() {
         }),
       );
     }
-    const port = await freePort();
-    const baseUrl = `http://127.0.0.1:${port}`;
+    const ports = await Promise.all(Array.from({ length: processes }, () => freePort()));
+    // Several processes (or one, for the like-for-like comparison) sit behind Debian's nginx, as deploy/ runs them.
+    const proxyPort = viaProxy ? await freePort() : null;
+    const baseUrl = proxyPort ? `http://127.0.0.1:${proxyPort}` : `http://127.0.0.1:${ports[0]}`;
     // BENCH_PROFILE_DIR=/some/folder writes a CPU profile of each server process there, to see where the time goes.
     const profile = process.env.BENCH_PROFILE_DIR ? ["--cpu-prof", `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : [];
-    const server = spawn("node", [...profile, "--import", "tsx", "server/index.ts"], {
-      env: { ...serverEnv, PORT: String(port), HOST: "127.0.0.1", APP_ORIGIN: baseUrl },
-      stdio: ["ignore", "ignore", "inherit"],
-    });
-    await waitFor(baseUrl, async () => (await fetch(`${baseUrl}/api/health`)).ok);
+    const servers = ports.map((port) =>
+      spawn("node", [...profile, "--import", "tsx", "server/index.ts"], {
+        env: { ...serverEnv, PORT: String(port), HOST: "127.0.0.1", APP_ORIGIN: baseUrl },
+        stdio: ["ignore", "ignore", "inherit"],
+      }),
+    );
+    for (const port of ports) await waitFor(`http://127.0.0.1:${port}`, async () => (await fetch(`http://127.0.0.1:${port}/api/ready`)).ok);
+    const proxy = proxyPort ? await startNginx(proxyFolder.path, ports, proxyPort) : null;
     const phones: Phone[] = [];
     for (let index = 0; index < PHONES; index += 1) {
       const socket = await openPhoneSocket(baseUrl);
@@ -221,7 +232,8 @@ async function main() {
     const updatesPerRunPerSecond = boards.length ? boardUpdates / boards.length / (SECONDS + WARM_UP_SECONDS) : 0;
     const paced = withBoards ? await load(phones, (PHONES / PACED_RATE) * 1000) : null;
     for (const socket of [...phones.map((phone) => phone.socket), ...boards]) socket.disconnect();
-    await stop(server);
+    for (const server of servers) await stop(server);
+    await proxy?.stop();
 
     const runIds = runs.map((run) => run.id);
     const [{ rows, distinct }] = await db
@@ -244,6 +256,10 @@ async function main() {
 
   const alone = await outrollCase(false, "phones");
   const watched = WITH_BOARDS ? await outrollCase(true, "boards") : null;
+  // The same clients and runs behind nginx: one process, then two processes sharing the one PostgreSQL.
+  const proxiedOne = WITH_TWO_PROCESSES ? await outrollCase(false, "one behind nginx", 1, true) : null;
+  const proxiedTwo = WITH_TWO_PROCESSES ? await outrollCase(false, "two behind nginx", 2, true) : null;
+  proxyFolder.remove();
   await pool.end();
   const phones = alone.phones;
 
@@ -282,6 +298,10 @@ async function main() {
     console.log(row("Outroll, a Run board watching each run", watched.ours, String(watched.lost), String(watched.duplicated)));
     console.log(row(`Outroll, boards watching, paced at ${PACED_RATE} rolls/s in all`, watched.paced!, "(above)", "(above)"));
   }
+  if (proxiedOne && proxiedTwo) {
+    console.log(row("Outroll, phones alone, one process behind nginx", proxiedOne.ours, String(proxiedOne.lost), String(proxiedOne.duplicated)));
+    console.log(row("Outroll, phones alone, two processes behind nginx", proxiedTwo.ours, String(proxiedTwo.lost), String(proxiedTwo.duplicated)));
+  }
   console.log(row("yardstick: socket.io + PostgreSQL insert only", storeOnly, "n/a", "n/a"));
   console.log(row("bare socket.io, acknowledge only", ceiling, "n/a", "n/a"));
   console.log("");
@@ -295,6 +315,12 @@ async function main() {
     const failures = [...measured.ours.failures, ...(measured.paced?.failures ?? [])];
     if (failures.length) console.log(`Refusals, ${name}: ${failures.map(([code, count]) => `${code} ${count}`).join(", ")}`);
     console.log(`Rows stored ${name}: ${measured.rows}, acknowledged ${measured.rows - measured.unacknowledged}: lost ${measured.lost}, duplicated ${measured.duplicated}, stored without an acknowledgement ${measured.unacknowledged}.`);
+  }
+  if (proxiedOne && proxiedTwo) {
+    const ratio = (measured: Measured, base: Measured) => (rate(measured) / rate(base)).toFixed(2);
+    console.log(
+      `Two processes behind nginx acknowledge ${ratio(proxiedTwo.ours, proxiedOne.ours)}× the rolls/s of one process behind nginx and ${ratio(proxiedTwo.ours, alone.ours)}× those of one process reached directly; p99 ${percentile(proxiedTwo.ours.latencies, 0.99).toFixed(1)} ms against ${percentile(proxiedOne.ours.latencies, 0.99).toFixed(1)} ms. Rows: two processes lost ${proxiedTwo.lost}, duplicated ${proxiedTwo.duplicated}; one behind nginx lost ${proxiedOne.lost}, duplicated ${proxiedOne.duplicated}.`,
+    );
   }
   if (watched) console.log(`Run boards received ${watched.updatesPerRunPerSecond.toFixed(1)} updates per run per second (throttled; never one per roll).`);
   const ratio = rate(alone.ours) / rate(ceiling);

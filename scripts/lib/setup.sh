@@ -44,6 +44,17 @@ ensure_postgres_package() {
   export PG_BIN
 }
 
+# Debian's nginx, the reverse proxy of the two-process tests and of the deploy/ set-up; run with a config of our own.
+ensure_nginx() {
+  if ! command -v nginx >/dev/null 2>&1 && [ ! -x /usr/sbin/nginx ]; then
+    apt_install nginx
+    # Debian starts its own nginx on port 80; ours runs on loopback ports with deploy/ or test configs, so stop Debian's.
+    as_root service nginx stop >/dev/null 2>&1 || true
+  fi
+  NGINX_BIN=$(command -v nginx || echo /usr/sbin/nginx)
+  export NGINX_BIN
+}
+
 ensure_chromium() {
   if ! command -v chromium >/dev/null 2>&1; then
     apt_install chromium
@@ -57,6 +68,25 @@ as_cluster_owner() {
   else
     "$@"
   fi
+}
+
+# cluster_dir_for PREFERRED_DIR: prints where the cluster can live. As root, the postgres user must reach the folder; a
+# clone inside a private folder (a home folder, a mktemp -d folder) keeps its cluster under /var/lib/outroll/ instead,
+# in a folder named after the clone's path, and says so. Nothing in the clone's permissions is changed.
+cluster_dir_for() {
+  local preferred=$1 parent
+  parent=$(dirname "$preferred")
+  mkdir -p "$parent"
+  if [ "$(id -u)" -ne 0 ] || runuser -u postgres -- test -d "$parent" 2>/dev/null; then
+    echo "$preferred"
+    return 0
+  fi
+  local key
+  key=$(printf '%s' "$project_root" | sha256sum | cut -c1-12)
+  local fallback="/var/lib/outroll/$key/postgres"
+  mkdir -p "$fallback"
+  chmod 755 /var/lib/outroll "/var/lib/outroll/$key"
+  echo "$fallback"
 }
 
 # start_cluster DATA_DIR PORT: creates the cluster if missing and starts it on 127.0.0.1:PORT.

@@ -5,13 +5,13 @@ import { startFakeSmtpServer, type FakeSmtpServer } from "./fake-smtp-server";
 
 export type OutgoingMail = { to: string; subject: string; text: string; html: string };
 
-type MailDelivery = { transporter: Transporter; fakeServer: FakeSmtpServer | null };
+type MailDelivery = { transporter: Transporter | null; fakeServer: FakeSmtpServer | null };
 
 let delivery: Promise<MailDelivery> | undefined;
 
-/** True when no SMTP_URL is configured, so mail goes to the app's own local fake mail server. */
+/** True when mail goes to the app's own local fake mail server: no SMTP_URL, and not a production server (or FAKE_SMTP=1). */
 export function usesFakeMailServer() {
-  return !env.SMTP_URL;
+  return env.fakeMail;
 }
 
 /**
@@ -21,6 +21,8 @@ export function usesFakeMailServer() {
 export function startMailDelivery(): Promise<MailDelivery> {
   delivery ??= (async () => {
     if (env.SMTP_URL) return { transporter: nodemailer.createTransport(env.SMTP_URL), fakeServer: null };
+    // A production server never starts the fake mail server on its own: without SMTP_URL it sends no mail at all.
+    if (!env.fakeMail) return { transporter: null, fakeServer: null };
     const fakeServer = await startFakeSmtpServer(env.FAKE_SMTP_PORT);
     logger.info({ port: fakeServer.port }, "local fake mail server listening");
     // A real SMTP exchange over TCP, even in tests: plain text on loopback, nothing leaves the machine.
@@ -42,6 +44,7 @@ export async function fakeMailServer(): Promise<FakeSmtpServer | null> {
 /** Sends one message; rejects when the SMTP server refuses it or cannot be reached. */
 export async function sendMail(mail: OutgoingMail) {
   const { transporter } = await startMailDelivery();
+  if (!transporter) throw new Error("No mail server is configured: set SMTP_URL (see docs/operations.md).");
   await transporter.sendMail({ from: env.MAIL_FROM, ...mail });
 }
 
@@ -50,6 +53,6 @@ export async function stopMailDelivery() {
   if (!delivery) return;
   const current = await delivery.catch(() => null);
   delivery = undefined;
-  current?.transporter.close();
+  current?.transporter?.close();
   await current?.fakeServer?.close();
 }

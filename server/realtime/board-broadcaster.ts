@@ -93,7 +93,8 @@ export class BoardBroadcaster {
       const update = (!full && (await refreshBoardWithRolls(runId, rows, this.kept))) || (await readBoardUpdate(runId, this.kept));
       if (update) {
         // isOwner depends on the viewer; each board already knows it from its own first snapshot.
-        this.io.to(boardRoom(runId)).emit(EVENTS.boardUpdate, update);
+        // Local only: every process with a board watching this run sends its own (see class-run-events.ts).
+        this.io.local.to(boardRoom(runId)).emit(EVENTS.boardUpdate, update);
       }
     } catch (error) {
       logger.error({ err: error, runId }, "board update failed");

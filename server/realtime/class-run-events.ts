@@ -45,10 +45,22 @@ import {
 import { verifyGuestToken } from "../services/guest-token";
 import { BoardBroadcaster, boardRoom } from "./board-broadcaster";
 import { RollBatcher } from "./roll-batcher";
-import { codeGuessingWait, countWrongCode, joinWait, rollsPerConnection, rollsPerGroup, runRollCeiling } from "./room-limits";
-import { notifyRunChanged, onRunChanged } from "./run-notifier";
+import { codeGuessingWait, countWrongCode, joinWait, rollsPerConnection, runRollCeiling } from "./room-limits";
+import { RollAllowance } from "../limits/roll-allowance";
+import { sharedLimiter } from "../limits/shared-limiter";
+import { batcherQueueDepth, connectedPhones, rollAckSeconds, rollBatchFailures, rollsAcknowledged } from "../metrics";
+import { notifyRunChanged, onRunChanged, type RunChange } from "./run-notifier";
 
 export const padsRoom = (runId: string) => `pads:${runId}`;
+
+/** Server-to-server events over the PostgreSQL adapter (io.serverSideEmit): other processes' changes and committed rolls. */
+const RUN_CHANGED_ELSEWHERE = "run:changed-elsewhere";
+const RUN_ROLLS_ELSEWHERE = "run:rolls-elsewhere";
+/** How often at most a process tells the others that rolls were committed to one run. */
+const ROLLS_NOTICE_MS = 250;
+
+/** Changes this process received from another one: they refresh boards and caches here but are not broadcast again. */
+const remoteChanges = new WeakSet<RunChange>();
 
 const outcomeErrors: Partial<Record<RollWriteOutcome, EventError>> = {
   run_closed: { code: "run_closed", message: "This class run is closed: it takes no more rolls. Thank you for playing!" },
@@ -62,8 +74,16 @@ const outcomeErrors: Partial<Record<RollWriteOutcome, EventError>> = {
 
 type Acknowledge<T extends object> = (answer: Ack<T>) => void;
 
+/** The run an event is about, for the logs: from a pupil's signed token or a board's runId. */
+function runIdOf(payload: unknown): string | undefined {
+  if (!payload || typeof payload !== "object") return undefined;
+  const fields = payload as { token?: unknown; runId?: unknown };
+  if (typeof fields.runId === "string") return fields.runId;
+  return typeof fields.token === "string" ? verifyGuestToken(fields.token)?.runId : undefined;
+}
+
 /** The `{ ok: false, error }` answer for anything a handler threw. */
-function refusalFor(error: unknown): EventError {
+function refusalFor(error: unknown, payload?: unknown): EventError {
   if (error instanceof PadError) return error.toEventError();
   // Text PostgreSQL cannot store is refused for good (invalid_input is not retryable), so the phone stops resending it.
   if (isUnstorableText(error)) return { code: "invalid_input", message: NUL_CHARACTER_MESSAGE };
@@ -71,7 +91,7 @@ function refusalFor(error: unknown): EventError {
     const code = error.status === 401 ? "unauthenticated" : error.status === 404 ? "not_found" : "forbidden";
     return { code, message: error.message };
   }
-  logger.error({ err: error }, "class run event failed");
+  logger.error({ err: error, runId: runIdOf(payload) }, "class run event failed");
   return { code: "server_error", message: "The server could not save this just now; the phone will try again." };
 }
 
@@ -97,11 +117,11 @@ function handle<S extends z.ZodType, T extends object>(schema: S, run: (payload:
       if (result instanceof Promise) {
         result.then(
           (settled: T) => answer({ ok: true, ...settled }),
-          (error: unknown) => answer({ ok: false, error: refusalFor(error) }),
+          (error: unknown) => answer({ ok: false, error: refusalFor(error, payload) }),
         );
       } else answer({ ok: true, ...result });
     } catch (error) {
-      answer({ ok: false, error: refusalFor(error) });
+      answer({ ok: false, error: refusalFor(error, payload) });
     }
   };
 }
@@ -116,6 +136,14 @@ async function teacherFromHeaders(headers: IncomingHttpHeaders): Promise<Teacher
     department: membership ? { id: membership.departmentId, name: membership.departmentName } : null,
     role: membership?.role ?? null,
   };
+}
+
+/** Each socket.io server's "write every queued roll now" (graceful shutdown calls it before closing connections). */
+const drainers = new WeakMap<Server, () => Promise<void>>();
+
+/** Writes every roll the server has queued and waits for the batches to commit (acknowledgements then go out). */
+export async function drainRolls(io: Server): Promise<void> {
+  await drainers.get(io)?.();
 }
 
 /**
@@ -184,16 +212,45 @@ export async function sweepIdleRuns(idleMinutes = env.RUN_IDLE_CLOSE_MINUTES): P
  * rolls go through the batcher and are acknowledged after commit; Run boards get a snapshot, then throttled updates.
  */
 export function registerClassRunEvents(io: Server) {
+  // A group's rolls are counted in PostgreSQL, so a group whose phones use two processes still gets one limit:
+  // ROLL_BURST_PER_GROUP rolls per window of burst / rate seconds, leased a twelfth of the burst at a time (5 of the
+  // default 60; see roll-allowance.ts), so at most one roll in five waits for the database.
+  const allowance = new RollAllowance(
+    sharedLimiter({ keyPrefix: "group-rolls", points: env.ROLL_BURST_PER_GROUP, duration: Math.max(1, Math.round(env.ROLL_BURST_PER_GROUP / env.ROLL_RATE_PER_GROUP)) }),
+    Math.max(1, Math.ceil(env.ROLL_BURST_PER_GROUP / 12)),
+  );
   const broadcaster = new BoardBroadcaster(io, env.BOARD_UPDATE_MS);
+  const lastRollsNotice = new Map<string, number>();
+  const pendingRollsNotice = new Map<string, NodeJS.Timeout>();
+  /** Tells the other processes that rolls were committed to a run, at most once per ROLLS_NOTICE_MS per run. */
+  const announceRolls = (runId: string) => {
+    if (pendingRollsNotice.has(runId)) return;
+    const wait = Math.max(0, (lastRollsNotice.get(runId) ?? 0) + ROLLS_NOTICE_MS - Date.now());
+    const timer = setTimeout(() => {
+      pendingRollsNotice.delete(runId);
+      lastRollsNotice.set(runId, Date.now());
+      if (lastRollsNotice.size > 5_000) lastRollsNotice.clear();
+      io.serverSideEmit(RUN_ROLLS_ELSEWHERE, runId);
+    }, wait);
+    pendingRollsNotice.set(runId, timer);
+  };
   const batcher = new RollBatcher((rolls) => writeRollBatch(db, rolls), {
     windowMs: env.ROLL_BATCH_MS,
     maxBatch: 500,
     concurrency: 3,
+    retryDelayMs: 500,
+    onWriteFailed: (error, attempt, rolls) => {
+      rollBatchFailures.inc();
+      logger.warn({ err: error, attempt, runIds: [...new Set(rolls.map((entry) => entry.runId))] }, attempt === 1 ? "a roll batch failed; trying it once more" : "a roll batch failed twice; phones will send its rolls again");
+    },
     onWritten: (rolls, outcomes) => {
       const stored = new Map<string, NewRoll[]>();
       const phoneRolls = new Map<string, number>();
       for (const entry of rolls) {
-        if (outcomes.get(entry.id) !== "stored") continue;
+        const outcome = outcomes.get(entry.id);
+        // A duplicate here may be a roll whose first write committed before its answer was lost: read that run afresh.
+        if (outcome === "duplicate") broadcaster.markDirty(entry.runId);
+        if (outcome !== "stored") continue;
         if (entry.source === "phone") phoneRolls.set(entry.runId, (phoneRolls.get(entry.runId) ?? 0) + 1);
         // A left-out group's rolls are stored but kept out of the board's figures.
         if (entry.leftOut) continue;
@@ -201,21 +258,41 @@ export function registerClassRunEvents(io: Server) {
         if (ofRun) ofRun.push(entry);
         else stored.set(entry.runId, [entry]);
       }
-      for (const [runId, ofRun] of stored) broadcaster.addRolls(runId, ofRun);
+      for (const [runId, ofRun] of stored) {
+        broadcaster.addRolls(runId, ofRun);
+        announceRolls(runId);
+      }
       for (const [runId, count] of phoneRolls) if (runRollCeiling.add(runId, count)) ceilingReached(runId);
     },
   });
+  const depthTimer = setInterval(() => batcherQueueDepth.set(batcher.depth()), 1_000);
+  depthTimer.unref();
 
   /** Queues a checked roll for the next batch; settles once that batch has committed. */
   const writeRoll = (row: NewRoll) =>
     batcher.submit(row).then((outcome) => {
       const refusal = outcomeErrors[outcome];
       if (refusal) throw new PadError(refusal.code, refusal.message, refusal.retryAfterMs);
+      rollsAcknowledged.inc({ outcome });
       return { id: row.id, duplicate: outcome === "duplicate" };
     });
 
+  // Another process committed rolls to a run: a board watching it here reads it in full at its next refresh.
+  io.on(RUN_ROLLS_ELSEWHERE, (runId: unknown) => {
+    if (typeof runId === "string") broadcaster.markDirty(runId);
+  });
+  // Another process changed a run (status, phase, groups, an undo…): clear this process's caches and refresh its boards.
+  io.on(RUN_CHANGED_ELSEWHERE, (change: RunChange) => {
+    if (!change || typeof change.runId !== "string") return;
+    remoteChanges.add(change);
+    notifyRunChanged(change);
+  });
+
   const stopListening = onRunChanged(async (change) => {
     broadcaster.markDirty(change.runId);
+    // Pads and boards on every process hear a change once: from the process where it happened, through the adapter.
+    if (remoteChanges.has(change)) return;
+    io.serverSideEmit(RUN_CHANGED_ELSEWHERE, change);
     if (change.kind === "group") {
       const message: GroupUpdateBroadcast = { runId: change.runId, groupId: change.groupId };
       io.to(padsRoom(change.runId)).emit(EVENTS.groupUpdate, message);
@@ -244,9 +321,24 @@ export function registerClassRunEvents(io: Server) {
     stopListening();
     broadcaster.close();
     clearInterval(idleSweep);
+    clearInterval(depthTimer);
+    for (const timer of pendingRollsNotice.values()) clearTimeout(timer);
+  });
+  // Rolls still being checked (a group's first roll reads the database, a lease may be taken) reach the batcher later.
+  let rollsBeforeBatcher = 0;
+  drainers.set(io, async () => {
+    for (;;) {
+      await batcher.drain();
+      if (rollsBeforeBatcher === 0 && batcher.depth() === 0) break;
+      await new Promise((resolve) => setTimeout(resolve, 10));
+    }
+    // Let every acknowledgement callback run before the connections close.
+    await new Promise((resolve) => setImmediate(resolve));
   });
 
   io.on("connection", (socket: Socket) => {
+    connectedPhones.inc();
+    socket.once("disconnect", () => connectedPhones.dec());
     const joinPads = (runId: string) => void socket.join(padsRoom(runId));
 
     const address = socketAddress(socket);
@@ -290,20 +382,40 @@ export function registerClassRunEvents(io: Server) {
     socket.on(
       EVENTS.rollRecord,
       handle(rollRecordPayloadSchema, ({ token, roll }) => {
+        const arrived = performance.now();
+        const timed = <T>(answer: Promise<T>) => {
+          answer.then(
+            () => rollAckSeconds.observe((performance.now() - arrived) / 1000),
+            () => undefined,
+          );
+          return answer;
+        };
         const claims = verifyGuestToken(token);
-        if (claims) {
-          if (runRollCeiling.reached(claims.runId)) throw rollCeilingReached();
-          startCountingRolls(claims.runId);
-          const allowed = rollsPerGroup.take(claims.groupId);
-          const fromConnection = allowed.allowed ? rollsPerConnection.take(socket.id) : allowed;
-          if (!fromConnection.allowed) {
-            flagFlood(claims.runId, claims.groupId);
-            throw new PadError("rate_limited", "Rolls are coming in faster than a group can play. Wait a moment; the phone sends them again.", fromConnection.retryAfterMs);
-          }
-        }
-        // Only a group's first roll (or one after a change to its run) waits for the database before the batcher.
-        const row = checkedRollFromCache(token, roll);
-        return row ? writeRoll(row) : checkedRoll(token, roll).then(writeRoll);
+        const refuse = (retryAfterMs: number): never => {
+          if (claims) flagFlood(claims.runId, claims.groupId);
+          throw new PadError("rate_limited", "Rolls are coming in faster than a group can play. Wait a moment; the phone sends them again.", retryAfterMs);
+        };
+        const record = () => {
+          // Only a group's first roll (or one after a change to its run) waits for the database before the batcher.
+          const row = checkedRollFromCache(token, roll);
+          if (row) return timed(writeRoll(row));
+          rollsBeforeBatcher += 1;
+          const checked = checkedRoll(token, roll).finally(() => (rollsBeforeBatcher -= 1));
+          return timed(checked.then(writeRoll));
+        };
+        if (!claims) return record();
+        if (runRollCeiling.reached(claims.runId)) throw rollCeilingReached();
+        startCountingRolls(claims.runId);
+        const fromConnection = rollsPerConnection.take(socket.id);
+        if (!fromConnection.allowed) return refuse(fromConnection.retryAfterMs);
+        // Most rolls are allowed from this process's lease without waiting; the last of a lease takes a new one from PostgreSQL.
+        const local = allowance.takeLocally(claims.groupId);
+        if (local) return local.allowed ? record() : refuse(local.retryAfterMs);
+        rollsBeforeBatcher += 1;
+        return allowance
+          .take(claims.groupId)
+          .finally(() => (rollsBeforeBatcher -= 1))
+          .then((answer) => (answer.allowed ? record() : refuse(answer.retryAfterMs)));
       }),
     );
 

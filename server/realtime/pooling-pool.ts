@@ -1,4 +1,6 @@
+import path from "node:path";
 import { Worker } from "node:worker_threads";
+import { env } from "../env";
 import { poolBoard, type BoardPools, type BoardPoolSettings } from "@shared/class-results/board-pool";
 import { encodeBoardTallies } from "@shared/events";
 import type { PoolRow } from "../db/queries/class-runs";
@@ -43,8 +45,10 @@ function startWorker(): Worker | null {
   if (worker) return worker;
   try {
     // The worker is TypeScript like the server; Node 20 workers ignore --import tsx, so a two-line bootstrap registers it.
-    const script = new URL("./pooling-worker.ts", import.meta.url).href;
-    const started = new Worker(`import("tsx/esm/api").then(({ register }) => { register(); return import(${JSON.stringify(script)}); });`, { eval: true });
+    const started = import.meta.url.endsWith(".ts")
+      ? new Worker(`import("tsx/esm/api").then(({ register }) => { register(); return import(${JSON.stringify(new URL("./pooling-worker.ts", import.meta.url).href)}); });`, { eval: true })
+      : // The built server (npm run build) has the worker as an entry of its own.
+        new Worker(path.join(env.projectRoot, "dist/server/pooling-worker.js"));
     worker = started;
     started.unref();
     started.on("message", (message: { ready?: boolean; id: number; result?: Result; needsReset?: boolean; error?: string }) => {

@@ -12,6 +12,8 @@ export class RollBatcher<R extends { id: string } = NewRoll> {
   private queue: Pending<R>[] = [];
   private timer: NodeJS.Timeout | null = null;
   private writing = 0;
+  private inBatches = 0;
+  private idleWaiters: (() => void)[] = [];
 
   constructor(
     private readonly write: (rolls: R[]) => Promise<Map<string, RollWriteOutcome>>,
@@ -20,6 +22,9 @@ export class RollBatcher<R extends { id: string } = NewRoll> {
       maxBatch: number;
       concurrency: number;
       onWritten?: (rolls: R[], outcomes: Map<string, RollWriteOutcome>) => void;
+      /** A failed write is tried once more after this pause (a dropped connection, a database restart) before callers hear of it. */
+      retryDelayMs?: number;
+      onWriteFailed?: (error: unknown, attempt: number, rolls: R[]) => void;
     },
   ) {}
 
@@ -29,6 +34,39 @@ export class RollBatcher<R extends { id: string } = NewRoll> {
       this.queue.push({ roll, resolve, reject });
       this.schedule();
     });
+  }
+
+  /** Rolls queued or being written. */
+  depth(): number {
+    return this.queue.length + this.inBatches;
+  }
+
+  /** Writes everything queued now, without waiting for the window, and resolves once every batch has settled. */
+  async drain(): Promise<void> {
+    while (this.queue.length > 0 || this.writing > 0) {
+      if (this.queue.length > 0 && this.writing < this.options.concurrency) {
+        void this.flush();
+        continue;
+      }
+      await new Promise<void>((resolve) => this.idleWaiters.push(resolve));
+    }
+  }
+
+  private async writeWithRetry(rolls: R[]): Promise<Map<string, RollWriteOutcome>> {
+    try {
+      return await this.write(rolls);
+    } catch (error) {
+      this.options.onWriteFailed?.(error, 1, rolls);
+      if (this.options.retryDelayMs === undefined) throw error;
+      await new Promise((resolve) => setTimeout(resolve, this.options.retryDelayMs));
+      // The insert is ON CONFLICT DO NOTHING, so a batch that did commit before its answer was lost comes back as duplicates.
+      try {
+        return await this.write(rolls);
+      } catch (again) {
+        this.options.onWriteFailed?.(again, 2, rolls);
+        throw again;
+      }
+    }
   }
 
   private schedule() {
@@ -48,11 +86,12 @@ export class RollBatcher<R extends { id: string } = NewRoll> {
     if (this.queue.length === 0) return;
     this.writing += 1;
     const batch = this.queue.splice(0, this.options.maxBatch);
+    this.inBatches += batch.length;
     // The same id twice in one batch (a resend racing its original) is written once and both callers get the answer.
     const unique = new Map<string, R>();
     for (const entry of batch) if (!unique.has(entry.roll.id)) unique.set(entry.roll.id, entry.roll);
     try {
-      const outcomes = await this.write([...unique.values()]);
+      const outcomes = await this.writeWithRetry([...unique.values()]);
       const answered = new Set<string>();
       for (const entry of batch) {
         const outcome = outcomes.get(entry.roll.id) ?? "run_closed";
@@ -64,7 +103,9 @@ export class RollBatcher<R extends { id: string } = NewRoll> {
       for (const entry of batch) entry.reject(error);
     } finally {
       this.writing -= 1;
+      this.inBatches -= batch.length;
       this.schedule();
+      for (const wake of this.idleWaiters.splice(0)) wake();
     }
   }
 }

@@ -1,31 +1,32 @@
-import { RateLimiterMemory, RateLimiterRes } from "rate-limiter-flexible";
+import { RateLimiterMemory, RateLimiterRes, type RateLimiterAbstract } from "rate-limiter-flexible";
 import { env } from "../env";
+import { sharedLimiter } from "../limits/shared-limiter";
 
 /**
- * Every abuse limit of a class run, built in this one module. The rate-limiter-flexible limiters are RateLimiterMemory,
- * one per server process; moving them to a shared (PostgreSQL) store means swapping the constructors here and nothing
- * else. The figures are in docs/operations.md: a class of 30 groups behind one school address never reaches them.
+ * Every abuse limit of a class run, built in this one module. Limits on a run or an address are counted in PostgreSQL
+ * (sharedLimiter), so every app process behind the proxy counts the same joins and guesses; limits on one socket
+ * connection stay in the memory of the process that holds the connection. The figures are in docs/operations.md: a class of 30 groups behind one school address never reaches them.
  */
 const MINUTE = 60;
 
 /** Joins (successful or not) from one socket connection, per minute. */
 const joinsPerConnection = new RateLimiterMemory({ keyPrefix: "join-connection", points: env.JOINS_PER_CONNECTION_PER_MINUTE, duration: MINUTE });
 /** Joins into one run, per minute: the 60-groups-in-a-second flood stops here even across many connections. */
-const joinsPerRun = new RateLimiterMemory({ keyPrefix: "join-run", points: env.JOINS_PER_RUN_PER_MINUTE, duration: MINUTE });
+const joinsPerRun = sharedLimiter({ keyPrefix: "join-run", points: env.JOINS_PER_RUN_PER_MINUTE, duration: MINUTE });
 /** Wrong join codes from one connection, per minute; past it every join from the connection waits. */
 const guessesPerConnection = new RateLimiterMemory({ keyPrefix: "guess-connection", points: env.CODE_GUESSES_PER_CONNECTION_PER_MINUTE, duration: MINUTE });
 /** Wrong join codes from one address (a whole school shares one), per minute, over sockets and GET /api/pad/:code. */
-const guessesPerAddress = new RateLimiterMemory({ keyPrefix: "guess-address", points: env.CODE_GUESSES_PER_ADDRESS_PER_MINUTE, duration: MINUTE });
+const guessesPerAddress = sharedLimiter({ keyPrefix: "guess-address", points: env.CODE_GUESSES_PER_ADDRESS_PER_MINUTE, duration: MINUTE });
 
 
 /** How many milliseconds a key of a limiter must wait when it has used all its points this minute, else null. */
-async function exhausted(limiter: RateLimiterMemory, key: string): Promise<number | null> {
+async function exhausted(limiter: RateLimiterAbstract, key: string): Promise<number | null> {
   const state = await limiter.get(key);
   return state && state.consumedPoints >= limiter.points ? state.msBeforeNext : null;
 }
 
 /** Takes one point, answering the wait when none is left (other errors are thrown on). */
-async function take(limiter: RateLimiterMemory, key: string): Promise<number | null> {
+async function take(limiter: RateLimiterAbstract, key: string): Promise<number | null> {
   try {
     await limiter.consume(key);
     return null;
@@ -120,11 +121,9 @@ export class RollCeiling {
   }
 }
 
-// Rolls are the hot path, which answers without a promise when it can; these token buckets answer synchronously, which
-// rate-limiter-flexible's consume() (a promise per call) cannot. Per group: a stuck button; per connection: one phone
-// sending for many groups' tokens.
-/** Rolls per group: ROLL_RATE_PER_GROUP a second after a burst of ROLL_BURST_PER_GROUP. */
-export const rollsPerGroup = new GroupRateLimiter(env.ROLL_RATE_PER_GROUP, env.ROLL_BURST_PER_GROUP);
+// Rolls are the hot path, which answers without a promise when it can; this token bucket answers synchronously, which
+// rate-limiter-flexible's consume() (a promise per call) cannot. Per connection: one phone sending for many groups'
+// tokens. (Per group, the limit is shared by every process: RollAllowance in server/limits/roll-allowance.ts.)
 /** Rolls per socket connection, at the same figures as a group: a phone records for one group. */
 export const rollsPerConnection = new GroupRateLimiter(env.ROLL_RATE_PER_GROUP, env.ROLL_BURST_PER_GROUP);
 

@@ -143,7 +143,8 @@ export interface SetFinderProgress {
   etaSeconds: number | null;
 }
 
-export type SetFinderStatus = "running" | "finished" | "cancelled" | "failed";
+/** "queued": waiting for a free search slot on some app process. */
+export type SetFinderStatus = "queued" | "running" | "finished" | "cancelled" | "failed";
 
 /** "exhaustive": every candidate up to symmetry (results are the proven best unless the time budget ran out); "randomized": a local search within the time budget. */
 export type SetFinderMode = "exhaustive" | "randomized";
@@ -162,6 +163,13 @@ export interface SetFinderJob {
   startedAt: string;
   finishedAt: string | null;
 }
+
+/** One of a teacher's recent searches, as the Set finder page lists them (GET /api/set-finder/searches). */
+export type SetFinderSearchSummary = Omit<SetFinderJob, "results"> & {
+  resultCount: number;
+  /** The best set's weakest cycle win ("a/b"), or null when none was found. */
+  bestWeakestCycleWin: string | null;
+};
 
 /** Route parameters naming one search. */
 export const setFinderSearchIdParamsSchema = z.object({ id: z.uuid({ error: "That is not a search id." }) });

@@ -273,7 +273,10 @@ describe("the Dice bench and the Set finder in chromium", () => {
     await page.getByText(/s left|min left|estimating time left/).first().waitFor();
     await screenshot(page, "set-finder-running-laptop");
     await page.getByRole("button", { name: "Cancel the search" }).click();
-    await page.getByRole("status").filter({ hasText: "Search cancelled." }).waitFor({ timeout: 15_000 });
+    await page.getByRole("status").filter({ hasText: "Search cancelled after examining" }).waitFor({ timeout: 15_000 });
+    // A cancelled search says how much it examined, never "100% · N of N".
+    await expect(page.getByText(/^Cancelled: [\d,]+ of [\d,]+ candidate sets examined \(\d+%\)/).count()).resolves.toBe(1);
+    await expect(progress.getAttribute("aria-valuenow")).resolves.not.toBe("100");
     await screenshot(page, "set-finder-cancelled-laptop");
 
     // A small search, left to finish.
@@ -299,6 +302,21 @@ describe("the Dice bench and the Set finder in chromium", () => {
     const weakest = cycleWins.reduce((least, each) => (fractionValue(each) < fractionValue(least) ? each : least));
     expect(best.figures.weakestCycleWin).toBe(weakest);
     await expect(results.first().textContent()).resolves.toContain(`Weakest win ${weakest}`);
+
+    // Both searches are kept on the server: after leaving the page and coming back, the recent list shows them.
+    await page.getByRole("navigation", { name: "Product areas" }).getByRole("link", { name: "Dice bench" }).click();
+    await page.waitForURL(`${appUrl}/app/bench`);
+    await page.goto(`${appUrl}/app/finder`);
+    const recent = page.getByRole("region", { name: "Your recent searches" }).getByRole("listitem");
+    await recent.first().waitFor();
+    await expect(recent.nth(0).textContent()).resolves.toMatch(/3 dice × 6 faces.*Finished · \d+ sets? found/);
+    await expect(recent.nth(1).textContent()).resolves.toMatch(/4 dice × 8 faces.*Cancelled at \d+% examined/);
+    await screenshot(page, "set-finder-recent-laptop");
+    await page.setViewportSize(viewports.phone);
+    await screenshot(page, "set-finder-recent-phone");
+    await page.setViewportSize(viewports.laptop);
+    await recent.nth(0).getByRole("link").click();
+    await page.getByRole("status").filter({ hasText: "Finished:" }).waitFor();
 
     await results.first().getByRole("button", { name: /Open in the Dice bench/ }).click();
     await page.waitForURL(`${appUrl}/app/bench/new`);

@@ -4,7 +4,7 @@ import { v4 as uuidv4 } from "uuid";
 import { emptyLessonInput, LESSON_PHASES, type LessonInput, type LessonPhaseName } from "@shared/schemas/lessons";
 import type { SetDie } from "@shared/schemas/dice-sets";
 import { EVENTS, type GroupJoinAck, type PadState, type RollPayload, type RollRecordAck } from "@shared/events";
-import { db } from "../../server/db/client";
+import { db, type Database } from "../../server/db/client";
 import { diceSet, lesson, user } from "../../server/db/schema/index";
 
 /** Invented dice for the class-run tests. */
@@ -17,7 +17,8 @@ export const testDice: SetDie[] = [
 export type LessonOptions = Partial<Pick<LessonInput, "mode" | "tieRule" | "matchupChoice">> & { phases?: LessonPhaseName[]; dice?: SetDie[]; withoutSet?: boolean };
 
 /** A lesson of `ownerId` with its own dice set, written straight into the database (the Lessons screens are not under test here). */
-export async function createLessonFor(ownerEmail: string, options: LessonOptions = {}): Promise<string> {
+export async function createLessonFor(ownerEmail: string, options: LessonOptions = {}, database: Database = db): Promise<string> {
+  const db = database;
   const owner = await db.query.user.findFirst({ where: eq(user.email, ownerEmail) });
   if (!owner) throw new Error(`no user ${ownerEmail}`);
   const membership = await db.query.member.findFirst({ where: (member, { eq: equals }) => equals(member.userId, owner.id) });

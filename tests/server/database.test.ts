@@ -59,12 +59,27 @@ describe("demo data", () => {
   });
 });
 
-describe("health", () => {
-  it("answers ok with the database up", async () => {
+describe("health and readiness", () => {
+  it("answers liveness without the database and readiness with the database up and every migration applied", async () => {
     const app = await startTestApp();
     try {
-      const response = await fetch(`${app.baseUrl}/api/health`);
-      expect(await response.json()).toEqual({ ok: true, db: "up" });
+      const health = await fetch(`${app.baseUrl}/api/health`);
+      expect(await health.json()).toEqual({ ok: true });
+      const ready = await fetch(`${app.baseUrl}/api/ready`);
+      expect(ready.status).toBe(200);
+      expect(await ready.json()).toEqual({ ok: true, db: "up", migrations: "applied", draining: false });
+    } finally {
+      await app.close();
+    }
+  });
+
+  it("serves Prometheus metrics with the roll, socket and pool figures", async () => {
+    const app = await startTestApp();
+    try {
+      const text = await (await fetch(`${app.baseUrl}/metrics`)).text();
+      for (const name of ["outroll_rolls_acknowledged_total", "outroll_roll_ack_seconds_bucket", "outroll_connected_sockets", "outroll_roll_batcher_queue_depth", "outroll_database_pool_connections"]) {
+        expect(text).toContain(name);
+      }
     } finally {
       await app.close();
     }

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import Fraction from "fraction.js";
 import { compareDice } from "@shared/probability/index";
 import type { SetFinderJob, SetFinderRequestInput } from "@shared/schemas/set-finder";
-import { stopAllSearchJobs } from "../../server/set-finder/search-jobs";
+import { stopSearchQueue } from "../../server/set-finder/search-queue";
 import { signUpAgent } from "../helpers/department-fixtures";
 import { HttpAgent, startTestApp, type TestApp } from "../helpers/test-app";
 
@@ -37,7 +37,7 @@ beforeAll(async () => {
   otherTeacher = (await signUpAgent(app.baseUrl, "set-finder-other", "Alex Other")).agent;
 });
 afterAll(async () => {
-  await stopAllSearchJobs();
+  await stopSearchQueue();
   await app.close();
 });
 
@@ -62,7 +62,7 @@ describe("Set finder API", () => {
     const started = await teacher.post("/api/set-finder/searches", smallSearch);
     expect(started.status).toBe(202);
     expect(started.body.id).toMatch(/^[0-9a-f-]{36}$/);
-    const job = await pollUntil(teacher, started.body.id, (current) => current.status !== "running");
+    const job = await pollUntil(teacher, started.body.id, (current) => current.status !== "running" && current.status !== "queued");
     expect(job.status).toBe("finished");
     expect(job.mode).toBe("exhaustive");
     expect(job.complete).toBe(true);
@@ -95,7 +95,7 @@ describe("Set finder API", () => {
     expect((await otherTeacher.get(`/api/set-finder/searches/${started.body.id}`)).status).toBe(404);
     expect((await otherTeacher.delete(`/api/set-finder/searches/${started.body.id}`)).status).toBe(404);
     expect((await teacher.get("/api/set-finder/searches/not-an-id")).status).toBe(400);
-    await pollUntil(teacher, started.body.id, (current) => current.status !== "running");
+    await pollUntil(teacher, started.body.id, (current) => current.status !== "running" && current.status !== "queued");
   });
 
   it("reports progress while a large search runs and stops it on cancel", async () => {

@@ -13,3 +13,6 @@ export { proposalDigest } from "./proposal-digests";
 export { lessonAttachment } from "./lesson-attachments";
 export { classRun, runGroup, guessVote, paperImport, roll } from "./class-runs";
 export { paperCount } from "./paper-counts";
+export { rateLimit } from "./rate-limits";
+export { socketIoAttachment } from "./socket-io-attachments";
+export { setFinderSearch } from "./set-finder-searches";

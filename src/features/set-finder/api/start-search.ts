@@ -1,6 +1,7 @@
-import { useMutation } from "@tanstack/react-query";
+import { useMutation, useQueryClient } from "@tanstack/react-query";
 import type { SetFinderRequest } from "@shared/schemas/set-finder";
 import { api } from "@/lib/api-client";
+import { recentSearchesQueryOptions } from "./list-searches";
 
 /** Starts a search on the server (it runs off the request thread); answers its id at once. */
 export function startSearch(request: SetFinderRequest) {
@@ -8,5 +9,6 @@ export function startSearch(request: SetFinderRequest) {
 }
 
 export function useStartSearch() {
-  return useMutation({ mutationFn: startSearch });
+  const queryClient = useQueryClient();
+  return useMutation({ mutationFn: startSearch, onSuccess: () => queryClient.invalidateQueries({ queryKey: recentSearchesQueryOptions().queryKey }) });
 }

@@ -1,4 +1,5 @@
-import { useRef } from "react";
+import { useEffect, useRef } from "react";
+import { useQueryClient } from "@tanstack/react-query";
 import { useNavigate, useSearchParams } from "react-router-dom";
 import type { SetFinderJob } from "@shared/schemas/set-finder";
 import { Alert } from "@/components/ui/alert";
@@ -6,9 +7,11 @@ import { Button } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
 import { ProgressBar } from "@/components/ui/progress-bar";
 import { useCancelSearch } from "../api/cancel-search";
-import { useSearch } from "../api/get-search";
+import { searchIsActive, useSearch } from "../api/get-search";
+import { recentSearchesQueryOptions } from "../api/list-searches";
 import { useStartSearch } from "../api/start-search";
 import { draftFromFoundSet, FoundSetCard } from "./found-set-card";
+import { RecentSearches } from "./recent-searches";
 import { SetFinderForm } from "./set-finder-form";
 
 /** Time left in words: "about 40 s left", "about 3 min left". */
@@ -20,11 +23,21 @@ export function timeLeftText(seconds: number | null): string {
 }
 
 const statusWords: Record<SetFinderJob["status"], string> = {
+  queued: "Waiting for a free search slot",
   running: "Searching",
   finished: "Finished",
   cancelled: "Cancelled",
   failed: "Stopped by a problem",
 };
+
+/** How much of the search space has been looked at, in words; never "0 of 0" before the first count arrives. */
+export function examinedText(job: Pick<SetFinderJob, "status" | "progress">): string {
+  const { examined, total } = job.progress;
+  if (job.status === "queued") return "Waiting for a free search slot; it starts on its own.";
+  if (total === 0) return job.status === "running" ? "Counting the candidate sets…" : "No candidate set was examined.";
+  const counted = `${examined.toLocaleString()} of ${total.toLocaleString()} candidate sets examined`;
+  return job.status === "cancelled" ? `Cancelled: ${counted} (${Math.round(job.progress.fraction * 100)}%)` : counted;
+}
 
 /** The Set finder: state what the set must do, watch the search, and open any result in the Dice bench. */
 export function SetFinderScreen() {
@@ -36,6 +49,14 @@ export function SetFinderScreen() {
   const search = useSearch(searchId);
   const job = search.data;
   const running = job?.status === "running";
+  // Waiting or running: the Cancel button stays until the search has ended.
+  const active = job !== undefined && searchIsActive(job);
+  const queryClient = useQueryClient();
+  const ended = job !== undefined && !active;
+  // When the search on screen ends, the recent list shows its outcome.
+  useEffect(() => {
+    if (ended) void queryClient.invalidateQueries({ queryKey: recentSearchesQueryOptions().queryKey });
+  }, [ended, queryClient]);
   const resultsHeading = useRef<HTMLHeadingElement>(null);
 
   return (
@@ -48,7 +69,7 @@ export function SetFinderScreen() {
           </h2>
           <SetFinderForm
             busy={start.isPending}
-            disabled={running}
+            disabled={active}
             onSearch={(request) =>
               start.mutate(request, {
                 onSuccess: ({ id }) => {
@@ -83,13 +104,13 @@ export function SetFinderScreen() {
               <ProgressBar
                 label={`${statusWords[job.status]}${job.mode ? ` (${job.mode === "exhaustive" ? "every candidate" : "randomised search"})` : ""}`}
                 fraction={job.status === "finished" ? 1 : job.progress.fraction}
-                detail={running ? timeLeftText(job.progress.etaSeconds) : undefined}
+                detail={running && job.progress.total > 0 ? timeLeftText(job.progress.etaSeconds) : undefined}
               />
               <p className="text-sm text-ink-soft">
-                {job.progress.examined.toLocaleString()} of {job.progress.total.toLocaleString()} candidate sets examined
+                {examinedText(job)}
                 {job.results.length > 0 ? ` · ${job.results.length} ${job.results.length === 1 ? "set" : "sets"} found${running ? " so far" : ""}` : ""}
               </p>
-              {running && (
+              {active && (
                 <Button variant="danger" className="w-fit" busy={cancel.isPending} onClick={() => cancel.mutate(job.id)}>
                   Cancel the search
                 </Button>
@@ -102,7 +123,7 @@ export function SetFinderScreen() {
               )}
               {job.status === "cancelled" && (
                 <p role="status" className="font-bold">
-                  Search cancelled. {job.results.length > 0 ? "The sets found before it stopped are listed below." : "No set had been found yet."}
+                  Search cancelled after examining {Math.round(job.progress.fraction * 100)}% of the candidates. {job.results.length > 0 ? "The sets found before it stopped are listed below." : "No set had been found yet."}
                 </p>
               )}
               {job.status === "failed" && (
@@ -136,6 +157,9 @@ export function SetFinderScreen() {
             </Alert>
           )}
         </section>
+      </div>
+      <div className="mt-8">
+        <RecentSearches currentId={searchId} />
       </div>
     </>
   );
