@@ -26,6 +26,15 @@ const envSchema = z.object({
   ROLL_BURST_PER_GROUP: z.coerce.number().int().positive().default(60),
   ROLL_BATCH_MS: z.coerce.number().int().min(0).max(200).default(15),
   BOARD_UPDATE_MS: z.coerce.number().int().min(50).max(5000).default(500),
+  // Abuse limits (docs/operations.md): figures a class of 30 groups behind one school address never reaches.
+  JOINS_PER_CONNECTION_PER_MINUTE: z.coerce.number().int().positive().default(10),
+  JOINS_PER_RUN_PER_MINUTE: z.coerce.number().int().positive().default(120),
+  CODE_GUESSES_PER_CONNECTION_PER_MINUTE: z.coerce.number().int().positive().default(10),
+  CODE_GUESSES_PER_ADDRESS_PER_MINUTE: z.coerce.number().int().positive().default(100),
+  ROLL_CEILING_PER_RUN: z.coerce.number().int().positive().default(20_000),
+  // A run with no change and no roll for this long closes itself (0 keeps runs open); the sweep runs every RUN_IDLE_SWEEP_SECONDS.
+  RUN_IDLE_CLOSE_MINUTES: z.coerce.number().min(0).default(180),
+  RUN_IDLE_SWEEP_SECONDS: z.coerce.number().int().min(1).default(300),
 });
 
 export type Env = z.infer<typeof envSchema> & { appOrigin: string; authSecret: string; projectRoot: string };

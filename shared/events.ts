@@ -28,8 +28,10 @@ export const EVENTS = {
   runPhase: "run:phase",
   /** server → pads and boards: the run was opened, paused or closed. */
   runStatus: "run:status",
-  /** server → pads: the teacher changed a group (its matchup); the pad refreshes its state. */
+  /** server → pads: the teacher changed a group (its matchup or its nickname); the pad refreshes its state. */
   groupUpdate: "group:update",
+  /** server → pads: the teacher removed a group from the run; its token is dead for every event. */
+  groupRemoved: "group:removed",
 } as const;
 
 /** Error codes an acknowledgement may carry. Retryable ones leave the roll in the phone's outbox. */
@@ -41,6 +43,11 @@ export const eventErrorCodes = [
   "run_closed",
   "run_paused",
   "voting_closed",
+  "not_roll_phase",
+  "group_removed",
+  "joining_locked",
+  "run_full",
+  "run_roll_ceiling",
   "matchup_assigned",
   "no_matchup",
   "wrong_matchup",
@@ -56,7 +63,8 @@ export const eventErrorCodes = [
 export type EventErrorCode = (typeof eventErrorCodes)[number];
 
 /** Codes after which the same event may succeed later unchanged, so the outbox keeps it and tries again. */
-export const RETRYABLE_ERROR_CODES: readonly EventErrorCode[] = ["run_paused", "rate_limited", "server_error"];
+// not_roll_phase: a roll made in one phase and sent in another waits on the phone until the run is in a roll phase again.
+export const RETRYABLE_ERROR_CODES: readonly EventErrorCode[] = ["run_paused", "not_roll_phase", "rate_limited", "server_error"];
 
 export type EventError = { code: EventErrorCode; message: string; retryAfterMs?: number };
 /** Every acknowledgement: `{ ok: true, … }` or `{ ok: false, error: { code, message } }`. */
@@ -65,7 +73,11 @@ export type Ack<T extends object = object> = ({ ok: true } & T) | { ok: false; e
 const token = z.string({ error: "This phone has no group token: join the run again." }).min(20).max(600);
 const uuid = (what: string) => z.uuid({ error: `That is not a ${what} id.` });
 
-export const groupJoinPayloadSchema = z.object({ code: joinCodeSchema, nickname: nicknameSchema });
+/**
+ * A join. `attemptId` is a uuid v4 the phone makes per join attempt and sends again on a retry, so a join whose
+ * acknowledgement was lost answers the same group and a fresh token instead of `nickname_taken`.
+ */
+export const groupJoinPayloadSchema = z.object({ code: joinCodeSchema, nickname: nicknameSchema, attemptId: uuid("join attempt").optional() });
 export type GroupJoinPayload = z.input<typeof groupJoinPayloadSchema>;
 
 export const groupResumePayloadSchema = z.object({ token });
@@ -166,6 +178,7 @@ export function decodeBoardUpdate(message: BoardUpdateMessage): BoardSnapshot {
 export type RunPhaseBroadcast = { runId: string; phase: RunPhase; tally: number; dicePerPlayer: number; players: number };
 export type RunStatusBroadcast = { runId: string; status: RunStatus };
 export type GroupUpdateBroadcast = { runId: string; groupId: string };
+export type GroupRemovedBroadcast = { runId: string; groupId: string };
 
 /** A readable message for a zod error on a socket payload: the first issue, with its path. */
 export function payloadProblem(error: z.ZodError): string {

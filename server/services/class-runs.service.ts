@@ -42,6 +42,7 @@ import {
   type ClassRunRow,
   type LessonForRun,
   type NewRoll,
+  type RunGroupRow,
 } from "../db/queries/class-runs";
 import type { ClassRunTally } from "../db/schema/class-runs";
 import { env } from "../env";
@@ -84,11 +85,30 @@ export function classRunView(run: ClassRunRecord, viewerId: string | null): Clas
     currentTally: run.currentTally,
     tallies: talliesOf(run),
     boardVersion: run.boardVersion,
+    joiningLocked: run.joiningLocked,
+    groupCap: run.groupCap,
+    rollCeiling: env.ROLL_CEILING_PER_RUN,
+    rollCeilingReachedAt: run.rollCeilingReachedAt?.toISOString() ?? null,
     ownerId: run.ownerId,
     isOwner: run.ownerId === viewerId,
     ownerName: run.ownerName,
     createdAt: run.createdAt.toISOString(),
     closedAt: run.closedAt?.toISOString() ?? null,
+  };
+}
+
+/** A group as the Run board lists it, with its kept rolls and Guess vote. */
+export function boardGroupView(group: RunGroupRow, rolls: number, vote: number | null): BoardGroup {
+  return {
+    id: group.id,
+    nickname: group.nickname,
+    source: group.source,
+    matchup: group.matchup,
+    rolls,
+    vote,
+    createdAt: group.createdAt.toISOString(),
+    leftOut: group.leftOutAt !== null,
+    floodedAt: group.floodedAt?.toISOString() ?? null,
   };
 }
 
@@ -298,7 +318,7 @@ export async function assignGroupMatchup(teacher: TeacherContext, runId: string,
     return setGroupMatchup(tx, groupId, matchup);
   });
   notifyRunChanged({ runId, kind: "group", groupId });
-  return { id: group.id, nickname: group.nickname, source: group.source, matchup: group.matchup, rolls: 0, vote: null, createdAt: group.createdAt.toISOString() };
+  return boardGroupView(group, 0, null);
 }
 
 /**
@@ -352,15 +372,7 @@ export async function addSimulatedGroups(teacher: TeacherContext, runId: string,
   return {
     seed,
     rolls: result.stored,
-    groups: result.groups.map((group) => ({
-      id: group.id,
-      nickname: group.nickname,
-      source: group.source,
-      matchup: group.matchup,
-      rolls: input.rollsPerGroup,
-      vote: null,
-      createdAt: group.createdAt.toISOString(),
-    })),
+    groups: result.groups.map((group) => boardGroupView(group, input.rollsPerGroup, null)),
   };
 }
 
@@ -413,15 +425,7 @@ async function readBoardState(runId: string, viewerId: string | null) {
   const parts: BoardParts = {
     runId,
     run: classRunView(run, viewerId),
-    groups: groups.map((group) => ({
-      id: group.id,
-      nickname: group.nickname,
-      source: group.source,
-      matchup: group.matchup,
-      rolls: 0,
-      vote: voteByGroup.get(group.id) ?? null,
-      createdAt: group.createdAt.toISOString(),
-    })),
+    groups: groups.map((group) => boardGroupView(group, 0, voteByGroup.get(group.id) ?? null)),
     votes: voteCounts,
     undoneRolls,
   };

@@ -71,8 +71,20 @@ export const classRunIdParamsSchema = z.object({ id: z.uuid({ error: "That is no
 export const runGroupParamsSchema = classRunIdParamsSchema.extend({ groupId: z.uuid({ error: "That is not a group id." }) });
 export const padCodeParamsSchema = z.object({ code: joinCodeSchema });
 
-/** Body of POST /api/class-runs: open a run of one of the teacher's lessons. */
-export const openClassRunSchema = z.object({ lessonId: z.uuid({ error: "Pick one of your lessons." }) });
+/** Groups a run takes unless the teacher says otherwise when opening it (a class of 30 working alone, with a few spare). */
+export const GROUP_CAP_DEFAULT = 40;
+/** The most groups any run takes. */
+export const GROUP_CAP_MAX = 60;
+
+/** A run's group cap, set when the teacher opens it. */
+export const groupCapSchema = z
+  .number({ error: "Say how many groups may join." })
+  .int({ error: "The group cap is a whole number." })
+  .min(1, { error: "Let at least 1 group join." })
+  .max(GROUP_CAP_MAX, { error: `A run takes at most ${GROUP_CAP_MAX} groups.` });
+
+/** Body of POST /api/class-runs: open a run of one of the teacher's lessons, with an optional group cap. */
+export const openClassRunSchema = z.object({ lessonId: z.uuid({ error: "Pick one of your lessons." }), groupCap: groupCapSchema.optional() });
 export type OpenClassRunInput = z.infer<typeof openClassRunSchema>;
 
 /** Body of POST /api/class-runs/:id/status. */
@@ -98,6 +110,15 @@ export const matchupSchema = z
 
 /** Body of PUT /api/class-runs/:id/groups/:groupId/matchup (the teacher assigns a group's matchup). */
 export const groupMatchupSchema = z.object({ matchup: matchupSchema });
+
+/** Body of PATCH /api/class-runs/:id/groups/:groupId: the teacher renames a group (the same nickname rules as a join). */
+export const groupRenameSchema = z.object({ nickname: nicknameSchema });
+
+/** Body of PUT /api/class-runs/:id/groups/:groupId/left-out: leave the group's rolls out of every figure, or count them again. */
+export const groupLeftOutSchema = z.object({ leftOut: z.boolean({ error: "Say whether the group's rolls are left out." }) });
+
+/** Body of PUT /api/class-runs/:id/joining: lock joining (no new groups) or unlock it. */
+export const runJoiningSchema = z.object({ locked: z.boolean({ error: "Say whether joining is locked." }) });
 
 export const SIMULATED_ROLLS_MAX = 20_000;
 /** Body of POST /api/class-runs/:id/simulated-groups: the virtual class. */
@@ -143,6 +164,14 @@ export type ClassRun = {
   currentTally: number;
   tallies: RunTally[];
   boardVersion: number;
+  /** The teacher locked joining: no new group may join (groups already in carry on). */
+  joiningLocked: boolean;
+  /** Most groups this run takes (set when it was opened). */
+  groupCap: number;
+  /** Most phone rolls this run takes (ROLL_CEILING_PER_RUN); beyond it rolls are refused `run_roll_ceiling`. */
+  rollCeiling: number;
+  /** When the run reached its roll ceiling (the board's flood flag), or null. */
+  rollCeilingReachedAt: string | null;
   ownerId: string;
   /** Whether the teacher asking opened this run (board updates pushed to every watcher say false; compare ownerId instead). */
   isOwner: boolean;
@@ -177,6 +206,10 @@ export type BoardGroup = {
   rolls: number;
   vote: number | null;
   createdAt: string;
+  /** The teacher left this group's rolls out: they are kept but in no figure or export unless asked for. */
+  leftOut: boolean;
+  /** When the group's phone last sent rolls faster than a group can play (refused `rate_limited`), or null: the board's flood flag. */
+  floodedAt: string | null;
 };
 
 /** The Run board's whole state, read from the database at `version` (class_run.board_version). */

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { bigint, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { bigint, boolean, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { SetDie } from "@shared/schemas/dice-sets";
 import { organization } from "./departments";
 import { lesson } from "./lessons";
@@ -39,6 +39,14 @@ export const classRun = pgTable(
     tallies: jsonb("tallies").$type<ClassRunTally[]>().notNull().default([]),
     // Bumped on every change the Run board shows but a new roll (the board adds the run's roll rows), so a board can tell a stale snapshot from a fresh one.
     boardVersion: bigint("board_version", { mode: "number" }).notNull().default(0),
+    // The teacher's lock on joining: no new group joins while it is set.
+    joiningLocked: boolean("joining_locked").notNull().default(false),
+    // Most groups the run takes, chosen when it was opened.
+    groupCap: integer("group_cap").notNull().default(40),
+    // Set once, when the run's phone rolls reach the roll ceiling (the board's flood flag).
+    rollCeilingReachedAt: timestamp("roll_ceiling_reached_at", { withTimezone: true }),
+    // The last change a teacher or a group made other than a roll (rolls keep their own received_at); the idle sweep reads both.
+    lastChangeAt: timestamp("last_change_at", { withTimezone: true }).notNull().defaultNow(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     closedAt: timestamp("closed_at", { withTimezone: true }),
   },
@@ -61,9 +69,23 @@ export const runGroup = pgTable(
     // Die indexes (into the run's dice) of the group's matchup, one per player; null until assigned or chosen.
     matchup: jsonb("matchup").$type<number[] | null>(),
     source: text("source", { enum: ["phone", "simulated", "paper"] }).notNull().default("phone"),
+    // The nickname's confusable skeleton (shared/class-runs/nickname-rules.ts), so two look-alike nicknames cannot share a run.
+    nicknameKey: text("nickname_key"),
+    // The phone's id for the join attempt that made the group, so a retried join answers the same group.
+    joinAttemptId: uuid("join_attempt_id"),
+    // The teacher removed the group: it leaves the board and every figure, and its token is dead.
+    removedAt: timestamp("removed_at", { withTimezone: true }),
+    // The teacher left the group's rolls out: it stays on the board, marked, and its rolls leave every figure and export.
+    leftOutAt: timestamp("left_out_at", { withTimezone: true }),
+    // When the group's phone last sent rolls faster than the per-group limit (the board's flood flag).
+    floodedAt: timestamp("flooded_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (table) => [uniqueIndex("run_group_run_nickname_idx").on(table.runId, sql`lower(${table.nickname})`)],
+  (table) => [
+    uniqueIndex("run_group_run_nickname_idx").on(table.runId, sql`lower(${table.nickname})`),
+    uniqueIndex("run_group_run_nickname_key_idx").on(table.runId, table.nicknameKey),
+    uniqueIndex("run_group_run_join_attempt_idx").on(table.runId, table.joinAttemptId),
+  ],
 );
 
 /** A group's Guess-phase vote for the die it thinks is best; a group may change its mind, keeping one vote. */
