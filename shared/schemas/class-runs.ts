@@ -1,7 +1,7 @@
 import { z } from "zod";
 import type { PooledResults } from "../class-results/pooled-results";
 import type { SetDie } from "./dice-sets";
-import { joinCodeSchema } from "./join-code";
+import { joinCodeSchema, NICKNAME_MAX, NICKNAME_MIN } from "./joining";
 import { LESSON_PHASES, type LessonPhaseName } from "./lessons";
 
 /** A class run's status: open takes rolls, paused keeps phones waiting, closed takes nothing more. */
@@ -22,10 +22,8 @@ export const runPhaseHints: Record<RunPhase, string> = {
   Reflect: "Talk it through: was there a best die?",
 };
 
-export { JOIN_CODE_ALPHABET, JOIN_CODE_LENGTH, joinCodeSchema } from "./join-code";
+export { JOIN_CODE_ALPHABET, JOIN_CODE_LENGTH, joinCodeSchema, NICKNAME_MAX, NICKNAME_MIN } from "./joining";
 
-export const NICKNAME_MIN = 2;
-export const NICKNAME_MAX = 24;
 
 // Short lists of rude words pupils might try, checked after undoing common letter swaps (sh1t, @rse). Strong words are
 // refused anywhere, even across spaces; milder ones only as a word of their own, so "Essex" or "Dickens" stay allowed.

@@ -1,7 +1,8 @@
 import type { Socket } from "socket.io-client";
 import { v4 as uuidv4 } from "uuid";
 import { winnerSeatOf } from "@shared/class-results/winner-seat";
-import { EVENTS, type EventError, type GroupResumeAck, type MatchupChooseAck, type PadState, type VoteCastAck } from "@shared/event-names";
+import { EVENTS, type EventError } from "@shared/event-names";
+import type { GroupResumeAck, MatchupChooseAck, PadState, VoteCastAck } from "@shared/events";
 import { openAppSocket } from "@/lib/socket";
 import { keyValueOutboxStore, recordOperation, RollOutbox, undoOperation } from "./roll-outbox";
 import { ACK_TIMEOUT_MS, socketOutboxTransport } from "./socket-transport";
