@@ -29,3 +29,6 @@ node --expose-gc --import tsx scripts/bench/results-export.ts
 
 log "Class run load (300 phones on loopback against the real server and PostgreSQL, then a bare socket.io ceiling)"
 npx tsx scripts/bench/class-run-load.ts
+
+log "Roll pad in a phone's browser (first and second visit, throttled and not)"
+npx tsx scripts/bench/roll-pad-load.ts

@@ -18,8 +18,8 @@ function DeliveryStatus({ snapshot }: { snapshot: PadSnapshot }) {
   const settled = snapshot.connected && snapshot.waiting === 0;
   const tone = settled ? "bg-tide-light text-ink" : "bg-beacon-light text-ink";
   return (
-    <span role="status" aria-live="polite" data-testid="delivery-status" className={`rounded-full px-3 py-1 text-base font-bold ${tone}`}>
-      <span aria-hidden="true">{settled ? "✓ " : "⏳ "}</span>
+    <span role="status" aria-live="polite" data-testid="delivery-status" className={`whitespace-nowrap rounded-full px-3 py-1 text-base font-bold ${tone}`}>
+      {settled && <span aria-hidden="true">✓ </span>}
       {deliveryStatusText(snapshot.connected, snapshot.waiting)}
     </span>
   );
