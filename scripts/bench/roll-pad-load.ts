@@ -65,8 +65,8 @@ async function phone(url: string, profile: typeof throttled | null): Promise<{ f
         return input !== null && !input.disabled;
       });
       const ms = performance.now() - started;
-      await page.waitForLoadState("load");
-      await page.waitForTimeout(300);
+      // Count everything the page loads, including what it fetches after the field is usable (socket.io, the worker's helper).
+      await page.waitForLoadState("networkidle");
       await page.close();
       return { bytes, ms };
     };

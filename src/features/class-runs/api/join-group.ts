@@ -1,7 +1,6 @@
 import { v4 as uuidv4 } from "uuid";
 import { EVENTS } from "@shared/event-names";
 import type { GroupJoinAck } from "@shared/events";
-import { openAppSocket } from "@/lib/socket";
 import type { PadSession } from "../delivery/pad-connection";
 
 /** A refusal from the server when joining, with its code (e.g. nickname_taken), plain message and any wait. */
@@ -46,6 +45,7 @@ const wait = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
  */
 export async function joinGroup({ code, nickname }: { code: string; nickname: string }): Promise<PadSession> {
   const attemptId = joinAttemptId(code, nickname);
+  const { openAppSocket } = await import("@/lib/socket");
   const socket = openAppSocket();
   try {
     for (let attempt = 1; ; attempt += 1) {

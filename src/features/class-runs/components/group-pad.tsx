@@ -334,7 +334,7 @@ export function GroupPad({ session, onLeave }: { session: PadSession; onLeave: (
         <p className="text-xl font-bold" data-testid="group-nickname">
           {nickname}
         </p>
-        {padState && (
+        {padState && (padState.run.phase === "Guess" || ROLL_PHASES.includes(padState.run.phase)) && (
           <p className="text-base text-ink-soft">
             {padState.run.phase}: {phaseText[padState.run.phase]}
           </p>

@@ -57,6 +57,11 @@ function NicknameForm({ code, title, onJoined }: { code: string; title: string; 
   const [blockedUntil, setBlockedUntil] = useState(0);
   const [, setTick] = useState(0);
 
+  // socket.io's client is not needed to show this form; fetch it while the group chooses its nickname.
+  useEffect(() => {
+    void import("@/lib/socket");
+  }, []);
+
   // While a wait from rate_limited runs, count it down so the button comes back by itself.
   useEffect(() => {
     if (blockedUntil <= Date.now()) return;

@@ -3,7 +3,6 @@ import { v4 as uuidv4 } from "uuid";
 import { winnerSeatOf } from "@shared/class-results/winner-seat";
 import { EVENTS, type EventError } from "@shared/event-names";
 import type { GroupResumeAck, MatchupChooseAck, PadState, VoteCastAck } from "@shared/events";
-import { openAppSocket } from "@/lib/socket";
 import { keyValueOutboxStore, recordOperation, RollOutbox, undoOperation } from "./roll-outbox";
 import { ACK_TIMEOUT_MS, socketOutboxTransport } from "./socket-transport";
 
@@ -94,10 +93,13 @@ export class PadConnection {
   private readonly listeners = new Set<() => void>();
   private readonly cleanups: (() => void)[] = [];
 
-  constructor(private session: PadSession) {
+  constructor(
+    private session: PadSession,
+    socket: Socket,
+  ) {
     this.log = readJson<LocalRoll[]>(logKey(session.groupId), []);
     this.state = storedPadState(session.groupId);
-    this.socket = openAppSocket();
+    this.socket = socket;
     this.outbox = new RollOutbox(keyValueOutboxStore(localStorage, outboxKey(session.groupId)), socketOutboxTransport(this.socket, () => session.token), {
       maxInFlight: 6,
       retryDelayMs: 2_000,
@@ -287,6 +289,15 @@ export class PadConnection {
     this.snapshot = this.buildSnapshot();
     for (const listener of this.listeners) listener();
   }
+}
+
+/**
+ * Opens a group's connection. socket.io's client loads here, after the first screen, so the code and nickname forms
+ * come up without it (the service worker keeps its chunk for a reload offline).
+ */
+export async function openPadConnection(session: PadSession): Promise<PadConnection> {
+  const { openAppSocket } = await import("@/lib/socket");
+  return new PadConnection(session, openAppSocket());
 }
 
 const noAnswer = (): { ok: false; error: EventError } => ({ ok: false, error: { code: "server_error", message: "No answer from the class run yet. Try again in a moment." } });

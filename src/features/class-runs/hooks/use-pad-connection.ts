@@ -1,5 +1,5 @@
 import { useEffect, useState, useSyncExternalStore } from "react";
-import { PadConnection, storedPadState, storedWaitingCount, type PadSession, type PadSnapshot } from "../delivery/pad-connection";
+import { openPadConnection, storedPadState, storedWaitingCount, type PadConnection, type PadSession, type PadSnapshot } from "../delivery/pad-connection";
 
 const noSubscription = () => () => undefined;
 
@@ -18,10 +18,18 @@ export function usePadConnection(session: PadSession) {
   }));
 
   useEffect(() => {
-    const opened = new PadConnection(session);
-    setConnection(opened);
+    let opened: PadConnection | null = null;
+    let gone = false;
+    void openPadConnection(session).then((connection) => {
+      if (gone) connection.close();
+      else {
+        opened = connection;
+        setConnection(connection);
+      }
+    });
     return () => {
-      opened.close();
+      gone = true;
+      opened?.close();
       setConnection(null);
     };
     // A new token is a new group; the same token keeps the same connection.
