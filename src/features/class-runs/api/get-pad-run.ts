@@ -16,6 +16,20 @@ export async function getPadRun(code: string): Promise<PadRunPreview> {
   return body;
 }
 
+const lookups = new Map<string, Promise<PadRunPreview>>();
+
+/** Starts (or joins) the lookup of a code; the pad's entry calls it before React renders, to save a round trip's wait. */
+export function lookUpPadRun(code: string): Promise<PadRunPreview> {
+  let lookup = lookups.get(code);
+  if (!lookup) {
+    lookup = getPadRun(code);
+    lookups.set(code, lookup);
+    // A failed lookup is tried afresh next time (the code may be typed again after the Wi-Fi comes back).
+    lookup.catch(() => lookups.delete(code));
+  }
+  return lookup;
+}
+
 /**
  * The run behind a code, looked up once per code. The Roll pad talks to the server with a fetch and socket.io only, so
  * it carries no query cache (see DEVELOPERS.md).
@@ -29,7 +43,7 @@ export function usePadRun(code: string | null): PadRunLookup {
     }
     let current = true;
     setLookup({ status: "pending" });
-    getPadRun(code).then(
+    lookUpPadRun(code).then(
       (run) => current && setLookup({ status: "found", run }),
       (error: Error) => current && setLookup({ status: "failed", message: error.message }),
     );
