@@ -33,6 +33,9 @@ const serverEnv = {
   LOG_LEVEL: "warn",
   ROLL_RATE_PER_GROUP: "100000",
   ROLL_BURST_PER_GROUP: "100000",
+  // The abuse limits too: the load case's phones join and roll far beyond a class's figures on purpose.
+  JOINS_PER_RUN_PER_MINUTE: "100000",
+  ROLL_CEILING_PER_RUN: "100000000",
 };
 Object.assign(process.env, { DATABASE_URL: databaseUrl, DATA_DIR: dataDir, LOG_LEVEL: "warn" });
 
@@ -175,6 +178,7 @@ async function main() {
           phases: ["Roll"],
           phase: "Roll",
           status: "open",
+          groupCap: 60,
           currentTally: 1,
           tallies: [{ tally: 1, dicePerPlayer: 1, players: 2, startedAt: new Date().toISOString() }],
         }),

@@ -14,12 +14,13 @@ import {
   voteCastPayloadSchema,
   type Ack,
   type EventError,
+  type GroupRemovedBroadcast,
   type GroupUpdateBroadcast,
   type RunPhaseBroadcast,
   type RunStatusBroadcast,
 } from "@shared/events";
 import { auth } from "../auth";
-import { findClassRun, writeRollBatch, type NewRoll, type RollWriteOutcome } from "../db/queries/class-runs";
+import { closeIdleRuns, countPhoneRolls, findClassRun, markGroupFlooded, markRollCeilingReached, writeRollBatch, type NewRoll, type RollWriteOutcome } from "../db/queries/class-runs";
 import { db } from "../db/client";
 import { findMembershipForUser } from "../db/queries/memberships";
 import { env } from "../env";
@@ -27,11 +28,23 @@ import { HttpError } from "../http-error";
 import { logger } from "../logger";
 import type { TeacherContext } from "../middleware/require-teacher";
 import { readBoardSnapshot, runForTeacher } from "../services/class-runs.service";
-import { castVote, checkedRoll, checkedRollFromCache, chooseMatchup, GroupRateLimiter, joinRun, PadError, resumeGroup, undoRoll } from "../services/roll-pad.service";
+import {
+  castVote,
+  checkedRoll,
+  checkedRollFromCache,
+  chooseMatchup,
+  joinRun,
+  PadError,
+  resumeGroup,
+  rollCeilingReached,
+  runForJoinCode,
+  undoRoll,
+} from "../services/roll-pad.service";
 import { verifyGuestToken } from "../services/guest-token";
 import { BoardBroadcaster, boardRoom } from "./board-broadcaster";
 import { RollBatcher } from "./roll-batcher";
-import { onRunChanged } from "./run-notifier";
+import { codeGuessingWait, countWrongCode, joinWait, rollsPerConnection, rollsPerGroup, runRollCeiling } from "./room-limits";
+import { notifyRunChanged, onRunChanged } from "./run-notifier";
 
 export const padsRoom = (runId: string) => `pads:${runId}`;
 
@@ -98,11 +111,71 @@ async function teacherFromHeaders(headers: IncomingHttpHeaders): Promise<Teacher
 }
 
 /**
+ * The address a socket connected from: the X-Forwarded-For client when the connection comes through a proxy on this
+ * machine (as Express's "trust proxy: loopback" reads it), else the peer address.
+ */
+export function socketAddress(socket: Socket): string {
+  const peer = socket.handshake.address;
+  const forwarded = socket.handshake.headers["x-forwarded-for"];
+  const loopback = peer === "127.0.0.1" || peer === "::1" || peer === "::ffff:127.0.0.1";
+  if (loopback && typeof forwarded === "string" && forwarded.trim()) return forwarded.split(",").at(-1)!.trim();
+  return peer;
+}
+
+/** `rate_limited` with the wait, in words and in `retryAfterMs`. */
+function waitRefusal(retryAfterMs: number, what: string): PadError {
+  const seconds = Math.max(1, Math.ceil(retryAfterMs / 1000));
+  return new PadError("rate_limited", `${what} Wait ${seconds} second${seconds === 1 ? "" : "s"} and try again.`, retryAfterMs);
+}
+
+const FLOOD_FLAG_MS = 60_000;
+const recentlyFlagged = new Map<string, number>();
+
+/** Raises a group's flood flag on the board, at most once a minute per group from this process. */
+function flagFlood(runId: string, groupId: string) {
+  const now = Date.now();
+  if ((recentlyFlagged.get(groupId) ?? 0) > now) return;
+  recentlyFlagged.set(groupId, now + FLOOD_FLAG_MS);
+  if (recentlyFlagged.size > 10_000) for (const [id, until] of recentlyFlagged) if (until <= now) recentlyFlagged.delete(id);
+  markGroupFlooded(db, groupId).then(
+    (changed) => changed && notifyRunChanged({ runId, kind: "groups" }),
+    (error: unknown) => logger.warn({ err: error }, "could not raise a flood flag"),
+  );
+}
+
+/** Counts a run's stored phone rolls from the database the first time this process sees it (the roll ceiling). */
+function startCountingRolls(runId: string) {
+  if (runRollCeiling.knows(runId)) return;
+  runRollCeiling.start(runId, 0);
+  countPhoneRolls(db, runId).then(
+    (stored) => {
+      if (runRollCeiling.add(runId, stored)) ceilingReached(runId);
+    },
+    (error: unknown) => logger.warn({ err: error }, "could not count a run's rolls"),
+  );
+}
+
+function ceilingReached(runId: string) {
+  markRollCeilingReached(db, runId).then(
+    (changed) => changed && notifyRunChanged({ runId, kind: "run" }),
+    (error: unknown) => logger.warn({ err: error }, "could not mark a run's roll ceiling"),
+  );
+}
+
+/** Closes runs left idle for RUN_IDLE_CLOSE_MINUTES; several processes may sweep at once (one idempotent UPDATE). */
+export async function sweepIdleRuns(idleMinutes = env.RUN_IDLE_CLOSE_MINUTES): Promise<string[]> {
+  if (idleMinutes <= 0) return [];
+  const closed = await closeIdleRuns(db, idleMinutes);
+  for (const runId of closed) notifyRunChanged({ runId, kind: "status" });
+  if (closed.length > 0) logger.info({ runs: closed.length }, "closed idle class runs");
+  return closed;
+}
+
+/**
  * Class run events on the shared socket.io server: pupils' groups join, vote and record rolls with their signed token;
  * rolls go through the batcher and are acknowledged after commit; Run boards get a snapshot, then throttled updates.
  */
 export function registerClassRunEvents(io: Server) {
-  const limiter = new GroupRateLimiter(env.ROLL_RATE_PER_GROUP, env.ROLL_BURST_PER_GROUP);
   const broadcaster = new BoardBroadcaster(io, env.BOARD_UPDATE_MS);
   const batcher = new RollBatcher((rolls) => writeRollBatch(db, rolls), {
     windowMs: env.ROLL_BATCH_MS,
@@ -110,13 +183,18 @@ export function registerClassRunEvents(io: Server) {
     concurrency: 3,
     onWritten: (rolls, outcomes) => {
       const stored = new Map<string, NewRoll[]>();
+      const phoneRolls = new Map<string, number>();
       for (const entry of rolls) {
         if (outcomes.get(entry.id) !== "stored") continue;
+        if (entry.source === "phone") phoneRolls.set(entry.runId, (phoneRolls.get(entry.runId) ?? 0) + 1);
+        // A left-out group's rolls are stored but kept out of the board's figures.
+        if (entry.leftOut) continue;
         const ofRun = stored.get(entry.runId);
         if (ofRun) ofRun.push(entry);
         else stored.set(entry.runId, [entry]);
       }
       for (const [runId, ofRun] of stored) broadcaster.addRolls(runId, ofRun);
+      for (const [runId, count] of phoneRolls) if (runRollCeiling.add(runId, count)) ceilingReached(runId);
     },
   });
 
@@ -134,6 +212,10 @@ export function registerClassRunEvents(io: Server) {
       const message: GroupUpdateBroadcast = { runId: change.runId, groupId: change.groupId };
       io.to(padsRoom(change.runId)).emit(EVENTS.groupUpdate, message);
     }
+    if (change.kind === "removed") {
+      const message: GroupRemovedBroadcast = { runId: change.runId, groupId: change.groupId };
+      io.to(padsRoom(change.runId)).emit(EVENTS.groupRemoved, message);
+    }
     if (change.kind !== "status" && change.kind !== "phase") return;
     const run = await findClassRun(db, change.runId).catch(() => null);
     if (!run) return;
@@ -145,19 +227,34 @@ export function registerClassRunEvents(io: Server) {
       io.to([padsRoom(run.id), boardRoom(run.id)]).emit(EVENTS.runPhase, message);
     }
   });
+  const idleSweep = setInterval(() => {
+    sweepIdleRuns().catch((error: unknown) => logger.warn({ err: error }, "the idle run sweep failed"));
+  }, env.RUN_IDLE_SWEEP_SECONDS * 1000);
+  idleSweep.unref();
   // Tests start and stop many servers in one process; each stops listening when its HTTP server closes.
   io.httpServer?.once("close", () => {
     stopListening();
     broadcaster.close();
+    clearInterval(idleSweep);
   });
 
   io.on("connection", (socket: Socket) => {
     const joinPads = (runId: string) => void socket.join(padsRoom(runId));
 
+    const address = socketAddress(socket);
+
     socket.on(
       EVENTS.groupJoin,
-      handle(groupJoinPayloadSchema, async ({ code, nickname }) => {
-        const joined = await joinRun(code, nickname);
+      handle(groupJoinPayloadSchema, async ({ code, nickname, attemptId }) => {
+        const guessingWait = await codeGuessingWait(address, socket.id);
+        if (guessingWait !== null) throw waitRefusal(guessingWait, "Too many wrong join codes from here.");
+        const run = await runForJoinCode(code).catch(async (error: unknown) => {
+          if (error instanceof PadError && error.code === "unknown_code") await countWrongCode(address, socket.id);
+          throw error;
+        });
+        const busy = await joinWait(socket.id, run.id);
+        if (busy) throw waitRefusal(busy.waitMs, busy.busy === "connection" ? "This phone is joining too often." : "Groups are joining this run very fast.");
+        const joined = await joinRun(run.id, nickname, attemptId);
         joinPads(joined.state.run.id);
         return joined;
       }),
@@ -187,9 +284,13 @@ export function registerClassRunEvents(io: Server) {
       handle(rollRecordPayloadSchema, ({ token, roll }) => {
         const claims = verifyGuestToken(token);
         if (claims) {
-          const allowed = limiter.take(claims.groupId);
-          if (!allowed.allowed) {
-            throw new PadError("rate_limited", "Rolls are coming in faster than a group can play. Wait a moment; the phone sends them again.", allowed.retryAfterMs);
+          if (runRollCeiling.reached(claims.runId)) throw rollCeilingReached();
+          startCountingRolls(claims.runId);
+          const allowed = rollsPerGroup.take(claims.groupId);
+          const fromConnection = allowed.allowed ? rollsPerConnection.take(socket.id) : allowed;
+          if (!fromConnection.allowed) {
+            flagFlood(claims.runId, claims.groupId);
+            throw new PadError("rate_limited", "Rolls are coming in faster than a group can play. Wait a moment; the phone sends them again.", fromConnection.retryAfterMs);
           }
         }
         // Only a group's first roll (or one after a change to its run) waits for the database before the batcher.

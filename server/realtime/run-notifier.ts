@@ -5,6 +5,8 @@ export type RunChange =
   | { runId: string; kind: "status" }
   | { runId: string; kind: "phase" }
   | { runId: string; kind: "group"; groupId: string }
+  | { runId: string; kind: "removed"; groupId: string }
+  | { runId: string; kind: "run" }
   | { runId: string; kind: "groups" }
   | { runId: string; kind: "rolls" }
   | { runId: string; kind: "vote" };

@@ -1,10 +1,13 @@
 import { Router } from "express";
 import {
   classRunIdParamsSchema,
+  groupLeftOutSchema,
   groupMatchupSchema,
+  groupRenameSchema,
   openClassRunSchema,
   padCodeParamsSchema,
   runGroupParamsSchema,
+  runJoiningSchema,
   runPhaseChangeSchema,
   runStatusChangeSchema,
   simulatedGroupsSchema,
@@ -22,6 +25,10 @@ import {
   listRunnableLessons,
   openClassRun,
   previewRunByCode,
+  removeRunGroup,
+  renameRunGroup,
+  setRunGroupLeftOut,
+  setRunJoiningLocked,
 } from "../services/class-runs.service";
 
 /** /api/class-runs: the teacher's runs, opening one from a lesson, its phases, status, groups and the virtual class. */
@@ -38,7 +45,7 @@ classRunsRouter.get("/lessons", async (req, res) => {
 
 classRunsRouter.post("/", async (req, res) => {
   const input = parseBody(openClassRunSchema, req);
-  res.status(201).json(await openClassRun(currentTeacher(req), input.lessonId));
+  res.status(201).json(await openClassRun(currentTeacher(req), input.lessonId, input.groupCap));
 });
 
 classRunsRouter.get("/:id", async (req, res) => {
@@ -68,6 +75,29 @@ classRunsRouter.put("/:id/groups/:groupId/matchup", async (req, res) => {
   res.json(await assignGroupMatchup(currentTeacher(req), id, groupId, matchup));
 });
 
+classRunsRouter.patch("/:id/groups/:groupId", async (req, res) => {
+  const { id, groupId } = parseParams(runGroupParamsSchema, req);
+  const { nickname } = parseBody(groupRenameSchema, req);
+  res.json(await renameRunGroup(currentTeacher(req), id, groupId, nickname));
+});
+
+classRunsRouter.delete("/:id/groups/:groupId", async (req, res) => {
+  const { id, groupId } = parseParams(runGroupParamsSchema, req);
+  res.json(await removeRunGroup(currentTeacher(req), id, groupId));
+});
+
+classRunsRouter.put("/:id/groups/:groupId/left-out", async (req, res) => {
+  const { id, groupId } = parseParams(runGroupParamsSchema, req);
+  const { leftOut } = parseBody(groupLeftOutSchema, req);
+  res.json(await setRunGroupLeftOut(currentTeacher(req), id, groupId, leftOut));
+});
+
+classRunsRouter.put("/:id/joining", async (req, res) => {
+  const { id } = parseParams(classRunIdParamsSchema, req);
+  const { locked } = parseBody(runJoiningSchema, req);
+  res.json(await setRunJoiningLocked(currentTeacher(req), id, locked));
+});
+
 classRunsRouter.post("/:id/simulated-groups", async (req, res) => {
   const { id } = parseParams(classRunIdParamsSchema, req);
   res.status(201).json(await addSimulatedGroups(currentTeacher(req), id, parseBody(simulatedGroupsSchema, req)));
@@ -78,5 +108,5 @@ export const padRouter = Router();
 
 padRouter.get("/:code", async (req, res) => {
   const { code } = parseParams(padCodeParamsSchema, req);
-  res.json(await previewRunByCode(code));
+  res.json(await previewRunByCode(code, req.ip ?? "unknown"));
 });

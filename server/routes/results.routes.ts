@@ -66,26 +66,26 @@ resultsRouter.get("/runs", async (req, res) => {
 
 resultsRouter.get("/runs/:id", async (req, res) => {
   const { id } = parseParams(resultsRunParamsSchema, req);
-  const { includeSimulated } = parseQuery(resultsExportQuerySchema, req);
-  res.json(await getRunResults(currentTeacher(req), id, includeSimulated));
+  const { includeSimulated, includeLeftOut } = parseQuery(resultsExportQuerySchema, req);
+  res.json(await getRunResults(currentTeacher(req), id, includeSimulated, includeLeftOut));
 });
 
 resultsRouter.get("/runs/:id/rolls.csv", async (req, res) => {
   const { id } = parseParams(resultsRunParamsSchema, req);
-  const { includeSimulated } = parseQuery(resultsExportQuerySchema, req);
-  await sendDownload(res, await rollsCsvDownload(currentTeacher(req), id, includeSimulated));
+  const { includeSimulated, includeLeftOut } = parseQuery(resultsExportQuerySchema, req);
+  await sendDownload(res, await rollsCsvDownload(currentTeacher(req), id, includeSimulated, includeLeftOut));
 });
 
 resultsRouter.get("/runs/:id/summary.csv", async (req, res) => {
   const { id } = parseParams(resultsRunParamsSchema, req);
-  const { includeSimulated } = parseQuery(resultsExportQuerySchema, req);
-  await sendDownload(res, await summaryCsvDownload(currentTeacher(req), id, includeSimulated));
+  const { includeSimulated, includeLeftOut } = parseQuery(resultsExportQuerySchema, req);
+  await sendDownload(res, await summaryCsvDownload(currentTeacher(req), id, includeSimulated, includeLeftOut));
 });
 
 resultsRouter.get("/runs/:id/results.xlsx", async (req, res) => {
   const { id } = parseParams(resultsRunParamsSchema, req);
-  const { includeSimulated } = parseQuery(resultsExportQuerySchema, req);
-  await sendDownload(res, await workbookDownload(currentTeacher(req), id, includeSimulated));
+  const { includeSimulated, includeLeftOut } = parseQuery(resultsExportQuerySchema, req);
+  await sendDownload(res, await workbookDownload(currentTeacher(req), id, includeSimulated, includeLeftOut));
 });
 
 resultsRouter.post("/runs/:id/paper-import/preview", receiveCsv, async (req, res) => {

@@ -19,6 +19,7 @@ import { lessonPlanSchema, type LessonPlan } from "@shared/schemas/lessons";
 import { db, type Executor } from "../db/client";
 import {
   bumpBoardVersion,
+  countGroupKeptRolls,
   countUndoneRolls,
   findClassRun,
   findGroup,
@@ -27,15 +28,20 @@ import {
   insertClassRun,
   insertGroups,
   insertRolls,
+  leftOutRollCounts,
   listClassRunsForOwner,
   listGroups,
   listLessonsForRuns,
   listVotes,
   lockClassRun,
+  markGroupRemoved,
   openRunsByLesson,
+  renameGroup,
   runRollsForPooling,
+  setGroupLeftOut,
   setGroupMatchup,
   setGroupMatchups,
+  setJoiningLocked,
   updateRunPhase,
   updateRunStatus,
   type ClassRunRecord,
@@ -54,6 +60,8 @@ import { poolRowsJson } from "../realtime/pool-rows-wire";
 import { NeedsResetError, poolBoardOffThread, poolKeptBoardOffThread } from "../realtime/pooling-pool";
 import { generateJoinCode, isUniqueViolation } from "./join-code";
 import type { BoardUpdateMessage } from "@shared/events";
+import { GROUP_CAP_DEFAULT } from "@shared/schemas/class-runs";
+import { codeGuessingWait, countWrongCode } from "../realtime/room-limits";
 
 const JOIN_CODE_ATTEMPTS = 8;
 
@@ -208,7 +216,7 @@ export async function insertRunWithJoinCode(executor: Executor, values: Omit<Par
 }
 
 /** Opens a class run of the teacher's own lesson: copies its set, mode, tie rule and phases, and gives it a join code. */
-export async function openClassRun(teacher: TeacherContext, lessonId: string): Promise<ClassRun> {
+export async function openClassRun(teacher: TeacherContext, lessonId: string, groupCap = GROUP_CAP_DEFAULT): Promise<ClassRun> {
   const lesson = await findLessonForRun(db, lessonId);
   if (!lesson) throw notFound("The lesson");
   if (lesson.ownerId !== teacher.user.id) {
@@ -220,7 +228,7 @@ export async function openClassRun(teacher: TeacherContext, lessonId: string): P
   if (lesson.archivedAt) throw new HttpError(409, "lesson_archived", "The lesson is archived: restore it in Lessons before running it.");
   const { plan, problem } = planProblem(lesson);
   if (!plan || problem) throw new HttpError(422, "lesson_not_ready", problem ?? "The lesson cannot be run yet.");
-  const row = await insertRunWithJoinCode(db, runValuesFromLesson(lesson, plan, teacher.user.id, teacher.department?.id ?? null));
+  const row = await insertRunWithJoinCode(db, { ...runValuesFromLesson(lesson, plan, teacher.user.id, teacher.department?.id ?? null), groupCap });
   return classRunView({ ...row, ownerName: teacher.user.name }, teacher.user.id);
 }
 
@@ -313,12 +321,85 @@ export async function assignGroupMatchup(teacher: TeacherContext, runId: string,
     const run = await runForTeacher(teacher, runId, "manage", tx);
     if (run.status === "closed") throw new HttpError(409, "run_closed", "This class run is closed.");
     const existing = await findGroup(tx, groupId);
-    if (!existing || existing.runId !== run.id) throw notFound("The group");
+    if (!existing || existing.runId !== run.id || existing.removedAt) throw notFound("The group");
     checkMatchupFits(run, matchup);
     return setGroupMatchup(tx, groupId, matchup);
   });
   notifyRunChanged({ runId, kind: "group", groupId });
   return boardGroupView(group, 0, null);
+}
+
+/** The run (managed by its owner, not closed) and one of its groups that is not removed, read in `tx`. */
+async function groupToModerate(teacher: TeacherContext, runId: string, groupId: string, tx: Executor) {
+  const run = await runForTeacher(teacher, runId, "manage", tx);
+  const locked = (await lockClassRun(tx, run.id))!;
+  if (locked.status === "closed") throw new HttpError(409, "run_closed", "This class run is closed: its groups can no longer change.");
+  const group = await findGroup(tx, groupId);
+  if (!group || group.runId !== run.id || group.removedAt) throw notFound("The group");
+  return { run, group };
+}
+
+/** The teacher renames a group (a nickname that breaks the rules or looks like another group's is refused); the pad learns it. */
+export async function renameRunGroup(teacher: TeacherContext, runId: string, groupId: string, nickname: string): Promise<BoardGroup> {
+  const group = await db.transaction(async (tx) => {
+    const { run } = await groupToModerate(teacher, runId, groupId, tx);
+    try {
+      // A savepoint, so a refused name leaves the transaction usable and the error is ours.
+      const renamed = await tx.transaction((inner) => renameGroup(inner, groupId, nickname));
+      await bumpBoardVersion(tx, run.id);
+      return renamed;
+    } catch (error) {
+      if (isUniqueViolation(error, "run_group_run_nickname_idx") || isUniqueViolation(error, "run_group_run_nickname_key_idx")) {
+        throw new HttpError(409, "nickname_taken", `Another group in this run is already called “${nickname}” or something that looks just like it.`);
+      }
+      throw error;
+    }
+  });
+  notifyRunChanged({ runId, kind: "group", groupId });
+  return boardGroupView(group, 0, null);
+}
+
+/**
+ * The teacher removes a group: it leaves the board and every figure, its token is dead, and its phone is told. Its
+ * rows stay (marked), so nothing is lost. The board version rises by the group's kept rolls and one, so it still grows.
+ */
+export async function removeRunGroup(teacher: TeacherContext, runId: string, groupId: string): Promise<{ id: string; removedAt: string }> {
+  const group = await db.transaction(async (tx) => {
+    const { run, group } = await groupToModerate(teacher, runId, groupId, tx);
+    const counted = group.leftOutAt ? 0 : await countGroupKeptRolls(tx, group.id);
+    const removed = await markGroupRemoved(tx, group.id);
+    await bumpBoardVersion(tx, run.id, counted + 1);
+    return removed;
+  });
+  notifyRunChanged({ runId, kind: "removed", groupId });
+  return { id: group.id, removedAt: group.removedAt!.toISOString() };
+}
+
+/** The teacher leaves a group's rolls out of every figure and export (the group stays, marked), or counts them again. */
+export async function setRunGroupLeftOut(teacher: TeacherContext, runId: string, groupId: string, leftOut: boolean): Promise<BoardGroup> {
+  const group = await db.transaction(async (tx) => {
+    const { run, group } = await groupToModerate(teacher, runId, groupId, tx);
+    if ((group.leftOutAt !== null) === leftOut) return group;
+    const kept = await countGroupKeptRolls(tx, group.id);
+    const changed = await setGroupLeftOut(tx, group.id, leftOut);
+    // Leaving out takes the group's rolls off the board's count, so the version makes up for them to keep growing.
+    await bumpBoardVersion(tx, run.id, leftOut ? kept + 1 : 1);
+    return changed;
+  });
+  notifyRunChanged({ runId, kind: "group", groupId });
+  return boardGroupView(group, 0, null);
+}
+
+/** The teacher locks joining (no new group joins; groups in the run carry on) or unlocks it. */
+export async function setRunJoiningLocked(teacher: TeacherContext, runId: string, locked: boolean): Promise<ClassRun> {
+  const updated = await db.transaction(async (tx) => {
+    const run = await runForTeacher(teacher, runId, "manage", tx);
+    const current = (await lockClassRun(tx, run.id))!;
+    if (current.status === "closed") throw new HttpError(409, "run_closed", "This class run is closed: nobody can join it.");
+    return { ...(await setJoiningLocked(tx, run.id, locked)), ownerName: run.ownerName };
+  });
+  notifyRunChanged({ runId, kind: "run" });
+  return classRunView(updated, teacher.user.id);
 }
 
 /**
@@ -331,7 +412,7 @@ export async function addSimulatedGroups(teacher: TeacherContext, runId: string,
     const run = await runForTeacher(teacher, runId, "manage", tx);
     const locked = (await lockClassRun(tx, run.id))!;
     if (locked.status === "closed") throw new HttpError(409, "run_closed", "This class run is closed: it takes no more rolls.");
-    const existing = await listGroups(tx, run.id);
+    const existing = await listGroups(tx, run.id, { withRemoved: true });
     const simulatedSoFar = existing.filter((group) => group.source === "simulated").length;
     const groups = await insertGroups(
       tx,
@@ -406,13 +487,14 @@ async function readBoardState(runId: string, viewerId: string | null) {
       const groups = await listGroups(tx, runId);
       const votes = await listVotes(tx, runId);
       const undoneRolls = await countUndoneRolls(tx, runId);
+      const leftOutRolls = await leftOutRollCounts(tx, runId);
       const rows = await runRollsForPooling(tx, run.id);
-      return { run, groups, votes, undoneRolls, rows };
+      return { run, groups, votes, undoneRolls, leftOutRolls, rows };
     },
     { isolationLevel: "repeatable read", accessMode: "read only" },
   );
   if (!read) return null;
-  const { run, groups, votes, rows, undoneRolls } = read;
+  const { run, groups, votes, rows, undoneRolls, leftOutRolls } = read;
   const settings: BoardPoolSettings = {
     dice: run.dice.map((die) => ({ name: die.name, faces: die.faces })),
     tieRule: run.tieRule as TieRule,
@@ -425,7 +507,7 @@ async function readBoardState(runId: string, viewerId: string | null) {
   const parts: BoardParts = {
     runId,
     run: classRunView(run, viewerId),
-    groups: groups.map((group) => boardGroupView(group, 0, voteByGroup.get(group.id) ?? null)),
+    groups: groups.map((group) => boardGroupView(group, leftOutRolls.get(group.id) ?? 0, voteByGroup.get(group.id) ?? null)),
     votes: voteCounts,
     undoneRolls,
   };
@@ -438,7 +520,8 @@ function withPools<Tallies>(boardVersion: number, parts: BoardParts, pools: Boar
     ...parts,
     // Every change the board shows bumps board_version, except a new roll, which adds a row; the sum only grows.
     version: boardVersion + pools.kept + parts.undoneRolls,
-    groups: parts.groups.map((group) => ({ ...group, rolls: pools.rollsByGroup[group.id] ?? 0 })),
+    // A left-out group's rolls are in no pool; it keeps the count read with the board.
+    groups: parts.groups.map((group) => (group.leftOut ? group : { ...group, rolls: pools.rollsByGroup[group.id] ?? 0 })),
     tallies: pools.tallies,
     generatedAt: new Date().toISOString(),
   };
@@ -498,9 +581,19 @@ export async function getBoardSnapshot(teacher: TeacherContext, runId: string): 
   return snapshot;
 }
 
-/** What the Roll pad's code box shows before a group joins; closed runs and unknown codes are one 404. */
-export async function previewRunByCode(code: string): Promise<PadRunPreview> {
+/**
+ * What the Roll pad's code box shows before a group joins; closed runs and unknown codes are one 404. Wrong codes
+ * count against the address's guessing limit, as they do over the socket (429 `rate_limited` once it is spent).
+ */
+export async function previewRunByCode(code: string, address: string): Promise<PadRunPreview> {
+  const wait = await codeGuessingWait(address, null);
+  if (wait !== null) {
+    throw new HttpError(429, "rate_limited", `Too many wrong join codes from here. Wait ${Math.max(1, Math.ceil(wait / 1000))} seconds and try again.`);
+  }
   const run = await findRunByJoinCode(db, code);
-  if (!run) throw new HttpError(404, "unknown_code", "No open class run has that code. Check the code on the board and try again.");
+  if (!run) {
+    await countWrongCode(address, null);
+    throw new HttpError(404, "unknown_code", "No open class run has that code. Check the code on the board and try again.");
+  }
   return { runId: run.id, title: run.title, classGroup: run.classGroup, status: run.status, phase: run.phase as RunPhase, joinCode: run.joinCode };
 }

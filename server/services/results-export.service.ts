@@ -173,14 +173,14 @@ async function runContext(teacher: TeacherContext, runId: string) {
 }
 
 /** The rolls CSV: one row per roll that counts, streamed from a cursor in batches (RFC 4180, UTF-8, header row). */
-export async function rollsCsvDownload(teacher: TeacherContext, runId: string, includeSimulated: boolean): Promise<ResultsDownload> {
+export async function rollsCsvDownload(teacher: TeacherContext, runId: string, includeSimulated: boolean, includeLeftOut = false): Promise<ResultsDownload> {
   const { run, names, nicknames } = await runContext(teacher, runId);
   return {
     fileName: exportFileName(run, "rolls", "csv"),
     contentType: "text/csv; charset=utf-8",
     write: async (out) => {
       await writeChunk(out, BYTE_ORDER_MARK + csvChunk([], rollsExportColumns, true));
-      for await (const batch of streamRunRolls(run.id, { includeSimulated })) {
+      for await (const batch of streamRunRolls(run.id, { includeSimulated, includeLeftOut })) {
         await writeChunk(out, csvChunk(batch.map((stored) => rollsRow(stored, names, nicknames)), rollsExportColumns, false));
       }
     },
@@ -188,20 +188,20 @@ export async function rollsCsvDownload(teacher: TeacherContext, runId: string, i
 }
 
 /** Pools a run's rolls from the cursor for the summary, keeping no roll and no convergence series: memory stays flat. */
-async function pooledForSummary(run: ResultsRunListRecord, nicknames: Map<string, string>, includeSimulated: boolean): Promise<PooledResults> {
+async function pooledForSummary(run: ResultsRunListRecord, nicknames: Map<string, string>, includeSimulated: boolean, includeLeftOut: boolean): Promise<PooledResults> {
   const pool = new RollPool(run.dice, run.tieRule as TieRule, { series: false });
-  await poolRunRolls(run.id, [pool], { includeSimulated, nicknames });
+  await poolRunRolls(run.id, [pool], { includeSimulated, includeLeftOut, nicknames });
   return pool.result();
 }
 
 /** The summary CSV: per matchup and per group, counts, relative frequency, exact fraction and decimal, Wilson 95% interval. */
-export async function summaryCsvDownload(teacher: TeacherContext, runId: string, includeSimulated: boolean): Promise<ResultsDownload> {
+export async function summaryCsvDownload(teacher: TeacherContext, runId: string, includeSimulated: boolean, includeLeftOut = false): Promise<ResultsDownload> {
   const { run, nicknames } = await runContext(teacher, runId);
   return {
     fileName: exportFileName(run, "summary", "csv"),
     contentType: "text/csv; charset=utf-8",
     write: async (out) => {
-      const pooled = await pooledForSummary(run, nicknames, includeSimulated);
+      const pooled = await pooledForSummary(run, nicknames, includeSimulated, includeLeftOut);
       const rows = summaryRows(pooled);
       await writeChunk(out, BYTE_ORDER_MARK + csvChunk(rows, summaryExportColumns, true));
     },
@@ -212,7 +212,7 @@ export async function summaryCsvDownload(teacher: TeacherContext, runId: string,
  * The workbook: a Rolls sheet streamed row by row through exceljs's streaming WorkbookWriter, each roll counted on the
  * way into a RollPool (without a convergence series, so memory stays flat), then the Summary sheet from that pool.
  */
-export async function workbookDownload(teacher: TeacherContext, runId: string, includeSimulated: boolean): Promise<ResultsDownload> {
+export async function workbookDownload(teacher: TeacherContext, runId: string, includeSimulated: boolean, includeLeftOut = false): Promise<ResultsDownload> {
   const { run, names, nicknames } = await runContext(teacher, runId);
   return {
     fileName: exportFileName(run, "results", "xlsx"),
@@ -226,7 +226,7 @@ export async function workbookDownload(teacher: TeacherContext, runId: string, i
       rollsSheet.columns = rollsExportColumns.map((key) => ({ header: key, key, width: key === "roll_id" ? 38 : key === "roll_time" ? 26 : 14 }));
       rollsSheet.getRow(1).commit();
       const pool = new RollPool(run.dice, run.tieRule as TieRule, { series: false });
-      for await (const batch of streamRunRolls(run.id, { includeSimulated })) {
+      for await (const batch of streamRunRolls(run.id, { includeSimulated, includeLeftOut })) {
         for (const stored of batch) {
           rollsSheet.addRow(rollsRow(stored, names, nicknames)).commit();
           pool.addOne(poolableRoll(stored, nicknames));

@@ -139,10 +139,16 @@ export function poolableRoll(stored: StreamedRoll, nicknames: Map<string, string
 export async function poolRunRolls(
   runId: string,
   pools: RollPool[],
-  options: { includeSimulated: boolean; nicknames: Map<string, string>; dicePerPlayer?: number; mapMatchup?: (matchup: number[]) => number[] },
+  options: {
+    includeSimulated: boolean;
+    includeLeftOut?: boolean;
+    nicknames: Map<string, string>;
+    dicePerPlayer?: number;
+    mapMatchup?: (matchup: number[]) => number[];
+  },
 ): Promise<Map<string, number>> {
   const perGroup = new Map<string, number>();
-  for await (const batch of streamRunRolls(runId, { includeSimulated: options.includeSimulated })) {
+  for await (const batch of streamRunRolls(runId, { includeSimulated: options.includeSimulated, includeLeftOut: options.includeLeftOut })) {
     for (const stored of batch) {
       if (options.dicePerPlayer !== undefined && stored.dicePerPlayer !== options.dicePerPlayer) continue;
       const entry = poolableRoll(stored, options.nicknames, options.mapMatchup);
@@ -154,12 +160,12 @@ export async function poolRunRolls(
 }
 
 /** A run's results page: pooled figures, convergence, per-group table, Guess votes and findings, from stored rolls. */
-export async function getRunResults(teacher: TeacherContext, runId: string, includeSimulated: boolean): Promise<RunResults> {
+export async function getRunResults(teacher: TeacherContext, runId: string, includeSimulated: boolean, includeLeftOut = false): Promise<RunResults> {
   const run = await visibleRun(teacher, runId);
   const groups = await listRunGroups(db, runId);
   const nicknames = new Map(groups.map((group) => [group.id, group.nickname]));
   const pool = new RollPool(run.dice, run.tieRule as TieRule);
-  const rollsPerGroup = await poolRunRolls(runId, [pool], { includeSimulated, nicknames });
+  const rollsPerGroup = await poolRunRolls(runId, [pool], { includeSimulated, includeLeftOut, nicknames });
   const pooled = pool.result();
   const votes = await countGuessVotes(db, runId);
   const dieNames = run.dice.map((die) => die.name);
@@ -168,7 +174,13 @@ export async function getRunResults(teacher: TeacherContext, runId: string, incl
     includeSimulated,
     pooled,
     mainMatchupKey: mainMatchup(pooled)?.key ?? null,
-    groups: groups.map((group) => ({ id: group.id, nickname: group.nickname, source: group.source, rolls: rollsPerGroup.get(group.id) ?? 0 })),
+    groups: groups.map((group) => ({
+      id: group.id,
+      nickname: group.nickname,
+      source: group.source,
+      rolls: rollsPerGroup.get(group.id) ?? 0,
+      leftOut: group.leftOutAt !== null,
+    })),
     guessVotes: dieNames.map((dieName, dieIndex) => ({ dieIndex, dieName, votes: votes.find((vote) => vote.dieIndex === dieIndex)?.votes ?? 0 })),
     findings: classFindings(pooled, dieNames),
   };

@@ -8,6 +8,7 @@ import {
   countGroups,
   findClassRun,
   findGroup,
+  findGroupByJoinAttempt,
   findRunByJoinCode,
   findVote,
   groupRollsInTally,
@@ -25,8 +26,6 @@ import { talliesOf } from "./class-runs.service";
 import { signGuestToken, verifyGuestToken } from "./guest-token";
 import { isUniqueViolation } from "./join-code";
 
-/** Most groups one run takes (a class of 30 in pairs, with room for a few phones more). */
-export const GROUPS_PER_RUN_MAX = 60;
 const RECENT_ROLLS = 20;
 // Rolls validate against cached run and group rows; every change made through this process clears them at once, and the
 // batch re-reads each run's status under a share lock, so the TTL only bounds how stale a matchup change from elsewhere can be.
@@ -52,7 +51,7 @@ const groupCache = new Map<string, { group: RunGroupRow; until: number }>();
 
 onRunChanged((change) => {
   runCache.delete(change.runId);
-  if (change.kind === "group") groupCache.delete(change.groupId);
+  if (change.kind === "group" || change.kind === "removed") groupCache.delete(change.groupId);
   if (change.kind === "phase" || change.kind === "groups") {
     for (const [id, entry] of groupCache) if (entry.group.runId === change.runId) groupCache.delete(id);
   }
@@ -85,10 +84,15 @@ function badToken(): PadError {
   return new PadError("bad_token", "This phone's group pass is not valid. Join the run again with the code on the board.");
 }
 
+function groupRemoved(): PadError {
+  return new PadError("group_removed", "Your teacher has taken this group out of the run. Ask your teacher before joining again.");
+}
+
 function ownerOf(run: ClassRunRow | null, group: RunGroupRow | null): TokenOwner {
   if (!run || !group || group.runId !== run.id) {
     throw new PadError("bad_token", "This phone's group pass does not belong to an open class run. Join again with the code on the board.");
   }
+  if (group.removedAt) throw groupRemoved();
   return { run, group };
 }
 
@@ -138,28 +142,49 @@ function refuseClosed(run: ClassRunRow) {
   if (run.status === "closed") throw new PadError("run_closed", "This class run is closed: it takes no more rolls. Thank you for playing!");
 }
 
-/** A group joins a run by its code with a new nickname; it gets a signed token and, where the teacher assigns, a matchup. */
-export async function joinRun(code: string, nickname: string): Promise<{ token: string; state: PadState }> {
-  const group = await db.transaction(async (tx) => {
-    const found = await findRunByJoinCode(tx, code);
-    if (!found) throw new PadError("unknown_code", "No open class run has that code. Check the code on the board and try again.");
-    // Locking the run keeps the group count (and so the next assigned matchup) right when groups join at once.
-    const run = (await lockClassRun(tx, found.id))!;
+/** The run that is not closed with this join code, or `unknown_code`. */
+export async function runForJoinCode(code: string): Promise<ClassRunRow> {
+  const found = await findRunByJoinCode(db, code);
+  if (!found) throw new PadError("unknown_code", "No open class run has that code. Check the code on the board and try again.");
+  return found;
+}
+
+/**
+ * A group joins a run by its code with a new nickname; it gets a signed token and, where the teacher assigns, a
+ * matchup. A join that repeats an earlier `attemptId` (the phone's retry after a lost acknowledgement) answers the
+ * group that attempt made, whatever the lock, the cap or the nickname, so a retry never leaves a ghost group.
+ */
+export async function joinRun(runId: string, nickname: string, attemptId?: string): Promise<{ token: string; state: PadState }> {
+  const { group, created } = await db.transaction(async (tx) => {
+    // Locking the run keeps the group count (and so the cap and the next assigned matchup) right when groups join at once.
+    const run = await lockClassRun(tx, runId);
+    if (!run || run.status === "closed") throw new PadError("unknown_code", "No open class run has that code. Check the code on the board and try again.");
+    if (attemptId) {
+      const earlier = await findGroupByJoinAttempt(tx, run.id, attemptId);
+      if (earlier?.removedAt) throw groupRemoved();
+      if (earlier) return { group: earlier, created: false };
+    }
+    if (run.joiningLocked) throw new PadError("joining_locked", "Your teacher has closed joining for this run. Ask your teacher, or join another group's phone.");
     const groups = await countGroups(tx, run.id);
-    if (groups >= GROUPS_PER_RUN_MAX) throw new PadError("forbidden", `This run already has ${GROUPS_PER_RUN_MAX} groups, the most it takes. Join another group's phone.`);
-    const matchup = run.matchupChoice === "assigned" ? assignedMatchup(run.dice.length, run.players, groups) : null;
+    if (groups.phones >= run.groupCap) {
+      throw new PadError("run_full", `This run already has ${run.groupCap} groups, the most your teacher allowed. Join another group's phone.`);
+    }
+    const matchup = run.matchupChoice === "assigned" ? assignedMatchup(run.dice.length, run.players, groups.present) : null;
     try {
-      const [created] = await insertGroups(tx, [{ runId: run.id, nickname, matchup, source: "phone" }]);
+      const [inserted] = await insertGroups(tx, [{ runId: run.id, nickname, matchup, source: "phone", joinAttemptId: attemptId ?? null }]);
       await bumpBoardVersion(tx, run.id);
-      return created;
+      return { group: inserted, created: true };
     } catch (error) {
       if (isUniqueViolation(error, "run_group_run_nickname_idx")) {
         throw new PadError("nickname_taken", `Another group in this run is already called “${nickname}”. Choose another nickname.`);
       }
+      if (isUniqueViolation(error, "run_group_run_nickname_key_idx")) {
+        throw new PadError("nickname_taken", `“${nickname}” looks just like another group's nickname on the board. Choose one that looks different.`);
+      }
       throw error;
     }
   });
-  notifyRunChanged({ runId: group.runId, kind: "groups" });
+  if (created) notifyRunChanged({ runId: group.runId, kind: "groups" });
   const run = (await findClassRun(db, group.runId))!;
   return { token: signGuestToken({ runId: run.id, groupId: group.id }), state: await padState(run, group) };
 }
@@ -170,6 +195,7 @@ export async function resumeGroup(token: string): Promise<PadState> {
   if (!claims) throw new PadError("bad_token", "This phone's group pass is not valid. Join the run again with the code on the board.");
   const [run, group] = await Promise.all([findClassRun(db, claims.runId), findGroup(db, claims.groupId)]);
   if (!run || !group || group.runId !== run.id) throw new PadError("bad_token", "This phone's group pass does not belong to a class run any more. Join again.");
+  if (group.removedAt) throw groupRemoved();
   return padState(run, group);
 }
 
@@ -221,11 +247,18 @@ export function checkedRollFromCache(token: string, roll: RollPayload): NewRoll 
   return owner && rowForRoll(owner, roll);
 }
 
+/** The phases in which pupils record rolls; each takes rolls only in the run's current tally. */
+export const ROLL_PHASES: readonly RunPhase[] = ["Roll", "Twist"];
+
 function rowForRoll({ run, group }: TokenOwner, roll: RollPayload): NewRoll {
   refuseClosed(run);
   if (run.status === "paused") {
     throw new PadError("run_paused", "Your teacher has paused the run. This roll is kept on the phone and sent when the run goes on.", 3_000);
   }
+  if (!ROLL_PHASES.includes(run.phase as RunPhase) || roll.tally !== run.currentTally) {
+    throw new PadError("not_roll_phase", `The class is in the ${run.phase} phase, which takes no rolls for this game. The roll waits on the phone.`, 3_000);
+  }
+  if (run.rollCeilingReachedAt) throw rollCeilingReached();
   const tally = talliesOf(run).find((entry) => entry.tally === roll.tally);
   if (!tally) throw new PadError("wrong_mode", "This roll belongs to a part of the run that does not exist. Reload the page.");
   if (roll.matchup.length !== tally.players || roll.faces.length !== tally.players) {
@@ -264,7 +297,13 @@ function rowForRoll({ run, group }: TokenOwner, roll: RollPayload): NewRoll {
     winnerSeat: winnerSeatOf(totals),
     source: "phone",
     recordedAt,
+    ...(group.leftOutAt ? { leftOut: true } : {}),
   };
+}
+
+/** The refusal once a run has taken its roll ceiling of phone rolls. */
+export function rollCeilingReached(): PadError {
+  return new PadError("run_roll_ceiling", "This run has taken all the rolls it can. Your teacher can see this on the board; thank you for playing!");
 }
 
 /** Undoes one of the group's rolls: the row stays with undone_at, so a late resend of the same id stays undone. */
@@ -280,31 +319,4 @@ export async function undoRoll(token: string, rollId: string): Promise<{ runId: 
   if (!undone) throw new PadError("not_found", "That roll is not saved for your group, so there is nothing to undo.");
   notifyRunChanged({ runId: run.id, kind: "rolls" });
   return { runId: run.id, id: undone.id };
-}
-
-/** A token bucket per group: a stuck button cannot flood the run, while a phone emptying its outbox gets a burst. */
-export class GroupRateLimiter {
-  private readonly buckets = new Map<string, { tokens: number; at: number }>();
-  constructor(
-    private readonly perSecond: number,
-    private readonly burst: number,
-  ) {}
-
-  /** Takes one token for the group, or answers how long to wait for the next. */
-  take(groupId: string, now = Date.now()): { allowed: true } | { allowed: false; retryAfterMs: number } {
-    const bucket = this.buckets.get(groupId) ?? { tokens: this.burst, at: now };
-    bucket.tokens = Math.min(this.burst, bucket.tokens + ((now - bucket.at) / 1000) * this.perSecond);
-    bucket.at = now;
-    this.buckets.set(groupId, bucket);
-    if (this.buckets.size > 10_000) this.forgetFull(now);
-    if (bucket.tokens >= 1) {
-      bucket.tokens -= 1;
-      return { allowed: true };
-    }
-    return { allowed: false, retryAfterMs: Math.ceil(((1 - bucket.tokens) / this.perSecond) * 1000) };
-  }
-
-  private forgetFull(now: number) {
-    for (const [groupId, bucket] of this.buckets) if (bucket.tokens + ((now - bucket.at) / 1000) * this.perSecond >= this.burst) this.buckets.delete(groupId);
-  }
 }

@@ -1,7 +1,8 @@
 import { z } from "zod";
 import type { PooledResults } from "../class-results/pooled-results";
 import type { SetDie } from "./dice-sets";
-import { joinCodeSchema, NICKNAME_MAX, NICKNAME_MIN } from "./joining";
+import { normaliseNickname, nicknameProblem } from "../class-runs/nickname-rules";
+import { joinCodeSchema } from "./joining";
 import { LESSON_PHASES, type LessonPhaseName } from "./lessons";
 
 /** A class run's status: open takes rolls, paused keeps phones waiting, closed takes nothing more. */
@@ -24,46 +25,17 @@ export const runPhaseHints: Record<RunPhase, string> = {
 
 export { JOIN_CODE_ALPHABET, JOIN_CODE_LENGTH, joinCodeSchema, NICKNAME_MAX, NICKNAME_MIN } from "./joining";
 
+export { nicknameProblem } from "../class-runs/nickname-rules";
 
-// Short lists of rude words pupils might try, checked after undoing common letter swaps (sh1t, @rse). Strong words are
-// refused anywhere, even across spaces; milder ones only as a word of their own, so "Essex" or "Dickens" stay allowed.
-const strongWords = ["fuck", "shit", "cunt", "wank", "twat", "slut", "whore", "nazi", "porn"];
-const mildWords = ["arse", "bastard", "bitch", "bollock", "bollocks", "bugger", "cock", "crap", "dick", "knob", "penis", "piss", "prick", "sex", "sexy", "slag", "tit", "tits", "poo", "bum"];
-const mildEndings = ["", "s", "es", "head", "face", "hole", "wipe", "ing", "er", "ed"];
-const letterSwaps: Record<string, string> = { "0": "o", "1": "i", "3": "e", "4": "a", "5": "s", "7": "t", "@": "a", $: "s", "!": "i" };
-const unswapped = (text: string) => [...text.toLowerCase()].map((character) => letterSwaps[character] ?? character).join("");
-
-/** Why a nickname is refused, or null when it is fine: length, characters, rude words, things that look like personal data. */
-export function nicknameProblem(nickname: string): string | null {
-  const trimmed = nickname.trim();
-  if (trimmed.length < NICKNAME_MIN) return `A group nickname needs at least ${NICKNAME_MIN} characters.`;
-  if (trimmed.length > NICKNAME_MAX) return `Keep the group nickname to ${NICKNAME_MAX} characters or fewer.`;
-  if (/\S+@\S+/.test(trimmed)) return "That looks like an e-mail address. Choose a made-up group nickname instead.";
-  if ((trimmed.match(/\d/g) ?? []).length >= 5) return "That looks like a phone number. Choose a made-up group nickname without long numbers.";
-  if (/(https?:|www\.|\.(com|net|org|uk|io)\b)/i.test(trimmed)) return "Web addresses are not nicknames. Choose a made-up group nickname.";
-  if (/[#/\\<>{}[\]=_^~`|"]/.test(trimmed)) return "Use letters, numbers, spaces and simple punctuation ( ' - ! ? . & ) only.";
-  // A word of digits alone is a number ("Group 717"), not letters in disguise.
-  const words = trimmed
-    .split(/[\s'.&?-]+/)
-    .filter((word) => /\p{L}/u.test(word))
-    .map((word) => unswapped(word).replace(/[^a-z]/g, ""))
-    .filter(Boolean);
-  const joined = unswapped(trimmed).replace(/[^a-z]/g, "");
-  const rude =
-    strongWords.some((word) => joined.includes(word)) ||
-    words.some((word) => mildWords.some((mild) => word.startsWith(mild) && mildEndings.includes(word.slice(mild.length))));
-  if (rude) return "Please choose a friendlier nickname.";
-  return null;
-}
-
-/** A group nickname: 2 to 24 characters, no rude words, nothing that looks like a name's e-mail or phone number. */
+/** A group nickname, NFKC-normalised: the rules of `nicknameProblem` (shared/class-runs/nickname-rules.ts). */
 export const nicknameSchema = z
   .string({ error: "Choose a group nickname." })
-  .transform((value) => value.trim().replace(/\s+/g, " "))
   .check((context) => {
+    // Checked before normalising, since NFKC would hide some characters the rules refuse.
     const problem = nicknameProblem(context.value);
     if (problem) context.issues.push({ code: "custom", message: problem, input: context.value });
-  });
+  })
+  .transform(normaliseNickname);
 
 export const classRunIdParamsSchema = z.object({ id: z.uuid({ error: "That is not a class run id." }) });
 export const runGroupParamsSchema = classRunIdParamsSchema.extend({ groupId: z.uuid({ error: "That is not a group id." }) });

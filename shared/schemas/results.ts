@@ -63,6 +63,11 @@ export const resultsExportQuerySchema = z.object({
     .enum(["true", "false"], { error: "includeSimulated is true or false." })
     .default("true")
     .transform((value) => value === "true"),
+  // Rolls of groups the teacher left out are in no figure or export unless asked for here.
+  includeLeftOut: z
+    .enum(["true", "false"], { error: "includeLeftOut is true or false." })
+    .default("false")
+    .transform((value) => value === "true"),
 });
 export type ResultsExportQuery = z.infer<typeof resultsExportQuerySchema>;
 
@@ -155,7 +160,8 @@ export type ResultsDie = Pick<SetDie, "name" | "faces" | "colour" | "pattern">;
 export type GuessVoteCount = { dieIndex: number; dieName: string; votes: number };
 
 /** A group of the run with how many of its rolls count. */
-export type ResultsGroup = { id: string; nickname: string; source: "phone" | "simulated" | "paper"; rolls: number };
+/** A group of a run's results (removed groups are not listed; a left-out group's rolls count only when asked for). */
+export type ResultsGroup = { id: string; nickname: string; source: "phone" | "simulated" | "paper"; rolls: number; leftOut: boolean };
 
 /** What GET /api/results/runs/:id answers: the run and its figures, all computed on the server from the stored rolls. */
 export type RunResults = {

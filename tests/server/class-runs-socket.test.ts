@@ -2,7 +2,7 @@ import { and, eq, isNull, sql } from "drizzle-orm";
 import type { Socket } from "socket.io-client";
 import { v4 as uuidv4 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { decodeBoardUpdate, EVENTS, type BoardSnapshotAck, type BoardUpdateMessage, type GroupJoinAck, type GroupResumeAck, type RollUndoAck, type VoteCastAck } from "@shared/events";
+import { decodeBoardUpdate, EVENTS, RETRYABLE_ERROR_CODES, type BoardSnapshotAck, type BoardUpdateMessage, type GroupJoinAck, type GroupResumeAck, type RollUndoAck, type VoteCastAck } from "@shared/events";
 import type { BoardSnapshot, ClassRun } from "@shared/schemas/class-runs";
 import { mulberry32 } from "@shared/probability/index";
 import { db } from "../../server/db/client";
@@ -34,6 +34,11 @@ async function openRun(options: Parameters<typeof createLessonFor>[1] = {}): Pro
   const response = await teacher.post("/api/class-runs", { lessonId });
   expect(response.status).toBe(201);
   return response.body;
+}
+
+/** A run whose lesson starts in the Roll phase (the phase that takes rolls), with a Twist to come. */
+function openRollingRun(): Promise<ClassRun> {
+  return openRun({ phases: ["Roll", "Pool", "Twist", "Reflect"] });
 }
 
 async function pupil(run: ClassRun, nickname: string): Promise<TestPupil> {
@@ -117,7 +122,7 @@ describe("Guess votes", () => {
 
 describe("recording rolls", () => {
   it("acknowledges a roll only once it is committed, with the totals and winner worked out by the server", async () => {
-    const run = await openRun();
+    const run = await openRollingRun();
     const group = await pupil(run, "Tide Turners");
     const roll = rollOf(group, [[5], [3]]);
     const ack = await record(group, roll);
@@ -127,7 +132,7 @@ describe("recording rolls", () => {
   });
 
   it("stores a retried roll id once and acknowledges every copy, even two copies in the same batch", async () => {
-    const run = await openRun();
+    const run = await openRollingRun();
     const group = await pupil(run, "Lighthouse Lot");
     const roll = rollOf(group, [[1], [7]]);
     const [a, b] = await Promise.all([record(group, roll), record(group, roll)]);
@@ -139,7 +144,7 @@ describe("recording rolls", () => {
   });
 
   it("refuses a face the die does not have, naming the die and its faces", async () => {
-    const run = await openRun();
+    const run = await openRollingRun();
     const group = await pupil(run, "Sea Shanties");
     const ack = await record(group, rollOf(group, [[3], [3]]));
     expect(ack).toEqual({ ok: false, error: { code: "bad_faces", message: "3 is not a face of Auk: its faces are 1, 1, 5, 5, 6, 6." } });
@@ -153,8 +158,8 @@ describe("recording rolls", () => {
   });
 
   it("refuses a token for another run, a forged token and a token naming a group of another run", async () => {
-    const runA = await openRun();
-    const runB = await openRun();
+    const runA = await openRollingRun();
+    const runB = await openRollingRun();
     const inA = await pupil(runA, "Group Alpha");
     const inB = await pupil(runB, "Group Beta");
     const mixed = signGuestToken({ runId: runB.id, groupId: inA.state.group.id });
@@ -174,7 +179,7 @@ describe("recording rolls", () => {
   });
 
   it("undoes a roll by marking it, and a late resend of the same id does not bring it back", async () => {
-    const run = await openRun();
+    const run = await openRollingRun();
     const group = await pupil(run, "Undo Crew");
     const roll = rollOf(group, [[6], [2]]);
     await record(group, roll);
@@ -188,7 +193,7 @@ describe("recording rolls", () => {
   });
 
   it("refuses rolls while paused (to be sent again) and after closing (for good)", async () => {
-    const run = await openRun();
+    const run = await openRollingRun();
     const group = await pupil(run, "Pause Pals");
     expect((await teacher.post(`/api/class-runs/${run.id}/status`, { status: "paused" })).status).toBe(200);
     const paused = await record(group, rollOf(group, [[1], [2]]));
@@ -203,7 +208,7 @@ describe("recording rolls", () => {
   });
 
   it("slows a stuck button: past the burst a group is told to wait, and loses nothing it was told was saved", async () => {
-    const run = await openRun();
+    const run = await openRollingRun();
     const group = await pupil(run, "Stuck Button");
     const acks = await Promise.all(Array.from({ length: 75 }, () => record(group, rollOf(group, [[6], [2]]))));
     const limited = acks.filter((ack) => !ack.ok && ack.error.code === "rate_limited");
@@ -213,20 +218,22 @@ describe("recording rolls", () => {
     expect(await storedRolls(run.id)).toHaveLength(saved.length);
   });
 
-  it("starts a fresh tally at Twist and still files a late roll of the first tally under its own mode", async () => {
-    const run = await openRun();
+  it("starts a fresh tally at Twist and refuses a late roll of the first tally as not_roll_phase, which the phone keeps", async () => {
+    const run = await openRollingRun();
     const group = await pupil(run, "Twisty Lot");
     const early = rollOf(group, [[5], [4]]);
     const twist = await teacher.post(`/api/class-runs/${run.id}/phase`, { phase: "Twist", twist: "two-dice-each" });
     expect(twist.body).toMatchObject({ currentTally: 2, dicePerPlayer: 2, players: 2 });
-    expect((await record(group, early)).ok).toBe(true);
+    const late = await record(group, early);
+    expect(late).toMatchObject({ ok: false, error: { code: "not_roll_phase" } });
+    expect(RETRYABLE_ERROR_CODES).toContain("not_roll_phase");
     const resumed: GroupResumeAck = await group.socket.emitWithAck(EVENTS.groupResume, { token: group.token });
     if (!resumed.ok) throw new Error(resumed.error.message);
     const twisted = { ...group, state: resumed.state };
     expect((await record(twisted, rollOf(twisted, [[5], [4]]))).ok).toBe(false);
     expect((await record(twisted, rollOf(twisted, [[5, 1], [4, 7]]))).ok).toBe(true);
     const tallies = await db.select({ tally: rollTable.tally, dice: rollTable.dicePerPlayer }).from(rollTable).where(eq(rollTable.runId, run.id));
-    expect(tallies.sort((x, y) => x.tally - y.tally)).toEqual([{ tally: 1, dice: 1 }, { tally: 2, dice: 2 }]);
+    expect(tallies).toEqual([{ tally: 2, dice: 2 }]);
   });
 });
 

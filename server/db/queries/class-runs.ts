@@ -1,9 +1,11 @@
-import { and, asc, count, desc, eq, inArray, isNotNull, isNull, ne, sql } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, isNotNull, isNull, ne, sql, type SQL } from "drizzle-orm";
+import type { AnyPgColumn } from "drizzle-orm/pg-core";
 import type { SetDie } from "@shared/schemas/dice-sets";
 import type { RunStatus } from "@shared/schemas/class-runs";
 import type { Executor } from "../client";
 import { classRun, diceSet, guessVote, lesson, roll, runGroup, user } from "../schema/index";
 import type { ClassRunTally } from "../schema/class-runs";
+import { nicknameKey } from "@shared/class-runs/nickname-rules";
 
 export type ClassRunRow = typeof classRun.$inferSelect;
 export type RunGroupRow = typeof runGroup.$inferSelect;
@@ -106,17 +108,27 @@ export async function findRunByJoinCode(executor: Executor, joinCode: string): P
   return row ?? null;
 }
 
+/**
+ * Ids of a run's groups whose rolls count in no figure: removed ones, and (unless `includeLeftOut`) left-out ones.
+ * Every query that reads rolls for a figure leaves these out.
+ */
+export function setAsideGroups(runId: SQL | AnyPgColumn | string, includeLeftOut = false): SQL {
+  const run = typeof runId === "string" ? sql`${runId}::uuid` : runId;
+  return sql`select ${runGroup.id} from ${runGroup} where ${runGroup.runId} = ${run} and (${runGroup.removedAt} is not null${includeLeftOut ? sql`` : sql` or ${runGroup.leftOutAt} is not null`})`;
+}
+
 /** The teacher's runs, newest first, with how many groups and kept rolls each has. */
 export async function listClassRunsForOwner(executor: Executor, ownerId: string) {
   const groupCounts = executor
     .select({ runId: runGroup.runId, groups: count().as("groups") })
     .from(runGroup)
+    .where(isNull(runGroup.removedAt))
     .groupBy(runGroup.runId)
     .as("group_counts");
   const rollCounts = executor
     .select({ runId: roll.runId, rolls: count().as("rolls") })
     .from(roll)
-    .where(isNull(roll.undoneAt))
+    .where(and(isNull(roll.undoneAt), sql`${roll.groupId} not in (${setAsideGroups(roll.runId)})`))
     .groupBy(roll.runId)
     .as("roll_counts");
   return executor
@@ -148,6 +160,7 @@ export async function updateRunStatus(executor: Executor, id: string, status: Ru
       status,
       closedAt: status === "closed" ? sql`now()` : null,
       boardVersion: sql`${classRun.boardVersion} + 1`,
+      lastChangeAt: sql`now()`,
     })
     .where(eq(classRun.id, id))
     .returning();
@@ -162,26 +175,140 @@ export async function updateRunPhase(
 ): Promise<ClassRunRow> {
   const [row] = await executor
     .update(classRun)
-    .set({ ...values, boardVersion: sql`${classRun.boardVersion} + 1` })
+    .set({ ...values, boardVersion: sql`${classRun.boardVersion} + 1`, lastChangeAt: sql`now()` })
     .where(eq(classRun.id, id))
     .returning();
   return row;
 }
 
+/** Bumps the board version (and the run's last change, which the idle sweep reads). */
 export async function bumpBoardVersion(executor: Executor, runId: string, by = 1): Promise<void> {
   await executor
     .update(classRun)
-    .set({ boardVersion: sql`${classRun.boardVersion} + ${by}` })
+    .set({ boardVersion: sql`${classRun.boardVersion} + ${by}`, lastChangeAt: sql`now()` })
     .where(eq(classRun.id, runId));
 }
 
-export async function listGroups(executor: Executor, runId: string): Promise<RunGroupRow[]> {
-  return executor.select().from(runGroup).where(eq(runGroup.runId, runId)).orderBy(asc(runGroup.createdAt), asc(runGroup.nickname));
+/** A run's groups in the order they joined; removed ones only when asked for. */
+export async function listGroups(executor: Executor, runId: string, options: { withRemoved?: boolean } = {}): Promise<RunGroupRow[]> {
+  return executor
+    .select()
+    .from(runGroup)
+    .where(and(eq(runGroup.runId, runId), options.withRemoved ? undefined : isNull(runGroup.removedAt)))
+    .orderBy(asc(runGroup.createdAt), asc(runGroup.nickname));
 }
 
-export async function countGroups(executor: Executor, runId: string): Promise<number> {
-  const [row] = await executor.select({ groups: count() }).from(runGroup).where(eq(runGroup.runId, runId));
-  return row.groups;
+/** A run's groups that are not removed: all of them, and those that joined from a phone (the group cap counts these). */
+export async function countGroups(executor: Executor, runId: string): Promise<{ present: number; phones: number }> {
+  const [row] = await executor
+    .select({ present: count(), phones: sql<number>`count(*) filter (where ${runGroup.source} = 'phone')::int` })
+    .from(runGroup)
+    .where(and(eq(runGroup.runId, runId), isNull(runGroup.removedAt)));
+  return row;
+}
+
+/** The group a phone's join attempt made in this run, if any (a retried join answers it again). */
+export async function findGroupByJoinAttempt(executor: Executor, runId: string, attemptId: string): Promise<RunGroupRow | null> {
+  const [row] = await executor
+    .select()
+    .from(runGroup)
+    .where(and(eq(runGroup.runId, runId), eq(runGroup.joinAttemptId, attemptId)))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Renames a group; a nickname or look-alike key already in the run raises PostgreSQL's 23505. */
+export async function renameGroup(executor: Executor, groupId: string, nickname: string): Promise<RunGroupRow> {
+  const [row] = await executor.update(runGroup).set({ nickname, nicknameKey: nicknameKey(nickname) }).where(eq(runGroup.id, groupId)).returning();
+  return row;
+}
+
+/** Marks a group removed (its rows stay, so nothing it recorded is lost). */
+export async function markGroupRemoved(executor: Executor, groupId: string): Promise<RunGroupRow> {
+  const [row] = await executor
+    .update(runGroup)
+    .set({ removedAt: sql`coalesce(${runGroup.removedAt}, now())` })
+    .where(eq(runGroup.id, groupId))
+    .returning();
+  return row;
+}
+
+/** Leaves a group's rolls out of every figure, or counts them again. */
+export async function setGroupLeftOut(executor: Executor, groupId: string, leftOut: boolean): Promise<RunGroupRow> {
+  const [row] = await executor
+    .update(runGroup)
+    .set({ leftOutAt: leftOut ? sql`coalesce(${runGroup.leftOutAt}, now())` : null })
+    .where(eq(runGroup.id, groupId))
+    .returning();
+  return row;
+}
+
+/** Marks a group's phone as having sent rolls too fast (the board's flood flag); true when the flag was not already recent. */
+export async function markGroupFlooded(executor: Executor, groupId: string): Promise<boolean> {
+  const rows = await executor
+    .update(runGroup)
+    .set({ floodedAt: sql`now()` })
+    .where(and(eq(runGroup.id, groupId), sql`(${runGroup.floodedAt} is null or ${runGroup.floodedAt} < now() - interval '1 minute')`))
+    .returning({ id: runGroup.id });
+  return rows.length > 0;
+}
+
+/** Kept rolls of one group (not undone), the figure a removal or leaving out takes off the board. */
+export async function countGroupKeptRolls(executor: Executor, groupId: string): Promise<number> {
+  const [row] = await executor.select({ rolls: count() }).from(roll).where(and(eq(roll.groupId, groupId), isNull(roll.undoneAt)));
+  return row.rolls;
+}
+
+/** Kept rolls per left-out group of a run (the board shows them beside the group, outside every figure). */
+export async function leftOutRollCounts(executor: Executor, runId: string): Promise<Map<string, number>> {
+  const rows = await executor
+    .select({ groupId: roll.groupId, rolls: count() })
+    .from(roll)
+    .innerJoin(runGroup, eq(runGroup.id, roll.groupId))
+    .where(and(eq(roll.runId, runId), isNull(roll.undoneAt), isNotNull(runGroup.leftOutAt), isNull(runGroup.removedAt)))
+    .groupBy(roll.groupId);
+  return new Map(rows.map((row) => [row.groupId, row.rolls]));
+}
+
+/** Phone rolls a run has stored (undone ones too: the roll ceiling counts what phones sent). */
+export async function countPhoneRolls(executor: Executor, runId: string): Promise<number> {
+  const [row] = await executor.select({ rolls: count() }).from(roll).where(and(eq(roll.runId, runId), eq(roll.source, "phone")));
+  return row.rolls;
+}
+
+/** Marks the run as having reached its roll ceiling, once; true when this call set it. */
+export async function markRollCeilingReached(executor: Executor, runId: string): Promise<boolean> {
+  const rows = await executor
+    .update(classRun)
+    .set({ rollCeilingReachedAt: sql`now()`, boardVersion: sql`${classRun.boardVersion} + 1` })
+    .where(and(eq(classRun.id, runId), isNull(classRun.rollCeilingReachedAt)))
+    .returning({ id: classRun.id });
+  return rows.length > 0;
+}
+
+/** Locks or unlocks joining. */
+export async function setJoiningLocked(executor: Executor, runId: string, locked: boolean): Promise<ClassRunRow> {
+  const [row] = await executor
+    .update(classRun)
+    .set({ joiningLocked: locked, boardVersion: sql`${classRun.boardVersion} + 1`, lastChangeAt: sql`now()` })
+    .where(eq(classRun.id, runId))
+    .returning();
+  return row;
+}
+
+/**
+ * Closes every run that is not closed and has had no change and no roll for `idleMinutes`, in one statement, so
+ * several server processes may sweep at once: a run is closed by whichever gets there first, and once. Answers the
+ * ids closed.
+ */
+export async function closeIdleRuns(executor: Executor, idleMinutes: number): Promise<string[]> {
+  const result = await executor.execute<{ id: string }>(sql`
+    update class_run set status = 'closed', closed_at = now(), board_version = board_version + 1, last_change_at = now()
+    where status <> 'closed'
+      and last_change_at < now() - make_interval(secs => ${idleMinutes * 60})
+      and not exists (select 1 from roll where roll.run_id = class_run.id and roll.received_at >= now() - make_interval(secs => ${idleMinutes * 60}))
+    returning id`);
+  return result.rows.map((row) => row.id);
 }
 
 export async function findGroup(executor: Executor, groupId: string): Promise<RunGroupRow | null> {
@@ -189,10 +316,13 @@ export async function findGroup(executor: Executor, groupId: string): Promise<Ru
   return row ?? null;
 }
 
-/** Inserts groups; a nickname already in the run (any case) raises PostgreSQL's 23505. */
+/** Inserts groups with their look-alike keys; a nickname already in the run (any case, or a look-alike) raises PostgreSQL's 23505. */
 export async function insertGroups(executor: Executor, values: (typeof runGroup.$inferInsert)[]): Promise<RunGroupRow[]> {
   if (values.length === 0) return [];
-  return executor.insert(runGroup).values(values).returning();
+  return executor
+    .insert(runGroup)
+    .values(values.map((value) => ({ ...value, nicknameKey: nicknameKey(value.nickname) })))
+    .returning();
 }
 
 export async function setGroupMatchup(executor: Executor, groupId: string, matchup: number[] | null): Promise<RunGroupRow> {
@@ -218,8 +348,13 @@ export async function findVote(executor: Executor, groupId: string): Promise<num
   return row?.dieIndex ?? null;
 }
 
+/** The Guess votes of a run's groups that are not removed. */
 export async function listVotes(executor: Executor, runId: string) {
-  return executor.select({ groupId: guessVote.groupId, dieIndex: guessVote.dieIndex }).from(guessVote).where(eq(guessVote.runId, runId));
+  return executor
+    .select({ groupId: guessVote.groupId, dieIndex: guessVote.dieIndex })
+    .from(guessVote)
+    .innerJoin(runGroup, eq(runGroup.id, guessVote.groupId))
+    .where(and(eq(guessVote.runId, runId), isNull(runGroup.removedAt)));
 }
 
 /** A roll ready to insert. */
@@ -235,6 +370,8 @@ export type NewRoll = {
   winnerSeat: number | null;
   source: "phone" | "simulated" | "paper";
   recordedAt: Date;
+  /** The group's rolls are left out of every figure: stored, but not added to a Run board's pools. */
+  leftOut?: boolean;
 };
 
 /** What became of one roll in a batch. */
@@ -346,13 +483,13 @@ export type PoolRow = {
   recordedAt: string;
 };
 
-/** Kept (not undone) rolls of a run in the order recorded, as plain rows (a Run board reads them when it connects). */
+/** Rolls of a run that count (not undone, not of a removed or left-out group) in the order recorded (a Run board reads them when it connects). */
 export async function runRollsForPooling(executor: Executor, runId: string): Promise<PoolRow[]> {
   const result = await executor.execute<PoolRow>(sql`
     select id, group_id as "groupId", tally, dice_per_player as "dicePerPlayer", matchup, totals, winner_seat as "winnerSeat", source,
       to_json(recorded_at) #>> '{}' as "recordedAt"
     from roll
-    where run_id = ${runId} and undone_at is null
+    where run_id = ${runId} and undone_at is null and group_id not in (${setAsideGroups(runId)})
     order by recorded_at, received_at, id`);
   return result.rows;
 }

@@ -4,6 +4,7 @@ import type { SetDie } from "@shared/schemas/dice-sets";
 import type { RollSource } from "@shared/class-results/pooled-results";
 import { pool, type Executor } from "../client";
 import { classRun, diceSet, guessVote, lesson, paperImport, roll, runGroup, user } from "../schema/index";
+import { setAsideGroups } from "./class-runs";
 
 export type ClassRunRow = typeof classRun.$inferSelect;
 
@@ -23,12 +24,13 @@ export type ArchiveViewer = { userId: string; departmentId: string | null; whole
 
 const columnsOfRun = getTableColumns(classRun);
 
-const liveRoll = (runId: SQL | typeof classRun.id) => and(eq(roll.runId, runId), isNull(roll.undoneAt));
+// Rolls that count: not undone, and not of a removed or left-out group.
+const liveRoll = (runId: SQL | typeof classRun.id) => and(eq(roll.runId, runId), isNull(roll.undoneAt), sql`${roll.groupId} not in (${setAsideGroups(runId)})`);
 
 const countOf = (condition: SQL | undefined) => sql<number>`(select count(*)::int from ${roll} where ${condition})`;
 
 const rollCount = countOf(liveRoll(classRun.id));
-const groupCount = sql<number>`(select count(*)::int from ${runGroup} where ${runGroup.runId} = ${classRun.id})`;
+const groupCount = sql<number>`(select count(*)::int from ${runGroup} where ${runGroup.runId} = ${classRun.id} and ${runGroup.removedAt} is null)`;
 const columnsWithCounts = {
   ...columnsOfRun,
   ownerName: user.name,
@@ -86,14 +88,14 @@ export async function findResultsRun(executor: Executor, runId: string): Promise
 
 
 
-export type RunGroupRow = { id: string; nickname: string; source: RollSource; matchup: number[] | null; createdAt: Date };
+export type RunGroupRow = { id: string; nickname: string; source: RollSource; matchup: number[] | null; createdAt: Date; leftOutAt: Date | null };
 
-/** Every group of a run, in the order they joined. */
+/** Every group of a run the teacher did not remove, in the order they joined. */
 export async function listRunGroups(executor: Executor, runId: string): Promise<RunGroupRow[]> {
   return executor
-    .select({ id: runGroup.id, nickname: runGroup.nickname, source: runGroup.source, matchup: runGroup.matchup, createdAt: runGroup.createdAt })
+    .select({ id: runGroup.id, nickname: runGroup.nickname, source: runGroup.source, matchup: runGroup.matchup, createdAt: runGroup.createdAt, leftOutAt: runGroup.leftOutAt })
     .from(runGroup)
-    .where(eq(runGroup.runId, runId))
+    .where(and(eq(runGroup.runId, runId), isNull(runGroup.removedAt)))
     .orderBy(asc(runGroup.createdAt), asc(runGroup.id));
 }
 
@@ -102,7 +104,8 @@ export async function countGuessVotes(executor: Executor, runId: string): Promis
   return executor
     .select({ dieIndex: guessVote.dieIndex, votes: sql<number>`count(*)::int` })
     .from(guessVote)
-    .where(eq(guessVote.runId, runId))
+    .innerJoin(runGroup, eq(runGroup.id, guessVote.groupId))
+    .where(and(eq(guessVote.runId, runId), isNull(runGroup.removedAt)))
     .groupBy(guessVote.dieIndex)
     .orderBy(asc(guessVote.dieIndex));
 }
@@ -131,11 +134,15 @@ export type StreamedRoll = {
 };
 
 /**
- * Streams a run's rolls that count (undone rolls left out) in recorded order, `batchSize` at a time, through a
+ * Streams a run's rolls that count (undone rolls and removed groups' rolls left out; left-out groups' rolls only with
+ * `includeLeftOut`) in recorded order, `batchSize` at a time, through a
  * PostgreSQL cursor in a read-only transaction on one pooled connection, so no export ever holds every row.
  * Stopping the loop early (a closed download) closes the cursor and returns the connection.
  */
-export async function* streamRunRolls(runId: string, options: { includeSimulated: boolean; batchSize?: number }): AsyncGenerator<StreamedRoll[]> {
+export async function* streamRunRolls(
+  runId: string,
+  options: { includeSimulated: boolean; includeLeftOut?: boolean; batchSize?: number },
+): AsyncGenerator<StreamedRoll[]> {
   const batchSize = options.batchSize ?? 2000;
   const client = await pool.connect();
   let finished = false;
@@ -148,6 +155,7 @@ export async function* streamRunRolls(runId: string, options: { includeSimulated
                 winner_seat as "winnerSeat", source, recorded_at as "recordedAt"
            from roll
           where run_id = $1 and undone_at is null ${options.includeSimulated ? "" : "and source <> 'simulated'"}
+            and group_id not in (select id from run_group where run_id = $1 and (removed_at is not null${options.includeLeftOut ? "" : " or left_out_at is not null"}))
           order by recorded_at, id`,
       [runId],
     );
