@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { joinRefusalText, waitText } from "@/features/class-runs/api/join-group";
+import { validate as isUuid, version as uuidVersion } from "uuid";
+import { joinAttemptId, joinRefusalText, waitText } from "@/features/class-runs/api/join-group";
 
 describe("the Roll pad's words for a refused join", () => {
   it.each([
@@ -23,5 +24,22 @@ describe("the Roll pad's words for a refused join", () => {
 
   it("keeps the server's own message for refusals the pad has no words of its own for", () => {
     expect(joinRefusalText("nickname_taken", "Another group already uses “Gull Patrol”.")).toBe("Another group already uses “Gull Patrol”.");
+  });
+});
+
+describe("join attempt ids", () => {
+  const memory = () => {
+    const values = new Map<string, string>();
+    return { getItem: (key: string) => values.get(key) ?? null, setItem: (key: string, value: string) => void values.set(key, value) };
+  };
+
+  it("reuses the id of an unanswered attempt with the same code and nickname, and makes a new one for another nickname", () => {
+    const storage = memory();
+    const first = joinAttemptId("KTW3RN", "Harbour Otters", storage);
+    expect(isUuid(first) && uuidVersion(first)).toBe(4);
+    expect(joinAttemptId("KTW3RN", "Harbour Otters", storage)).toBe(first);
+    const other = joinAttemptId("KTW3RN", "Quayside Puffins", storage);
+    expect(other).not.toBe(first);
+    expect(joinAttemptId("KTW3RN", "Harbour Otters", storage)).not.toBe(first);
   });
 });

@@ -25,15 +25,15 @@ type JoinAttempt = { code: string; nickname: string; attemptId: string };
  * The id of this join attempt: the same code and nickname as an attempt that never got its answer reuse that attempt's
  * id (kept in sessionStorage, so a reload in the middle still retries it), so the server answers the group it made.
  */
-export function joinAttemptId(code: string, nickname: string): string {
+export function joinAttemptId(code: string, nickname: string, storage: Pick<Storage, "getItem" | "setItem"> = sessionStorage): string {
   try {
-    const kept = JSON.parse(sessionStorage.getItem(ATTEMPT_KEY) ?? "null") as JoinAttempt | null;
+    const kept = JSON.parse(storage.getItem(ATTEMPT_KEY) ?? "null") as JoinAttempt | null;
     if (kept && kept.code === code && kept.nickname === nickname) return kept.attemptId;
   } catch {
     // A damaged entry is replaced below.
   }
   const attempt: JoinAttempt = { code, nickname, attemptId: uuidv4() };
-  sessionStorage.setItem(ATTEMPT_KEY, JSON.stringify(attempt));
+  storage.setItem(ATTEMPT_KEY, JSON.stringify(attempt));
   return attempt.attemptId;
 }
 

@@ -340,7 +340,9 @@ export function GroupPad({ session, onLeave }: { session: PadSession; onLeave: (
           </p>
         )}
       </div>
-      {snapshot.notice && snapshot.waiting > 0 && <p className="text-base text-ink-soft">{snapshot.notice}</p>}
+      {snapshot.notice && snapshot.waiting > 0 && (!padState || padState.run.phase === "Guess" || ROLL_PHASES.includes(padState.run.phase)) && (
+        <p className="text-base text-ink-soft">{snapshot.notice}</p>
+      )}
       {body}
       <p className="text-sm text-ink-soft">
         Outroll keeps only your group’s nickname and rolls. Please do not type real names.{" "}
