@@ -62,7 +62,7 @@ export default defineConfig(({ mode }) => ({
       manifest: false,
       filename: "pad-sw.js",
       workbox: {
-        globPatterns: ["pad.html", "pad.webmanifest", "pad-icon.svg", "assets/**/*.{js,css,woff2}"],
+        globPatterns: ["pad.html", "pad.webmanifest", "pad-icon*", "assets/**/*.{js,css,woff2}"],
         navigateFallback: "pad.html",
         navigateFallbackAllowlist: [/^\/pad(\/|$)/],
         cleanupOutdatedCaches: true,
@@ -71,7 +71,7 @@ export default defineConfig(({ mode }) => ({
         manifestTransforms: [
           (entries) => {
             const manifest = JSON.parse(readFileSync(path.join(outDir, ".vite/manifest.json"), "utf8")) as Record<string, ManifestChunk>;
-            const padFiles = new Set([...padEntryFiles(manifest).files, "pad.html", "pad.webmanifest", "pad-icon.svg"]);
+            const padFiles = new Set([...padEntryFiles(manifest).files, "pad.html", "pad.webmanifest", "pad-icon.svg", "pad-icon-192.png", "pad-icon-512.png"]);
             return { manifest: entries.filter((entry) => padFiles.has(entry.url)), warnings: [] };
           },
         ],

@@ -41,6 +41,7 @@ describe("the Roll pad with a lost connection (phone-sized chromium)", () => {
 
     // The landing page's way in for pupils.
     await page.goto(appUrl);
+    await screenshot(page, "landing-join-a-class-360");
     await page.getByRole("link", { name: "Join a class" }).click();
     await page.getByLabel("Join code", { exact: true }).fill(run.joinCode.toLowerCase());
     await page.getByRole("button", { name: "Find the class run" }).click();
@@ -52,6 +53,9 @@ describe("the Roll pad with a lost connection (phone-sized chromium)", () => {
 
     // The pad's service worker has taken the page over and cached its shell.
     await page.waitForFunction(() => navigator.serviceWorker?.controller !== null, undefined, { timeout: 30_000 });
+    // Chromium finds nothing stopping a pupil from adding the pad to the home screen (manifest, icons, worker).
+    const cdp = await phone.context.newCDPSession(page);
+    await expect(cdp.send("Page.getInstallabilityErrors").then((answer) => answer.installabilityErrors)).resolves.toEqual([]);
 
     await recordRoll(page, [5, 3]);
     // After Record, keyboard focus stays on the pad's next useful control: the first face of the next roll.
