@@ -16,18 +16,20 @@ export function LandingRoute() {
           <Logo className="h-10 w-10 text-tide" />
           Outroll
         </Link>
-        <nav aria-label="Account" className="flex flex-wrap justify-end gap-2">
+        <div className="flex flex-wrap items-center justify-end gap-2">
           {/* A full page load: the Roll pad is a page of its own, not part of the teachers' app. */}
           <a href="/pad" className="rounded-xl border-2 border-amber-300 px-4 py-2 font-bold text-amber-200 hover:bg-white/10">
             Join a class
           </a>
-          <Link to="/sign-in" className="rounded-xl px-4 py-2 font-bold text-sand hover:bg-white/10">
-            Sign in
-          </Link>
-          <Link to="/sign-up" className="rounded-xl bg-sand px-4 py-2 font-bold text-ink hover:bg-white">
-            Create account
-          </Link>
-        </nav>
+          <nav aria-label="Account" className="flex gap-2">
+            <Link to="/sign-in" className="rounded-xl px-4 py-2 font-bold text-sand hover:bg-white/10">
+              Sign in
+            </Link>
+            <Link to="/sign-up" className="rounded-xl bg-sand px-4 py-2 font-bold text-ink hover:bg-white">
+              Create account
+            </Link>
+          </nav>
+        </div>
       </header>
       <main>
         <section className="mx-auto max-w-6xl px-4 pb-14 pt-8 sm:px-8 sm:pt-16">
