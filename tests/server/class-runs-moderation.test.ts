@@ -20,6 +20,7 @@ import { socketOutboxTransport } from "../../src/features/class-runs/delivery/so
 import { db } from "../../server/db/client";
 import { classRun, roll as rollTable, runGroup } from "../../server/db/schema/index";
 import { sweepIdleRuns } from "../../server/realtime/class-run-events";
+import { runRollCeiling } from "../../server/realtime/room-limits";
 import { env } from "../../server/env";
 import { createLessonFor, randomRollOf, rollOf, sessionCookie, type TestPupil } from "../helpers/class-run-fixtures";
 import { createDepartment, type DepartmentFixture } from "../helpers/department-fixtures";
@@ -413,6 +414,18 @@ describe("abuse limits", () => {
     expect(overHttp.status).toBe(429);
     expect((await overHttp.json()).error.code).toBe("rate_limited");
     expect((await fetch(`${app.baseUrl}/api/pad/${run.joinCode}`, { headers: { "x-forwarded-for": schoolAddress() } })).status).toBe(200);
+  });
+
+  it("stops a run at its roll ceiling and raises the flag on the board", async () => {
+    const run = await openRun({ phases: ["Roll"] });
+    const pupil = await join(run, "Ceiling Crew", schoolAddress());
+    // As if the run's phones had already sent all but two rolls of the ceiling (the count starts once per run and process).
+    runRollCeiling.start(run.id, runRollCeiling.ceiling - 2);
+    expect(await record(pupil, [[5], [3]])).toMatchObject({ ok: true });
+    expect(await record(pupil, [[5], [3]])).toMatchObject({ ok: true });
+    expect(await record(pupil, [[5], [3]])).toMatchObject({ ok: false, error: { code: "run_roll_ceiling" } });
+    expect(await keptRolls(run.id)).toBe(2);
+    await expect.poll(async () => (await boardSnapshot(run)).run.rollCeilingReachedAt, { timeout: 5_000 }).not.toBeNull();
   });
 
   it("closes runs left idle, once, whichever process sweeps, and leaves a run with recent rolls open", async () => {

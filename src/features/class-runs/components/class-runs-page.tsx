@@ -1,4 +1,6 @@
+import { useState } from "react";
 import { Link, useNavigate, useSearchParams } from "react-router-dom";
+import { GROUP_CAP_DEFAULT, GROUP_CAP_MAX, groupCapSchema } from "@shared/schemas/class-runs";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { LinkButton } from "@/components/ui/link-button";
@@ -17,6 +19,8 @@ function OpenFromLesson() {
   const navigate = useNavigate();
   const [params] = useSearchParams();
   const wanted = params.get("lesson");
+  const [groupCap, setGroupCap] = useState(String(GROUP_CAP_DEFAULT));
+  const cap = groupCapSchema.safeParse(Number(groupCap));
   if (lessons.isPending) return <p role="status">Loading your lessons…</p>;
   if (lessons.isError) return <Alert tone="error">{lessons.error.message}</Alert>;
   if (lessons.data.lessons.length === 0) {
@@ -30,6 +34,23 @@ function OpenFromLesson() {
   return (
     <div className="flex flex-col gap-3">
       {open.error && <Alert tone="error" title="The run was not opened">{open.error.message}</Alert>}
+      <label className="flex max-w-md flex-col gap-1 font-bold">
+        Most groups that may join
+        <span className="text-sm font-normal text-ink-soft">
+          A class working in pairs needs about 15; up to {GROUP_CAP_MAX}. Joining stops at this number, so one phone cannot fill the run.
+        </span>
+        <input
+          type="number"
+          inputMode="numeric"
+          min={1}
+          max={GROUP_CAP_MAX}
+          className="min-h-11 w-28 rounded-lg border-2 border-line bg-white px-2 text-base font-normal"
+          value={groupCap}
+          aria-invalid={!cap.success}
+          onChange={(event) => setGroupCap(event.target.value)}
+        />
+        {!cap.success && <span className="text-sm text-alarm">{cap.error.issues[0]?.message}</span>}
+      </label>
       <ul className="grid gap-3 md:grid-cols-2">
         {ordered.map((lesson) => (
           <li key={lesson.id} className={`flex flex-col gap-2 rounded-2xl border-2 bg-shell p-4 ${lesson.id === wanted ? "border-tide" : "border-line"}`}>
@@ -46,7 +67,8 @@ function OpenFromLesson() {
               <div className="flex flex-wrap gap-2">
                 <Button
                   busy={open.isPending && open.variables?.lessonId === lesson.id}
-                  onClick={() => open.mutate({ lessonId: lesson.id }, { onSuccess: (run) => navigate(`/app/runs/${run.id}`) })}
+                  disabled={!cap.success}
+                  onClick={() => open.mutate({ lessonId: lesson.id, groupCap: cap.data }, { onSuccess: (run) => navigate(`/app/runs/${run.id}`) })}
                 >
                   Open a class run
                 </Button>

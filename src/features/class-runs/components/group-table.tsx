@@ -3,6 +3,7 @@ import { IMPLAUSIBLE_P_VALUE, type PooledResults } from "@shared/class-results/p
 import type { BoardSnapshot } from "@shared/schemas/class-runs";
 import { Alert } from "@/components/ui/alert";
 import { useAssignGroupMatchup } from "../api/assign-group-matchup";
+import { GroupActions, GroupStateMarks } from "./group-moderation";
 import { decimal } from "./pooled-matchups";
 
 const sourceLabels = { phone: "Phone", simulated: "Simulated", paper: "Paper" } as const;
@@ -27,7 +28,7 @@ export function GroupTable({ snapshot, pooled, canManage }: { snapshot: BoardSna
     <div className="flex flex-col gap-3">
       {assign.error && <Alert tone="error">{assign.error.message}</Alert>}
       <div className="overflow-x-auto rounded-2xl border-2 border-line bg-shell">
-        <table className="w-full min-w-[46rem] text-left text-base" data-testid="group-table">
+        <table className="w-full min-w-[46rem] lg:min-w-[60rem] text-left text-base" data-testid="group-table">
           <caption className="sr-only">Groups in this class run</caption>
           <thead>
             <tr className="border-b-2 border-line">
@@ -38,6 +39,11 @@ export function GroupTable({ snapshot, pooled, canManage }: { snapshot: BoardSna
               <th scope="col" className="px-3 py-2 text-right">Share (die)</th>
               <th scope="col" className="px-3 py-2 text-right">p-value</th>
               <th scope="col" className="px-3 py-2">Check</th>
+              {canManage && (
+                <th scope="col" className="px-3 py-2">
+                  Moderate
+                </th>
+              )}
             </tr>
           </thead>
           <tbody>
@@ -45,10 +51,11 @@ export function GroupTable({ snapshot, pooled, canManage }: { snapshot: BoardSna
               const tests = pooled.groups.filter((entry) => entry.groupId === group.id);
               const flagged = tests.some((entry) => entry.test.implausible);
               return (
-                <tr key={group.id} className={`border-b border-line/60 align-top ${flagged ? "bg-alarm-light" : ""}`}>
+                <tr key={group.id} data-testid="group-row" className={`border-b border-line/60 align-top ${flagged ? "bg-alarm-light" : ""} ${group.leftOut ? "text-ink-soft" : ""}`}>
                   <th scope="row" className="px-3 py-2">
                     <span className="block font-bold">{group.nickname}</span>
                     <span className="text-sm text-ink-soft">{sourceLabels[group.source]}</span>
+                    <GroupStateMarks group={group} />
                   </th>
                   <td className="px-3 py-2">
                     {canManage && options.length > 0 && run.status !== "closed" ? (
@@ -102,6 +109,11 @@ export function GroupTable({ snapshot, pooled, canManage }: { snapshot: BoardSna
                       ),
                     )}
                   </td>
+                  {canManage && (
+                    <td className="px-3 py-2">
+                      <GroupActions run={run} group={group} />
+                    </td>
+                  )}
                 </tr>
               );
             })}

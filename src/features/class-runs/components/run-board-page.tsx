@@ -9,6 +9,7 @@ import { useRunBoard } from "../api/get-run-board";
 import { useLiveBoard, type LiveState } from "../hooks/use-live-board";
 import { GroupTable } from "./group-table";
 import { JoinPanel } from "./join-panel";
+import { JoiningControls } from "./joining-controls";
 import { PhaseControls } from "./phase-controls";
 import { PooledMatchups } from "./pooled-matchups";
 import { RunStatusBadge } from "./run-status-badge";
@@ -103,6 +104,9 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
                 Pupils join here
               </h2>
               <JoinPanel run={run} />
+              <div className="mt-4 border-t-2 border-line pt-4">
+                <JoiningControls snapshot={snapshot} canManage={canManage} />
+              </div>
             </section>
           ) : (
             <Alert tone="info" title="This run is closed">
