@@ -84,8 +84,8 @@ export function createApp(options: AppOptions = {}) {
   const clientDir = env.CLIENT_DIR;
   if ((options.serveClient ?? true) && existsSync(clientDir)) {
     const serveClient = clientFiles(clientDir);
-    // Source maps stay beside the build for reading stack traces; they are never served.
-    app.get("/{*splat}", (req, res, next) => (req.path.endsWith(".map") ? notFoundHandler(req, res, next) : next()));
+    // Source maps and the build's manifests stay beside the build for operators and tests; they are never served.
+    app.get("/{*splat}", (req, res, next) => (req.path.endsWith(".map") || req.path.startsWith("/.vite/") ? notFoundHandler(req, res, next) : next()));
     app.use(serveClient);
     // The Roll pad is a page of its own; every other address is the teachers' app, whose router shows its pages.
     app.get(["/pad", "/pad/{*splat}"], (req, res, next) => {

@@ -68,7 +68,9 @@ describe("the Roll pad's build", () => {
     expect(Buffer.from(await gzip.arrayBuffer()).equals(onDisk)).toBe(true);
   });
 
-  it("serves no source maps, though the build keeps them on disk", async () => {
+  it("serves no source maps or build manifests, though the build keeps them on disk", async () => {
+    expect((await fetch(`${appUrl}/.vite/manifest.json`)).status).toBe(404);
+    expect((await fetch(`${appUrl}/.vite/chunk-modules.json`)).status).toBe(404);
     const map = `${manifest["pad.html"].file}.map`;
     expect(readFileSync(path.join(clientDir, map)).length).toBeGreaterThan(0);
     const response = await fetch(`${appUrl}/${map}`);
