@@ -42,6 +42,14 @@ describe("the Roll pad's build", () => {
     expect(app.some((id) => /node_modules\/@tanstack\/query-core/.test(id))).toBe(true);
   });
 
+  it("has the service worker precache the pad's files and none of the teachers' app", () => {
+    const worker = readFileSync(path.join(clientDir, "pad-sw.js"), "utf8");
+    for (const file of padEntryFiles(manifest).files.filter((name) => !name.endsWith(".woff"))) expect(worker).toContain(`"${file}"`);
+    expect(worker).toContain('"pad.html"');
+    expect(worker).not.toContain(manifest["index.html"].file);
+    expect(worker).not.toContain('"index.html"');
+  });
+
   it("serves the pad's page for /pad/CODE and the app's for other addresses, brotli-compressed and never cached unchecked", async () => {
     const pad = await fetch(`${appUrl}/pad/ABCDEF`, { headers: { "accept-encoding": "br, gzip" } });
     expect(pad.status).toBe(200);

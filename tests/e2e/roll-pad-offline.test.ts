@@ -66,7 +66,9 @@ describe("the Roll pad with a lost connection (phone-sized chromium)", () => {
     await phone.context.setOffline(true);
     await recordRoll(page, [6, 2]);
     await recordRoll(page, [5, 4]);
-    await page.getByTestId("delivery-status").filter({ hasText: "2 waiting" }).waitFor();
+    // Screen readers hear the count: the status is a polite live region.
+    await page.getByRole("status").filter({ hasText: "2 waiting" }).waitFor();
+    await expect(page.getByTestId("delivery-status").getAttribute("aria-live")).resolves.toBe("polite");
 
     const reload = await page.reload();
     expect(reload?.fromServiceWorker()).toBe(true);
@@ -79,6 +81,13 @@ describe("the Roll pad with a lost connection (phone-sized chromium)", () => {
     await phone.context.setOffline(false);
     await page.getByTestId("delivery-status").filter({ hasText: "Saved" }).waitFor({ timeout: 30_000 });
     await expect(page.getByTestId("running-score").textContent()).resolves.toBe("Auk 3 · Razorbill 2 · ties 0");
+
+    // The worker serves the pad only: a teacher's page in the same browser is not under its control.
+    const teacherPage = await phone.context.newPage();
+    await teacherPage.goto(`${appUrl}/sign-in`);
+    await teacherPage.getByLabel("E-mail").waitFor();
+    await expect(teacherPage.evaluate(() => navigator.serviceWorker.controller)).resolves.toBeNull();
+    await teacherPage.close();
 
     const ids = await loggedRollIds(page);
     expect(ids).toHaveLength(5);
