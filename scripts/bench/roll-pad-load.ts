@@ -17,7 +17,7 @@ if (!baseUrl) {
   console.error("Set BENCH_DATABASE_URL (npm run bench does) to a throwaway PostgreSQL database.");
   process.exit(1);
 }
-const ROUNDS = Number(process.env.BENCH_PAD_ROUNDS ?? 3);
+const ROUNDS = Number(process.env.BENCH_PAD_ROUNDS ?? 5);
 const throttled = { latency: 150, downloadThroughput: (1.6e6 / 8) * 0.9, uploadThroughput: (750e3 / 8) * 0.9, cpuRate: 4 };
 
 function freePort(): Promise<number> {
@@ -81,7 +81,8 @@ async function phone(url: string, profile: typeof throttled | null): Promise<{ f
 
 const range = (values: number[], format: (value: number) => string) => {
   const sorted = [...values].sort((a, b) => a - b);
-  return sorted[0] === sorted[sorted.length - 1] ? format(sorted[0]) : `${format(sorted[0])}–${format(sorted[sorted.length - 1])}`;
+  if (sorted[0] === sorted[sorted.length - 1]) return format(sorted[0]);
+  return `${format(sorted[0])}–${format(sorted[sorted.length - 1])} (median ${format(sorted[Math.floor(sorted.length / 2)])})`;
 };
 const kb = (bytes: number) => `${(bytes / 1024).toFixed(0)} KB`;
 const seconds = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
