@@ -88,7 +88,8 @@ async function prepare(teacher: TeacherContext, runId: string, upload: PaperUplo
   const mode = runTallies(run).find((entry) => entry.tally === options.tally);
   if (!mode) throw invalidFile(`This run has no tally ${options.tally}; its rolls belong to tally ${runTallies(run).map((entry) => entry.tally).join(" or ")}.`);
   const { records, errors: parseErrors } = parseCsv(text, mode.players);
-  const groups = await listRunGroups(db, runId);
+  // Removed groups too: a sheet naming one files its rolls under it (set aside like the rest), not under a clashing new group.
+  const groups = await listRunGroups(db, runId, { withRemoved: true });
   const check = checkPaperImportRows({ dice: run.dice, dicePerPlayer: mode.dicePerPlayer, players: mode.players, groups, createGroups: options.createGroups }, records);
   const errorsByRow = new Map<number, string[]>();
   for (const entry of [...parseErrors, ...check.errors]) errorsByRow.set(entry.row, [...(errorsByRow.get(entry.row) ?? []), ...entry.messages]);

@@ -9,6 +9,7 @@ import { openBrowser, screenshot, signInThroughUi, viewports } from "../helpers/
 
 const appUrl = inject("appUrl");
 const teacher = demoTeachers.find((each) => each.email === "tomasz.reid@harbourside.test")!;
+const head = demoTeachers.find((each) => each.role === "head")!;
 
 // Invented dice for the browser test.
 const dice = [
@@ -141,5 +142,21 @@ describe("the teacher moderates groups on the Run board while phones are recordi
     await screenshot(board, "run-board-moderated-laptop");
     await board.setViewportSize({ width: 390, height: 844 });
     await screenshot(board, "run-board-moderated-phone");
+
+    // The head of department watching sees each group's state but no moderation controls.
+    const headBrowser = await openBrowser(viewports.laptop);
+    try {
+      const watching = await signInThroughUi(headBrowser.context, appUrl, head.email, demoPassword);
+      await watching.goto(`${appUrl}/app/runs/${runId}`);
+      await watching.getByTestId("group-table").getByRole("rowheader", { name: /Lighthouse Lot/ }).waitFor();
+      await watching.getByTestId("left-out-mark").waitFor();
+      await watching.getByText("Joining is locked", { exact: false }).waitFor();
+      for (const name of ["Rename Lighthouse Lot", "Remove Lighthouse Lot", "Count again Lighthouse Lot", "Unlock joining"]) {
+        expect(await watching.getByRole("button", { name }).count()).toBe(0);
+      }
+      await screenshot(watching, "run-board-head-watching-laptop");
+    } finally {
+      await headBrowser.close();
+    }
   });
 });

@@ -90,12 +90,12 @@ export async function findResultsRun(executor: Executor, runId: string): Promise
 
 export type RunGroupRow = { id: string; nickname: string; source: RollSource; matchup: number[] | null; createdAt: Date; leftOutAt: Date | null };
 
-/** Every group of a run the teacher did not remove, in the order they joined. */
-export async function listRunGroups(executor: Executor, runId: string): Promise<RunGroupRow[]> {
+/** Every group of a run the teacher did not remove (removed ones too when asked), in the order they joined. */
+export async function listRunGroups(executor: Executor, runId: string, options: { withRemoved?: boolean } = {}): Promise<RunGroupRow[]> {
   return executor
     .select({ id: runGroup.id, nickname: runGroup.nickname, source: runGroup.source, matchup: runGroup.matchup, createdAt: runGroup.createdAt, leftOutAt: runGroup.leftOutAt })
     .from(runGroup)
-    .where(and(eq(runGroup.runId, runId), isNull(runGroup.removedAt)))
+    .where(and(eq(runGroup.runId, runId), options.withRemoved ? undefined : isNull(runGroup.removedAt)))
     .orderBy(asc(runGroup.createdAt), asc(runGroup.id));
 }
 
