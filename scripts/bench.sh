@@ -33,3 +33,5 @@ npx tsx scripts/bench/class-run-load.ts
 
 log "Account answers (sign-up and password reset for existing and unknown addresses)"
 npx tsx scripts/bench/account-timing.ts
+log "Roll pad in a phone's browser (first and second visit, throttled and not)"
+npx tsx scripts/bench/roll-pad-load.ts

@@ -1,6 +1,7 @@
 import { existsSync } from "node:fs";
-import path from "node:path";
+import type { ServerResponse } from "node:http";
 import express from "express";
+import expressStaticGzip from "express-static-gzip";
 import helmet from "helmet";
 import { pinoHttp } from "pino-http";
 import { toNodeHandler } from "better-auth/node";
@@ -113,9 +114,42 @@ export function createApp(options: AppOptions = {}) {
 
   const clientDir = env.CLIENT_DIR;
   if ((options.serveClient ?? true) && existsSync(clientDir)) {
-    app.use(express.static(clientDir, { index: false, maxAge: "1h" }));
-    app.get("/{*splat}", (_req, res) => res.sendFile(path.join(clientDir, "index.html")));
+    const serveClient = clientFiles(clientDir);
+    // Source maps and the build's manifests stay beside the build for operators and tests; they are never served.
+    app.get("/{*splat}", (req, res, next) => (req.path.endsWith(".map") || req.path.startsWith("/.vite/") ? notFoundHandler(req, res, next) : next()));
+    app.use(serveClient);
+    // The Roll pad is a page of its own; every other address is the teachers' app, whose router shows its pages.
+    app.get(["/pad", "/pad/{*splat}"], (req, res, next) => {
+      req.url = "/pad.html";
+      serveClient(req, res, next);
+    });
+    app.get("/{*splat}", (req, res, next) => {
+      req.url = "/index.html";
+      serveClient(req, res, next);
+    });
   }
   app.use(errorHandler);
   return app;
+}
+
+/** Vite writes only hashed files (name-HASH.ext) into assets/: they never change, so browsers keep them for a year. */
+const HASHED_ASSET = /[\\/]assets[\\/][^\\/]+$/;
+
+/**
+ * The built client: the brotli or gzip file Vite wrote beside each one when the browser accepts it, hashed assets
+ * cached for a year as immutable, everything else (the two pages, the pad's service worker and manifest) revalidated
+ * on every load with `no-cache`.
+ */
+function clientFiles(clientDir: string) {
+  return expressStaticGzip(clientDir, {
+    enableBrotli: true,
+    orderPreference: ["br", "gz"],
+    index: false,
+    serveStatic: {
+      index: false,
+      setHeaders: (res: ServerResponse, filePath: string) => {
+        res.setHeader("Cache-Control", HASHED_ASSET.test(filePath) ? "public, max-age=31536000, immutable" : "no-cache");
+      },
+    },
+  });
 }

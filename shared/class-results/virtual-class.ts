@@ -1,5 +1,8 @@
 import { matchupSimulation, mulberry32, randomBelow } from "../probability/index";
 
+// In a file of its own so the Roll pad can score rolls without the engine; kept importable from here.
+export { winnerSeatOf } from "./winner-seat";
+
 /** One simulated roll: faces per seat and each seat's total. */
 export type SimulatedMatchupRoll = { faces: number[][]; totals: number[] };
 
@@ -20,18 +23,4 @@ export function simulatedMatchupRolls(input: { dice: number[][]; dicePerPlayer: 
     const faces = dice.map((die) => Array.from({ length: dicePerPlayer }, () => die[randomBelow(source, die.length)]));
     return { faces, totals: faces.map((seat) => seat.reduce((sum, face) => sum + face, 0)) };
   });
-}
-
-/** The seat with the highest total, or null when the highest total is shared (a tie). */
-export function winnerSeatOf(totals: readonly number[]): number | null {
-  // One pass without allocating: every pupil's roll goes through here.
-  let winner: number | null = null;
-  let highest = -Infinity;
-  for (let seat = 0; seat < totals.length; seat += 1) {
-    if (totals[seat] > highest) {
-      highest = totals[seat];
-      winner = seat;
-    } else if (totals[seat] === highest) winner = null;
-  }
-  return winner;
 }

@@ -1,8 +1,9 @@
 import { DataSet, englishDataset, englishRecommendedTransformers, RegExpMatcher } from "obscenity";
 import unhomoglyph from "unhomoglyph";
+// The lengths live beside the join code schema, which the Roll pad loads without this file's word lists.
+import { NICKNAME_MAX, NICKNAME_MIN } from "../schemas/joining";
 
-export const NICKNAME_MIN = 2;
-export const NICKNAME_MAX = 24;
+export { NICKNAME_MAX, NICKNAME_MIN };
 
 /** The names the virtual class's groups take ("Virtual group 3"); no pupil's group may take one or a look-alike. */
 export const VIRTUAL_GROUP_PREFIX = "Virtual group";

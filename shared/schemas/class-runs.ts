@@ -2,6 +2,7 @@ import { z } from "zod";
 import type { PooledResults } from "../class-results/pooled-results";
 import type { SetDie } from "./dice-sets";
 import { normaliseNickname, nicknameProblem } from "../class-runs/nickname-rules";
+import { joinCodeSchema } from "./joining";
 import { LESSON_PHASES, type LessonPhaseName } from "./lessons";
 
 /** A class run's status: open takes rolls, paused keeps phones waiting, closed takes nothing more. */
@@ -22,22 +23,9 @@ export const runPhaseHints: Record<RunPhase, string> = {
   Reflect: "Talk it through: was there a best die?",
 };
 
-/** Join codes use no look-alike characters (no 0/O, 1/I/L), so a code read from the back of a room is typed right. */
-export const JOIN_CODE_ALPHABET = "ABCDEFGHJKMNPQRSTUVWXYZ23456789";
-export const JOIN_CODE_LENGTH = 6;
+export { JOIN_CODE_ALPHABET, JOIN_CODE_LENGTH, joinCodeSchema, NICKNAME_MAX, NICKNAME_MIN } from "./joining";
 
-/** A typed join code: spaces and dashes dropped, letters upper-cased, then checked against the alphabet. */
-export const joinCodeSchema = z
-  .string({ error: "Type the join code." })
-  .transform((value) => value.replace(/[\s-]/g, "").toUpperCase())
-  .pipe(
-    z
-      .string()
-      .length(JOIN_CODE_LENGTH, { error: `A join code has ${JOIN_CODE_LENGTH} characters.` })
-      .regex(new RegExp(`^[${JOIN_CODE_ALPHABET}]+$`), { error: "A join code uses letters and the digits 2 to 9 only." }),
-  );
-
-export { NICKNAME_MAX, NICKNAME_MIN, nicknameProblem } from "../class-runs/nickname-rules";
+export { nicknameProblem } from "../class-runs/nickname-rules";
 
 /** A group nickname, NFKC-normalised: the rules of `nicknameProblem` (shared/class-runs/nickname-rules.ts). */
 export const nicknameSchema = z

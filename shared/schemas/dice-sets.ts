@@ -1,18 +1,9 @@
 import { z } from "zod";
 import { dieFacesSchema } from "../probability/die";
 import { SET_SIZE_MAX, SET_SIZE_MIN } from "../probability/dice-set";
+import { diePalette } from "../dice-palette";
 
-/** Our palette: every colour comes with its own pattern, so no die is told apart by colour alone. */
-export const diePalette = [
-  { colour: "teal", pattern: "dots", hex: "#0f766e" },
-  { colour: "amber", pattern: "stripes", hex: "#b45309" },
-  { colour: "plum", pattern: "checks", hex: "#7e22ce" },
-  { colour: "slate", pattern: "waves", hex: "#475569" },
-  { colour: "coral", pattern: "triangles", hex: "#c2410c" },
-  { colour: "moss", pattern: "crosses", hex: "#4d7c0f" },
-  { colour: "ocean", pattern: "rings", hex: "#1d4ed8" },
-  { colour: "sand", pattern: "zigzags", hex: "#a16207" },
-] as const;
+export { diePalette };
 
 export const dieColourSchema = z.enum(diePalette.map((entry) => entry.colour) as [string, ...string[]], {
   error: `Choose a colour from the palette: ${diePalette.map((entry) => entry.colour).join(", ")}.`,

@@ -5,8 +5,8 @@ import { LandingRoute } from "./routes/landing";
 import { NotFoundRoute } from "./routes/not-found";
 
 /**
- * A page loaded when first visited (its own chunk), so a pupil's phone opening the Roll pad downloads the pad and not
- * the Dice bench, the charts or the tables.
+ * A page loaded when first visited (its own chunk), so a teacher opening one area does not download the others' charts
+ * and tables.
  */
 function page<Module>(load: () => Promise<Module>, name: keyof Module) {
   return async () => ({ Component: (await load())[name] as ComponentType });
@@ -29,9 +29,7 @@ export const router = createBrowserRouter([
       { path: "/sign-in", lazy: page(() => import("./routes/sign-in"), "SignInRoute") },
       { path: "/sign-up", lazy: page(() => import("./routes/sign-up"), "SignUpRoute") },
       { path: "/join", lazy: page(() => import("./routes/join"), "JoinRoute") },
-      // Roll pad (pupils' phones, no account) and the Wall view (full screen, outside the app frame)
-      { path: "/pad", lazy: page(() => import("./routes/roll-pad"), "RollPadRoute") },
-      { path: "/pad/:code", lazy: page(() => import("./routes/roll-pad"), "RollPadRoute") },
+      // The Wall view (full screen, outside the app frame). The Roll pad is a page of its own (pad.html, src/pad/).
       { path: "/app/runs/:id/wall", lazy: page(() => import("./routes/wall-view"), "WallViewRoute") },
       { path: "/forgot-password", lazy: page(() => import("./routes/forgot-password"), "ForgotPasswordRoute") },
       { path: "/reset-password", lazy: page(() => import("./routes/reset-password"), "ResetPasswordRoute") },

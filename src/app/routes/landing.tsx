@@ -11,19 +11,25 @@ const steps = [
 export function LandingRoute() {
   return (
     <div className="min-h-dvh bg-ink text-sand">
-      <header className="mx-auto flex max-w-6xl items-center justify-between gap-4 px-4 py-5 sm:px-8">
+      <header className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-4 px-4 py-5 sm:px-8">
         <Link to="/" className="flex items-center gap-3 text-2xl font-bold text-sand">
           <Logo className="h-10 w-10 text-tide" />
           Outroll
         </Link>
-        <nav aria-label="Account" className="flex gap-2">
-          <Link to="/sign-in" className="rounded-xl px-4 py-2 font-bold text-sand hover:bg-white/10">
-            Sign in
-          </Link>
-          <Link to="/sign-up" className="rounded-xl bg-sand px-4 py-2 font-bold text-ink hover:bg-white">
-            Create account
-          </Link>
-        </nav>
+        <div className="flex flex-wrap items-center justify-end gap-2">
+          {/* A full page load: the Roll pad is a page of its own, not part of the teachers' app. */}
+          <a href="/pad" className="whitespace-nowrap rounded-xl border-2 border-amber-300 px-4 py-2 font-bold text-amber-200 hover:bg-white/10">
+            Join a class
+          </a>
+          <nav aria-label="Account" className="flex gap-2">
+            <Link to="/sign-in" className="whitespace-nowrap rounded-xl px-4 py-2 font-bold text-sand hover:bg-white/10">
+              Sign in
+            </Link>
+            <Link to="/sign-up" className="whitespace-nowrap rounded-xl bg-sand px-4 py-2 font-bold text-ink hover:bg-white">
+              Create account
+            </Link>
+          </nav>
+        </div>
       </header>
       <main>
         <section className="mx-auto max-w-6xl px-4 pb-14 pt-8 sm:px-8 sm:pt-16">

@@ -1,5 +1,5 @@
 import { useId } from "react";
-import { diePalette } from "@shared/schemas/dice-sets";
+import { diePalette } from "@shared/dice-palette";
 
 const tile = 10;
 

@@ -111,4 +111,36 @@ describe("RollOutbox", () => {
     reloaded.flush();
     expect(after.calls.map((call) => call.id)).toEqual(["kept"]);
   });
+
+  it("keeps a roll refused with not_roll_phase, says why as a wait, and sends it again later", async () => {
+    const { transport, calls } = manualTransport();
+    const outbox = new RollOutbox(memoryStore(), transport, { retryDelayMs: 20 });
+    const events: string[] = [];
+    outbox.subscribe((event) => events.push(event.type === "waiting" ? `waiting:${event.code}` : event.type));
+    outbox.add(recordOperation(roll("a")));
+    calls[0].settle({ ok: false, error: { code: "not_roll_phase", message: "The class is not rolling now." } });
+    await tick();
+    expect(outbox.pending().map((entry) => entry.key)).toEqual(["a"]);
+    expect(events).toContain("waiting:not_roll_phase");
+    expect(events).not.toContain("refused");
+    await new Promise((resolve) => setTimeout(resolve, 40));
+    expect(calls.map((call) => call.id)).toEqual(["a", "a"]);
+    calls[1].settle({ ok: true, id: "a", duplicate: false });
+    await tick();
+    expect(outbox.pending()).toEqual([]);
+    outbox.stop();
+  });
+
+  it("drops a roll refused with group_removed, reporting it as refused for good", async () => {
+    const { transport, calls } = manualTransport();
+    const outbox = new RollOutbox(memoryStore(), transport);
+    const refused: string[] = [];
+    outbox.subscribe((event) => event.type === "refused" && refused.push(event.error.code));
+    outbox.add(recordOperation(roll("a")));
+    calls[0].settle({ ok: false, error: { code: "group_removed", message: "Your teacher removed this group." } });
+    await tick();
+    expect(outbox.pending()).toEqual([]);
+    expect(refused).toEqual(["group_removed"]);
+    outbox.stop();
+  });
 });

@@ -1,6 +1,6 @@
-import { useState, type ReactNode } from "react";
+import { useRef, useState, type ReactNode } from "react";
 import type { PadState } from "@shared/events";
-import { runPhaseHints } from "@shared/schemas/class-runs";
+import type { RunPhase } from "@shared/schemas/class-runs";
 import { DieSwatch } from "@/components/dice/die-swatch";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -8,20 +8,49 @@ import type { LocalRoll, PadConnection, PadSession, PadSnapshot } from "../deliv
 import { usePadConnection } from "../hooks/use-pad-connection";
 import { PadFrame } from "./pad-frame";
 
+/** "Saved" or "n waiting", announced politely to screen readers as it changes. */
+export function deliveryStatusText(connected: boolean, waiting: number): string {
+  if (waiting > 0) return connected ? `${waiting} waiting` : `${waiting} waiting · offline`;
+  return connected ? "Saved" : "Offline";
+}
+
 function DeliveryStatus({ snapshot }: { snapshot: PadSnapshot }) {
-  const text = !snapshot.connected
-    ? snapshot.waiting > 0
-      ? `${snapshot.waiting} waiting for connection`
-      : "Waiting for connection"
-    : snapshot.waiting > 0
-      ? `Sending ${snapshot.waiting}…`
-      : "Saved";
-  const tone = snapshot.connected && snapshot.waiting === 0 ? "bg-tide-light text-ink" : "bg-beacon-light text-ink";
+  const settled = snapshot.connected && snapshot.waiting === 0;
+  const tone = settled ? "bg-tide-light text-ink" : "bg-beacon-light text-ink";
   return (
-    <span role="status" aria-live="polite" data-testid="delivery-status" className={`rounded-full px-3 py-1 text-base font-bold ${tone}`}>
-      <span aria-hidden="true">{snapshot.connected && snapshot.waiting === 0 ? "✓ " : "⏳ "}</span>
-      {text}
+    <span role="status" aria-live="polite" data-testid="delivery-status" className={`whitespace-nowrap rounded-full px-3 py-1 text-base font-bold ${tone}`}>
+      {settled && <span aria-hidden="true">✓ </span>}
+      {deliveryStatusText(snapshot.connected, snapshot.waiting)}
     </span>
+  );
+}
+
+/** What each phase asks of pupils, in the pad's words; outside Roll and Twist the class looks at the board. */
+const phaseText: Record<RunPhase, string> = {
+  Guess: "Vote for the die you think is best.",
+  Roll: "Play your matchup and record every roll.",
+  Pool: "Look at the board: we are putting the class’s rolls together.",
+  Prove: "Look at the board: we are proving it.",
+  Twist: "A new way to play: record again from zero.",
+  Reflect: "Look at the board: talk it through. Was there a best die?",
+};
+
+const ROLL_PHASES: readonly RunPhase[] = ["Roll", "Twist"];
+
+function LookAtTheBoard({ phase, waiting }: { phase: RunPhase; waiting: number }) {
+  return (
+    <section aria-labelledby="board-heading" className="flex flex-col gap-3 rounded-2xl border-4 border-tide bg-tide-light p-4" data-testid="look-at-board">
+      <h2 id="board-heading" className="text-2xl">
+        {phase}: eyes on the board
+      </h2>
+      <p className="text-xl">{phaseText[phase]}</p>
+      <p>No rolls to record now. Your teacher will tell you when to pick the dice up again.</p>
+      {waiting > 0 && (
+        <p>
+          {waiting} {waiting === 1 ? "roll is" : "rolls are"} kept on this phone and will be sent when the class rolls again.
+        </p>
+      )}
+    </section>
   );
 }
 
@@ -47,8 +76,10 @@ function VotePanel({ state, connection }: { state: PadState; connection: PadConn
               key={die.name}
               type="button"
               aria-pressed={chosen}
-              disabled={busy !== null}
+              // Not disabled while busy: a disabled button drops keyboard focus to the page body.
+              aria-disabled={busy !== null || undefined}
               onClick={async () => {
+                if (busy !== null) return;
                 setBusy(index);
                 const ack = await connection.vote(index);
                 setBusy(null);
@@ -139,6 +170,7 @@ function RecordPanel({ state, connection, snapshot }: { state: PadState; connect
   const perPlayer = state.run.dicePerPlayer;
   const empty = () => matchup.map(() => Array.from({ length: perPlayer }, () => null as number | null));
   const [faces, setFaces] = useState<(number | null)[][]>(empty);
+  const firstFace = useRef<HTMLButtonElement>(null);
   const complete = faces.every((seat) => seat.every((face) => face !== null));
   const paused = state.run.status === "paused";
   const score = scoreOf(snapshot.log, state.run.tally, matchup);
@@ -177,9 +209,10 @@ function RecordPanel({ state, connection, snapshot }: { state: PadState; connect
             {faces[seat].map((picked, slot) => (
               <div key={slot} role="group" aria-label={perPlayer === 2 ? `${die.name}, die ${slot + 1}` : die.name} className="flex flex-wrap gap-2">
                 {perPlayer === 2 && <span className="w-full text-base font-bold text-ink-soft">Die {slot + 1}</span>}
-                {values.map((value) => (
+                {values.map((value, valueIndex) => (
                   <button
                     key={value}
+                    ref={seat === 0 && slot === 0 && valueIndex === 0 ? firstFace : undefined}
                     type="button"
                     aria-pressed={picked === value}
                     aria-label={`${die.name}${perPlayer === 2 ? ` die ${slot + 1}` : ""} shows ${value}`}
@@ -202,6 +235,8 @@ function RecordPanel({ state, connection, snapshot }: { state: PadState; connect
           onClick={() => {
             connection.recordRoll(state, faces as number[][]);
             setFaces(empty());
+            // The Record button goes away; the next useful control is the first face of the next roll.
+            firstFace.current?.focus();
           }}
         >
           Record {summary}
@@ -211,7 +246,14 @@ function RecordPanel({ state, connection, snapshot }: { state: PadState; connect
           {paused ? "Paused by your teacher" : "Tap a face for each die, then record"}
         </p>
       )}
-      <Button variant="secondary" className="min-h-14 text-xl" disabled={paused || score.rolls === 0} onClick={() => connection.undoLast(state.run.tally)}>
+      <Button
+        variant="secondary"
+        className="min-h-14 text-xl aria-disabled:cursor-not-allowed aria-disabled:opacity-60"
+        aria-disabled={paused || score.rolls === 0 || undefined}
+        onClick={() => {
+          if (!paused && score.rolls > 0) connection.undoLast(state.run.tally);
+        }}
+      >
         Undo last roll
       </Button>
       {recent.length > 0 && (
@@ -236,14 +278,29 @@ function RecordPanel({ state, connection, snapshot }: { state: PadState; connect
 
 /** A joined group's pad: its status, then what the current phase asks of it. */
 export function GroupPad({ session, onLeave }: { session: PadSession; onLeave: () => void }) {
-  const { connection, snapshot, state } = usePadConnection(session);
-  const padState = state.data;
+  const { connection, snapshot } = usePadConnection(session);
+  const padState = snapshot.state;
+  const nickname = padState?.group.nickname ?? session.nickname;
+
+  if (snapshot.removed) {
+    return (
+      <PadFrame>
+        <Alert tone="caution" title="Your teacher removed this group">
+          The group “{nickname}” is no longer in this class run, so this phone has forgotten it. If that was a mistake, join again
+          with a new nickname.
+        </Alert>
+        <Button className="min-h-14 text-xl" onClick={onLeave}>
+          Join the class again
+        </Button>
+      </PadFrame>
+    );
+  }
 
   let body: ReactNode;
   if (!padState || !connection) {
-    body = state.isError ? (
+    body = snapshot.problem ? (
       <Alert tone="error" title="Could not rejoin your group">
-        {state.error.message}
+        {snapshot.problem}
       </Alert>
     ) : (
       <p role="status">Connecting to your class run…</p>
@@ -256,6 +313,8 @@ export function GroupPad({ session, onLeave }: { session: PadSession; onLeave: (
     );
   } else if (padState.run.phase === "Guess") {
     body = <VotePanel state={padState} connection={connection} />;
+  } else if (!ROLL_PHASES.includes(padState.run.phase)) {
+    body = <LookAtTheBoard phase={padState.run.phase} waiting={snapshot.waiting} />;
   } else if (!padState.group.matchup) {
     body =
       padState.run.matchupChoice === "group-choice" ? (
@@ -272,16 +331,25 @@ export function GroupPad({ session, onLeave }: { session: PadSession; onLeave: (
   return (
     <PadFrame status={<DeliveryStatus snapshot={snapshot} />}>
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <p className="text-xl font-bold">{padState?.group.nickname ?? session.nickname}</p>
-        {padState && (
+        <p className="text-xl font-bold" data-testid="group-nickname">
+          {nickname}
+        </p>
+        {padState && (padState.run.phase === "Guess" || ROLL_PHASES.includes(padState.run.phase)) && (
           <p className="text-base text-ink-soft">
-            {padState.run.phase}: {runPhaseHints[padState.run.phase]}
+            {padState.run.phase}: {phaseText[padState.run.phase]}
           </p>
         )}
       </div>
-      {snapshot.notice && snapshot.waiting > 0 && <p className="text-base text-ink-soft">{snapshot.notice}</p>}
+      {snapshot.notice && snapshot.waiting > 0 && (!padState || padState.run.phase === "Guess" || ROLL_PHASES.includes(padState.run.phase)) && (
+        <p className="text-base text-ink-soft">{snapshot.notice}</p>
+      )}
       {body}
-      <p className="text-sm text-ink-soft">Outroll keeps only your group’s nickname and rolls. Please do not type real names.</p>
+      <p className="text-sm text-ink-soft">
+        Outroll keeps only your group’s nickname and rolls. Please do not type real names.{" "}
+        <a href="/privacy" className="underline">
+          How Outroll looks after your data
+        </a>
+      </p>
       <button type="button" className="self-start text-base underline" onClick={onLeave}>
         Not your group? Join with another nickname
       </button>

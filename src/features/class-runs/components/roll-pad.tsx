@@ -1,30 +1,35 @@
-import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
-import { useForm } from "react-hook-form";
-import { useNavigate } from "react-router-dom";
-import { z } from "zod";
-import { joinCodeSchema, nicknameSchema, NICKNAME_MAX } from "@shared/schemas/class-runs";
+import { useEffect, useState, type FormEvent } from "react";
+import { joinCodeSchema, NICKNAME_MAX, NICKNAME_MIN } from "@shared/schemas/joining";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/text-field";
-import { ApiRequestError } from "@/lib/api-client";
 import { usePadRun } from "../api/get-pad-run";
-import { useJoinGroup } from "../api/join-group";
+import { joinGroup, JoinRefusedError } from "../api/join-group";
 import { storedPadSession, storePadSession, type PadSession } from "../delivery/pad-connection";
 import { GroupPad } from "./group-pad";
 import { PadFrame } from "./pad-frame";
 
-const codeFormSchema = z.object({ code: joinCodeSchema });
-const nicknameFormSchema = z.object({ nickname: nicknameSchema });
+// The server checks nicknames in full (rude words, look-alikes, personal data); the pad checks only their length,
+// so it loads no word lists.
+function nicknameLengthProblem(nickname: string): string | null {
+  const trimmed = nickname.trim().replace(/\s+/g, " ");
+  if (trimmed.length === 0) return "Choose a group nickname.";
+  if (trimmed.length < NICKNAME_MIN) return `A group nickname needs at least ${NICKNAME_MIN} characters.`;
+  if (trimmed.length > NICKNAME_MAX) return `Keep the group nickname to ${NICKNAME_MAX} characters or fewer.`;
+  return null;
+}
 
-function CodeBox({ initial }: { initial?: string }) {
-  const navigate = useNavigate();
-  const { register, handleSubmit, formState } = useForm<z.input<typeof codeFormSchema>, unknown, z.output<typeof codeFormSchema>>({
-    resolver: zodResolver(codeFormSchema),
-    defaultValues: { code: initial ?? "" },
-  });
+function CodeBox({ initial, onCode }: { initial?: string; onCode: (code: string) => void }) {
+  const [value, setValue] = useState(initial ?? "");
+  const [problem, setProblem] = useState<string | undefined>();
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    const parsed = joinCodeSchema.safeParse(value);
+    if (parsed.success) onCode(parsed.data);
+    else setProblem(parsed.error.issues[0]?.message);
+  };
   return (
-    <form noValidate onSubmit={handleSubmit(({ code }) => navigate(`/pad/${code}`))} className="flex flex-col gap-4" aria-label="Find a class run by its code">
+    <form noValidate onSubmit={submit} className="flex flex-col gap-4" aria-label="Find a class run by its code">
       <TextField
         label="Join code"
         hint="Six letters and numbers, shown on the board at the front."
@@ -33,8 +38,9 @@ function CodeBox({ initial }: { initial?: string }) {
         spellCheck={false}
         inputMode="text"
         className="[&_input]:min-h-14 [&_input]:text-center [&_input]:font-mono [&_input]:text-3xl [&_input]:tracking-[0.3em] [&_input]:uppercase"
-        {...register("code")}
-        error={formState.errors.code?.message}
+        value={value}
+        onChange={(event) => setValue(event.target.value)}
+        error={problem}
       />
       <Button type="submit" className="min-h-14 text-xl">
         Find the class run
@@ -44,21 +50,48 @@ function CodeBox({ initial }: { initial?: string }) {
 }
 
 function NicknameForm({ code, title, onJoined }: { code: string; title: string; onJoined: (session: PadSession) => void }) {
-  const join = useJoinGroup();
-  const { register, handleSubmit, formState, setError } = useForm<z.input<typeof nicknameFormSchema>, unknown, z.output<typeof nicknameFormSchema>>({
-    resolver: zodResolver(nicknameFormSchema),
-  });
-  const submit = handleSubmit(({ nickname }) =>
-    join.mutate(
-      { code, nickname },
-      {
-        onSuccess: onJoined,
-        onError: (error) => {
-          if ("code" in error && (error.code === "nickname_taken" || error.code === "invalid_input")) setError("nickname", { message: error.message });
-        },
-      },
-    ),
-  );
+  const [nickname, setNickname] = useState("");
+  const [fieldProblem, setFieldProblem] = useState<string | undefined>();
+  const [refusal, setRefusal] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [blockedUntil, setBlockedUntil] = useState(0);
+  const [, setTick] = useState(0);
+
+  // socket.io's client is not needed to show this form; fetch it while the group chooses its nickname.
+  useEffect(() => {
+    void import("@/lib/socket");
+  }, []);
+
+  // While a wait from rate_limited runs, count it down so the button comes back by itself.
+  useEffect(() => {
+    if (blockedUntil <= Date.now()) return;
+    const timer = setInterval(() => setTick((tick) => tick + 1), 1_000);
+    const done = setTimeout(() => setBlockedUntil(0), blockedUntil - Date.now());
+    return () => {
+      clearInterval(timer);
+      clearTimeout(done);
+    };
+  }, [blockedUntil]);
+
+  const submit = async (event: FormEvent) => {
+    event.preventDefault();
+    if (busy || blockedUntil > Date.now()) return;
+    const problem = nicknameLengthProblem(nickname);
+    setFieldProblem(problem ?? undefined);
+    if (problem) return;
+    setBusy(true);
+    setRefusal(null);
+    try {
+      onJoined(await joinGroup({ code, nickname: nickname.trim().replace(/\s+/g, " ") }));
+    } catch (error) {
+      const refused = error instanceof JoinRefusedError ? error : new JoinRefusedError("server_error", "Not joined yet: try again.");
+      if (refused.code === "nickname_taken" || refused.code === "invalid_input") setFieldProblem(refused.message);
+      else setRefusal(refused.message);
+      if (refused.code === "rate_limited") setBlockedUntil(Date.now() + (refused.retryAfterMs ?? 30_000));
+      setBusy(false);
+    }
+  };
+  const secondsLeft = Math.ceil((blockedUntil - Date.now()) / 1000);
   return (
     <form noValidate onSubmit={submit} className="flex flex-col gap-4" aria-label="Choose a group nickname">
       <h1 className="text-2xl">{title}</h1>
@@ -71,26 +104,49 @@ function NicknameForm({ code, title, onJoined }: { code: string; title: string; 
         autoComplete="off"
         maxLength={NICKNAME_MAX + 8}
         className="[&_input]:min-h-14 [&_input]:text-xl"
-        {...register("nickname")}
-        error={formState.errors.nickname?.message}
+        value={nickname}
+        onChange={(event) => setNickname(event.target.value)}
+        error={fieldProblem}
       />
-      {join.error && !formState.errors.nickname && (
+      {refusal && (
         <Alert tone="error" title="Not joined yet">
-          {join.error.message}
+          {refusal}
         </Alert>
       )}
-      <Button type="submit" busy={join.isPending} className="min-h-14 text-xl">
-        Join with this nickname
+      <Button type="submit" busy={busy} disabled={secondsLeft > 0} className="min-h-14 text-xl">
+        {secondsLeft > 0 ? `Try again in ${secondsLeft} s` : "Join with this nickname"}
       </Button>
     </form>
   );
+}
+
+/** The code in a /pad/CODE address, or null on /pad. */
+export function codeFromPath(pathname: string): string | null {
+  const match = /^\/pad\/([^/]+)\/?$/.exec(pathname);
+  return match ? decodeURIComponent(match[1]) : null;
+}
+
+/** The pad's own tiny history: /pad and /pad/CODE, without a router library. */
+function usePadPath() {
+  const [code, setCode] = useState(() => codeFromPath(window.location.pathname));
+  useEffect(() => {
+    const onPop = () => setCode(codeFromPath(window.location.pathname));
+    window.addEventListener("popstate", onPop);
+    return () => window.removeEventListener("popstate", onPop);
+  }, []);
+  const go = (next: string | null) => {
+    window.history.pushState(null, "", next ? `/pad/${next}` : "/pad");
+    setCode(next);
+  };
+  return [code, go] as const;
 }
 
 /**
  * The Roll pad: type or scan the join code, choose a nickname, then vote and record rolls. The group's token is kept
  * in this phone's storage, so a reload or a dropped connection comes back to the same group.
  */
-export function RollPad({ code }: { code: string | null }) {
+export function RollPad() {
+  const [code, go] = usePadPath();
   const [session, setSession] = useState<PadSession | null>(() => {
     const stored = storedPadSession();
     return stored && (code === null || stored.code === code) ? stored : null;
@@ -102,10 +158,12 @@ export function RollPad({ code }: { code: string | null }) {
   if (session) {
     return (
       <GroupPad
+        key={session.token}
         session={session}
         onLeave={() => {
-          storePadSession(null);
+          if (storedPadSession()?.token === session.token) storePadSession(null);
           setSession(null);
+          go(null);
         }}
       />
     );
@@ -124,33 +182,40 @@ export function RollPad({ code }: { code: string | null }) {
       )}
       {code === null || !validCode ? (
         <>
-          <h1 className="text-3xl">Join your class</h1>
+          <h1 className="text-3xl">
+            Join your class
+          </h1>
           {code !== null && !validCode && (
             <Alert tone="error" title="That code does not look right">
               {parsedCode && !parsedCode.success ? parsedCode.error.issues[0]?.message : "Check the code on the board."}
             </Alert>
           )}
-          <CodeBox initial={code ?? undefined} />
+          <CodeBox initial={code ?? undefined} onCode={go} />
         </>
-      ) : run.isPending ? (
+      ) : run.status === "pending" || run.status === "idle" ? (
         <p role="status">Looking for the class run…</p>
-      ) : run.isError ? (
+      ) : run.status === "failed" ? (
         <>
           <Alert tone="error" title="Class run not found">
-            {run.error instanceof ApiRequestError ? run.error.message : "The class run could not be reached."}
+            {run.message}
           </Alert>
-          <CodeBox />
+          <CodeBox onCode={go} />
         </>
       ) : (
         <NicknameForm
-          code={run.data.joinCode}
-          title={run.data.classGroup ? `${run.data.title} · ${run.data.classGroup}` : run.data.title}
+          code={run.run.joinCode}
+          title={run.run.classGroup ? `${run.run.title} · ${run.run.classGroup}` : run.run.title}
           onJoined={(joined) => {
             storePadSession(joined);
             setSession(joined);
           }}
         />
       )}
+      <p className="text-sm text-ink-soft">
+        <a href="/privacy" className="underline">
+          How Outroll looks after your data
+        </a>
+      </p>
     </PadFrame>
   );
 }

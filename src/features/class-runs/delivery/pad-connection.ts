@@ -1,11 +1,10 @@
-import type { QueryClient } from "@tanstack/react-query";
 import type { Socket } from "socket.io-client";
 import { v4 as uuidv4 } from "uuid";
-import { winnerSeatOf } from "@shared/class-results/virtual-class";
-import { EVENTS, type GroupResumeAck, type MatchupChooseAck, type PadState, type VoteCastAck } from "@shared/events";
-import { openAppSocket } from "@/lib/socket";
+import { winnerSeatOf } from "@shared/class-results/winner-seat";
+import { EVENTS, type EventError } from "@shared/event-names";
+import type { GroupResumeAck, MatchupChooseAck, PadState, VoteCastAck } from "@shared/events";
 import { keyValueOutboxStore, recordOperation, RollOutbox, undoOperation } from "./roll-outbox";
-import { socketOutboxTransport } from "./socket-transport";
+import { ACK_TIMEOUT_MS, socketOutboxTransport } from "./socket-transport";
 
 /** What a phone keeps to rejoin its group: the signed token and enough to show who it is. */
 export type PadSession = { token: string; runId: string; groupId: string; nickname: string; code: string };
@@ -23,7 +22,19 @@ export type LocalRoll = {
   message?: string;
 };
 
-export type PadSnapshot = { connected: boolean; waiting: number; log: LocalRoll[]; notice: string | null };
+export type PadSnapshot = {
+  connected: boolean;
+  /** Rolls stored on this phone and not yet acknowledged by the server. */
+  waiting: number;
+  log: LocalRoll[];
+  notice: string | null;
+  /** The group's state as last read from the server (kept on the phone, so a reload offline shows it too). */
+  state: PadState | null;
+  /** Why the group could not be rejoined (a token the server no longer knows), or null. */
+  problem: string | null;
+  /** The teacher removed the group: its token is dead and the phone has forgotten it. */
+  removed: boolean;
+};
 
 const SESSION_KEY = "outroll.pad.session";
 const LOG_LIMIT = 400;
@@ -51,31 +62,44 @@ export function storePadSession(session: PadSession | null) {
 }
 
 /** The pad state last seen for a group, so a phone reloaded without a connection can still record into its outbox. */
-export function storedPadState(groupId: string): PadState | undefined {
-  return readJson<PadState | undefined>(stateKey(groupId), undefined);
+export function storedPadState(groupId: string): PadState | null {
+  return readJson<PadState | null>(stateKey(groupId), null);
 }
 
-export const padStateQueryKey = (groupId: string) => ["pad", groupId, "state"] as const;
+/** How many rolls a group's outbox on this phone holds, read straight from storage (before any connection opens). */
+export function storedWaitingCount(groupId: string): number {
+  return readJson<{ kind: string }[]>(outboxKey(groupId), []).filter((entry) => entry.kind === "record").length;
+}
+
+/** Error codes after which a group's token is no use any more. */
+const DEAD_TOKEN_CODES: readonly string[] = ["group_removed"];
 
 /**
- * One phone's live link to its group: the socket, the outbox that survives reloads, and the log of this phone's rolls.
- * The group's state from the server lives in the TanStack Query cache; server events only invalidate it.
+ * One phone's live link to its group: the socket, the outbox that survives reloads, the log of this phone's rolls and
+ * the group's state from the server. The Roll pad talks to the server over socket.io only, so this class keeps that
+ * state itself (read with useSyncExternalStore) rather than in a query cache; server events make it ask again.
  */
 export class PadConnection {
   readonly socket: Socket;
   private readonly outbox: RollOutbox;
   private log: LocalRoll[];
   private notice: string | null = null;
+  private state: PadState | null;
+  private problem: string | null = null;
+  private removed = false;
+  private refreshing = false;
+  private refreshAgain = false;
   private snapshot: PadSnapshot;
   private readonly listeners = new Set<() => void>();
   private readonly cleanups: (() => void)[] = [];
 
   constructor(
-    readonly session: PadSession,
-    private readonly queryClient: QueryClient,
+    private session: PadSession,
+    socket: Socket,
   ) {
     this.log = readJson<LocalRoll[]>(logKey(session.groupId), []);
-    this.socket = openAppSocket();
+    this.state = storedPadState(session.groupId);
+    this.socket = socket;
     this.outbox = new RollOutbox(keyValueOutboxStore(localStorage, outboxKey(session.groupId)), socketOutboxTransport(this.socket, () => session.token), {
       maxInFlight: 6,
       retryDelayMs: 2_000,
@@ -83,6 +107,10 @@ export class PadConnection {
     this.snapshot = this.buildSnapshot();
     this.cleanups.push(
       this.outbox.subscribe((event) => {
+        if (event.type === "refused" && DEAD_TOKEN_CODES.includes(event.error.code)) {
+          this.forgetGroup();
+          return;
+        }
         if (event.type === "saved" && event.operation.kind === "record") this.updateRoll(event.operation.key, { state: "saved", message: undefined });
         if (event.type === "saved" && event.operation.kind === "undo") this.updateRoll(event.operation.rollId, { state: "undone" });
         if (event.type === "refused" && event.operation.kind === "record") this.updateRoll(event.operation.key, { state: "refused", message: event.error.message });
@@ -90,32 +118,38 @@ export class PadConnection {
           this.updateRoll(event.operation.rollId, { state: "saved" });
           this.notice = event.error.message;
         }
-        if (event.type === "waiting") this.notice = event.reason;
+        if (event.type === "waiting") this.notice = waitingNotice(event.reason, event.code);
         if (event.type === "saved" && this.outbox.pending().length === 0) this.notice = null;
         this.changed();
       }),
     );
-    const refresh = () => void this.queryClient.invalidateQueries({ queryKey: padStateQueryKey(session.groupId) });
     this.socket.on("connect", () => {
-      refresh();
+      void this.refresh();
       this.outbox.flush();
       this.changed();
     });
     this.socket.on("disconnect", () => this.changed());
-    this.socket.on(EVENTS.runPhase, refresh);
+    this.socket.on(EVENTS.runPhase, () => {
+      void this.refresh();
+      // Rolls kept back for a phase reason go as soon as the class is rolling again.
+      this.outbox.flush();
+    });
     this.socket.on(EVENTS.runStatus, () => {
-      refresh();
+      void this.refresh();
       this.outbox.flush();
     });
     this.socket.on(EVENTS.groupUpdate, (message: { groupId: string }) => {
-      if (message.groupId === session.groupId) refresh();
+      if (message.groupId === session.groupId) void this.refresh();
+    });
+    this.socket.on(EVENTS.groupRemoved, (message: { groupId: string }) => {
+      if (message.groupId === session.groupId) this.forgetGroup();
     });
     // A phone that slept or had the page in the background sends what it kept as soon as it is shown again.
     const onVisible = () => {
-      if (document.visibilityState !== "visible") return;
+      if (document.visibilityState !== "visible" || this.removed) return;
       if (!this.socket.connected) this.socket.connect();
       this.outbox.flush();
-      refresh();
+      void this.refresh();
     };
     document.addEventListener("visibilitychange", onVisible);
     window.addEventListener("online", onVisible);
@@ -125,20 +159,37 @@ export class PadConnection {
     });
   }
 
-  /** Asks the server for the group's state (the query function behind padStateQueryKey). */
-  async resume(): Promise<PadState> {
-    const ack: GroupResumeAck = await this.socket.emitWithAck(EVENTS.groupResume, { token: this.session.token });
-    if (!ack.ok) throw new Error(ack.error.message);
-    localStorage.setItem(stateKey(this.session.groupId), JSON.stringify(ack.state));
-    return ack.state;
-  }
-
   subscribe = (listener: () => void) => {
     this.listeners.add(listener);
     return () => this.listeners.delete(listener);
   };
 
   getSnapshot = () => this.snapshot;
+
+  /** Asks the server for the group's state again; one request at a time, and one more if asked meanwhile. */
+  async refresh(): Promise<void> {
+    if (!this.socket.connected || this.removed) return;
+    if (this.refreshing) {
+      this.refreshAgain = true;
+      return;
+    }
+    this.refreshing = true;
+    try {
+      const ack: GroupResumeAck = await this.socket.timeout(ACK_TIMEOUT_MS).emitWithAck(EVENTS.groupResume, { token: this.session.token });
+      if (ack.ok) this.acceptState(ack.state);
+      else if (DEAD_TOKEN_CODES.includes(ack.error.code)) this.forgetGroup();
+      else if (ack.error.code === "bad_token" || ack.error.code === "not_found") this.problem = ack.error.message;
+    } catch {
+      // No answer in time: the next connect, event or visibility change asks again.
+    } finally {
+      this.refreshing = false;
+    }
+    this.changed();
+    if (this.refreshAgain) {
+      this.refreshAgain = false;
+      void this.refresh();
+    }
+  }
 
   /** Stores a roll on the phone first, then sends it; it stays in the outbox until the server has committed it. */
   recordRoll(state: PadState, faces: number[][]) {
@@ -166,15 +217,18 @@ export class PadConnection {
 
   async vote(dieIndex: number): Promise<VoteCastAck> {
     if (!this.socket.connected) return { ok: false, error: { code: "server_error", message: "Not connected: the vote goes when the phone is back online. Try again in a moment." } };
-    const ack: VoteCastAck = await this.socket.emitWithAck(EVENTS.voteCast, { token: this.session.token, dieIndex });
-    if (ack.ok) this.queryClient.setQueryData<PadState>(padStateQueryKey(this.session.groupId), (current) => (current ? { ...current, vote: ack.dieIndex } : current));
+    const ack: VoteCastAck = await this.socket.timeout(ACK_TIMEOUT_MS).emitWithAck(EVENTS.voteCast, { token: this.session.token, dieIndex }).catch(noAnswer);
+    if (ack.ok && this.state) this.acceptState({ ...this.state, vote: ack.dieIndex });
+    if (!ack.ok) this.checkDeadToken(ack.error);
+    this.changed();
     return ack;
   }
 
   async chooseMatchup(matchup: number[]): Promise<MatchupChooseAck> {
     if (!this.socket.connected) return { ok: false, error: { code: "server_error", message: "Not connected: choose again when the phone is back online." } };
-    const ack: MatchupChooseAck = await this.socket.emitWithAck(EVENTS.matchupChoose, { token: this.session.token, matchup });
-    if (ack.ok) await this.queryClient.invalidateQueries({ queryKey: padStateQueryKey(this.session.groupId) });
+    const ack: MatchupChooseAck = await this.socket.timeout(ACK_TIMEOUT_MS).emitWithAck(EVENTS.matchupChoose, { token: this.session.token, matchup }).catch(noAnswer);
+    if (ack.ok) await this.refresh();
+    else this.checkDeadToken(ack.error);
     return ack;
   }
 
@@ -184,21 +238,73 @@ export class PadConnection {
     this.socket.disconnect();
   }
 
+  private acceptState(state: PadState) {
+    this.state = state;
+    this.problem = null;
+    localStorage.setItem(stateKey(this.session.groupId), JSON.stringify(state));
+    // A rename by the teacher: the phone keeps the new nickname for its next reload.
+    if (state.group.nickname !== this.session.nickname) {
+      this.session = { ...this.session, nickname: state.group.nickname };
+      if (storedPadSession()?.token === this.session.token) storePadSession(this.session);
+    }
+  }
+
+  private checkDeadToken(error: EventError) {
+    if (DEAD_TOKEN_CODES.includes(error.code)) this.forgetGroup();
+  }
+
+  /** The teacher removed the group: nothing it keeps can be stored any more, so the phone forgets the group entirely. */
+  private forgetGroup() {
+    if (this.removed) return;
+    this.removed = true;
+    this.outbox.stop();
+    if (storedPadSession()?.token === this.session.token) storePadSession(null);
+    for (const key of [stateKey(this.session.groupId), logKey(this.session.groupId), outboxKey(this.session.groupId)]) localStorage.removeItem(key);
+    this.socket.disconnect();
+    this.changed();
+  }
+
   private updateRoll(id: string, change: Partial<LocalRoll>) {
     this.log = this.log.map((entry) => (entry.id === id ? { ...entry, ...change } : entry));
     this.persistLog();
   }
 
   private persistLog() {
-    localStorage.setItem(logKey(this.session.groupId), JSON.stringify(this.log));
+    if (!this.removed) localStorage.setItem(logKey(this.session.groupId), JSON.stringify(this.log));
   }
 
   private buildSnapshot(): PadSnapshot {
-    return { connected: this.socket.connected, waiting: this.outbox.pending().filter((entry) => entry.kind === "record").length, log: this.log, notice: this.notice };
+    return {
+      connected: this.socket.connected,
+      waiting: this.removed ? 0 : this.outbox.pending().filter((entry) => entry.kind === "record").length,
+      log: this.log,
+      notice: this.notice,
+      state: this.state,
+      problem: this.problem,
+      removed: this.removed,
+    };
   }
 
   private changed() {
     this.snapshot = this.buildSnapshot();
     for (const listener of this.listeners) listener();
   }
+}
+
+/**
+ * Opens a group's connection. socket.io's client loads here, after the first screen, so the code and nickname forms
+ * come up without it (the service worker keeps its chunk for a reload offline).
+ */
+export async function openPadConnection(session: PadSession): Promise<PadConnection> {
+  const { openAppSocket } = await import("@/lib/socket");
+  return new PadConnection(session, openAppSocket());
+}
+
+const noAnswer = (): { ok: false; error: EventError } => ({ ok: false, error: { code: "server_error", message: "No answer from the class run yet. Try again in a moment." } });
+
+/** What the pad says about rolls kept back: a phase reason is not a problem, just a wait. */
+function waitingNotice(reason: string, code: string | undefined): string {
+  if (code === "not_roll_phase") return "Rolls kept on this phone go when the class rolls again.";
+  if (code === "run_paused") return "The run is paused: your rolls are kept on this phone.";
+  return reason;
 }

@@ -1,4 +1,5 @@
-import { RETRYABLE_ERROR_CODES, type EventError, type RollPayload, type RollRecordAck, type RollUndoAck } from "@shared/events";
+import { RETRYABLE_ERROR_CODES, type EventError, type EventErrorCode } from "@shared/event-names";
+import type { RollPayload, RollRecordAck, RollUndoAck } from "@shared/events";
 
 /** One operation waiting for the server: a roll to record, or an undo of one. */
 export type OutboxOperation = { kind: "record"; key: string; roll: RollPayload } | { kind: "undo"; key: string; rollId: string };
@@ -19,7 +20,7 @@ export interface OutboxTransport {
 export type OutboxEvent =
   | { type: "saved"; operation: OutboxOperation; duplicate: boolean }
   | { type: "refused"; operation: OutboxOperation; error: EventError }
-  | { type: "waiting"; operation: OutboxOperation; reason: string }
+  | { type: "waiting"; operation: OutboxOperation; reason: string; code?: EventErrorCode }
   | { type: "changed" };
 
 /** Keeps operations in a store under one key, as JSON (the phone passes localStorage; tests pass a Map). */
@@ -134,7 +135,7 @@ export class RollOutbox {
           this.emit({ type: "saved", operation, duplicate: "duplicate" in ack && ack.duplicate === true });
         } else if (RETRYABLE_ERROR_CODES.includes(ack.error.code)) {
           this.blockedUntil = Date.now() + (ack.error.retryAfterMs ?? this.options.retryDelayMs ?? 2_000);
-          this.emit({ type: "waiting", operation, reason: ack.error.message });
+          this.emit({ type: "waiting", operation, reason: ack.error.message, code: ack.error.code });
         } else {
           this.remove(operation.key);
           this.emit({ type: "refused", operation, error: ack.error });

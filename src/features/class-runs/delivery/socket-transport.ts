@@ -1,5 +1,6 @@
 import type { Socket } from "socket.io-client";
-import { EVENTS, type RollRecordAck, type RollUndoAck } from "@shared/events";
+import { EVENTS } from "@shared/event-names";
+import type { RollRecordAck, RollUndoAck } from "@shared/events";
 import type { OutboxTransport } from "./roll-outbox";
 
 /** Milliseconds to wait for an acknowledgement before the outbox counts the operation as not arrived (and keeps it). */

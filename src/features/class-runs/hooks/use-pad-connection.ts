@@ -1,37 +1,40 @@
-import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useState, useSyncExternalStore } from "react";
-import { PadConnection, padStateQueryKey, storedPadState, type PadSession, type PadSnapshot } from "../delivery/pad-connection";
+import { openPadConnection, storedPadState, storedWaitingCount, type PadConnection, type PadSession, type PadSnapshot } from "../delivery/pad-connection";
 
-const idle: PadSnapshot = { connected: false, waiting: 0, log: [], notice: null };
 const noSubscription = () => () => undefined;
 
-/** The phone's link to its group (socket, outbox, log) and the group's state from the server, kept live. */
-export function usePadConnection(session: PadSession | null) {
-  const queryClient = useQueryClient();
+/** The phone's link to its group (socket, outbox, log) and the group's state, kept live by server events. */
+export function usePadConnection(session: PadSession) {
   const [connection, setConnection] = useState<PadConnection | null>(null);
+  // Before the connection opens (the first paint after a reload, perhaps offline), show what the phone kept.
+  const [kept] = useState<PadSnapshot>(() => ({
+    connected: false,
+    waiting: storedWaitingCount(session.groupId),
+    log: [],
+    notice: null,
+    state: storedPadState(session.groupId),
+    problem: null,
+    removed: false,
+  }));
 
   useEffect(() => {
-    if (!session) return;
-    const opened = new PadConnection(session, queryClient);
-    setConnection(opened);
+    let opened: PadConnection | null = null;
+    let gone = false;
+    void openPadConnection(session).then((connection) => {
+      if (gone) connection.close();
+      else {
+        opened = connection;
+        setConnection(connection);
+      }
+    });
     return () => {
-      opened.close();
+      gone = true;
+      opened?.close();
       setConnection(null);
     };
     // A new token is a new group; the same token keeps the same connection.
-  }, [session?.token, queryClient]);
+  }, [session.token]);
 
-  const snapshot = useSyncExternalStore(connection?.subscribe ?? noSubscription, connection?.getSnapshot ?? (() => idle));
-  const groupId = session?.groupId ?? "none";
-  const state = useQuery({
-    queryKey: padStateQueryKey(groupId),
-    queryFn: () => connection!.resume(),
-    enabled: connection !== null,
-    initialData: () => (session ? storedPadState(session.groupId) : undefined),
-    initialDataUpdatedAt: 0,
-    staleTime: 5_000,
-    retry: 3,
-    retryDelay: 1_500,
-  });
-  return { connection, snapshot, state };
+  const snapshot = useSyncExternalStore(connection?.subscribe ?? noSubscription, connection?.getSnapshot ?? (() => kept));
+  return { connection, snapshot };
 }
