@@ -1,4 +1,5 @@
-import { createServer } from "node:http";
+import { createServer, type IncomingMessage } from "node:http";
+import proxyAddr from "proxy-addr";
 import { createApp, type AppOptions } from "./app";
 import { attachRealtime } from "./realtime/attach-realtime";
 
@@ -7,5 +8,11 @@ export function createHttpServer(options: AppOptions = {}) {
   const app = createApp(options);
   const server = createServer(app);
   const io = attachRealtime(server);
+  // Sockets read the client's address with the app's own "trust proxy" rule, so X-Forwarded-For counts only from TRUST_PROXY.
+  const trust = app.get("trust proxy fn") as (address: string, hop: number) => boolean;
+  io.use((socket, next) => {
+    socket.data.address = proxyAddr(socket.request as IncomingMessage, trust);
+    next();
+  });
   return { app, server, io };
 }

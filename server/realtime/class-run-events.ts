@@ -146,16 +146,9 @@ export async function drainRolls(io: Server): Promise<void> {
   await drainers.get(io)?.();
 }
 
-/**
- * The address a socket connected from: the X-Forwarded-For client when the connection comes through a proxy on this
- * machine (as Express's "trust proxy: loopback" reads it), else the peer address.
- */
+/** The address a socket connected from, as the app's "trust proxy" rule (TRUST_PROXY) reads it (see http-server.ts). */
 export function socketAddress(socket: Socket): string {
-  const peer = socket.handshake.address;
-  const forwarded = socket.handshake.headers["x-forwarded-for"];
-  const loopback = peer === "127.0.0.1" || peer === "::1" || peer === "::ffff:127.0.0.1";
-  if (loopback && typeof forwarded === "string" && forwarded.trim()) return forwarded.split(",").at(-1)!.trim();
-  return peer;
+  return typeof socket.data.address === "string" ? socket.data.address : socket.handshake.address;
 }
 
 /** `rate_limited` with the wait, in words and in `retryAfterMs`. */

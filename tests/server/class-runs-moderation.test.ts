@@ -33,7 +33,8 @@ let teacherEmail: string;
 const sockets: Socket[] = [];
 
 beforeAll(async () => {
-  app = await startTestApp();
+  // Behind a pretend proxy on loopback, so each test phone can come from its own school address (X-Forwarded-For).
+  app = await startTestApp({ trustProxy: ["loopback"] });
   department = await createDepartment(app.baseUrl, "room-moderation", 1);
   teacher = department.teachers[0].agent;
   teacherEmail = department.teachers[0].email;
