@@ -12,6 +12,7 @@ export type RollAllowanceAnswer = { allowed: true } | { allowed: false; retryAft
  */
 export class RollAllowance {
   private readonly leases = new Map<string, Lease>();
+  private readonly pending = new Map<string, Promise<void>>();
 
   constructor(
     private readonly limiter: RateLimiterAbstract,
@@ -30,11 +31,29 @@ export class RollAllowance {
     return undefined;
   }
 
-  /** Takes a lease from the shared store, then answers for this roll. */
+  /**
+   * Takes a lease from the shared store, then answers for this roll. One lease request per group is in flight at a
+   * time: rolls that arrive together wait for it and spend its points, instead of each taking a lease of their own.
+   */
   async take(groupId: string): Promise<RollAllowanceAnswer> {
-    const local = this.takeLocally(groupId);
-    if (local) return local;
+    for (;;) {
+      const local = this.takeLocally(groupId);
+      if (local) return local;
+      const inFlight = this.pending.get(groupId);
+      if (!inFlight) break;
+      await inFlight;
+    }
     if (this.leases.size > 10_000) this.forgetIdle();
+    const request = this.requestLease(groupId);
+    this.pending.set(groupId, request.then(() => undefined));
+    try {
+      return await request;
+    } finally {
+      this.pending.delete(groupId);
+    }
+  }
+
+  private async requestLease(groupId: string): Promise<RollAllowanceAnswer> {
     try {
       await this.limiter.consume(groupId, this.leaseSize);
       const lease = this.leases.get(groupId) ?? { left: 0, blockedUntil: 0 };
