@@ -42,6 +42,8 @@ export type { RandomSource } from "./seeded-random";
 export { expectedPoints, expectedWins, SERIES_GAMES_MAX, seriesOutcome, seriesOutcomeForDice } from "./series";
 export type { SeriesOutcome } from "./series";
 export { simpleCycles } from "./simple-cycles";
+export { STRONGEST_CYCLE_VERTICES_MAX, strongestHamiltonianCycle } from "./strongest-hamiltonian-cycle";
+export type { StrongestHamiltonianCycle } from "./strongest-hamiltonian-cycle";
 export type { DirectedGraph, SimpleCycles } from "./simple-cycles";
 export { matchupSimulation, SIMULATION_ROLLS_MAX } from "./simulation";
 export type { MatchupSimulation, SimulatedRoll } from "./simulation";
