@@ -4,7 +4,6 @@ import { askedMatchups, collapseEquivalentSets } from "@shared/set-finder/equiva
 import { setKey } from "@shared/set-finder/ranking";
 import { searchDiceSets } from "@shared/set-finder/search-dice-sets";
 import { naiveEnumeration } from "../../../scripts/bench/naive";
-import { bruteForceSets } from "./brute-force";
 
 const request = (input: Partial<SetFinderRequestInput>): SetFinderRequest =>
   setFinderRequestSchema.parse({

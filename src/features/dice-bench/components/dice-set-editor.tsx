@@ -5,7 +5,7 @@ import { useQueryClient } from "@tanstack/react-query";
 import { useNavigate } from "react-router-dom";
 import type { z } from "zod";
 import { SET_SIZE_MAX, SET_SIZE_MIN } from "@shared/probability/index";
-import { diePalette, diceSetInputSchema, type DiceSet, type DiceSetInput } from "@shared/schemas/dice-sets";
+import { diePalette, diceSetInputSchema, type DiceSet, type DiceSetInput, paletteEntryForName } from "@shared/schemas/dice-sets";
 import { DieSwatch } from "@/components/dice/die-swatch";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -312,20 +312,31 @@ function PaletteField({
     .filter((_, other) => other !== index)
     .map((die) => die.colour)
     .join(",");
+  const choose = (choice: { colour: string; pattern: string }) => {
+    setValue(`dice.${index}.colour`, choice.colour, { shouldDirty: true, shouldValidate: true });
+    setValue(`dice.${index}.pattern`, choice.pattern, { shouldDirty: true, shouldValidate: true });
+  };
+  const asked = paletteEntryForName(dice?.[index]?.name ?? "");
   return (
-    <MemoPalettePicker
-      dieLabel={`die ${index + 1}`}
-      colour={colour}
-      usedByOthers={usedByOthers}
-      onChange={(choice) => {
-        setValue(`dice.${index}.colour`, choice.colour, { shouldDirty: true, shouldValidate: true });
-        setValue(`dice.${index}.pattern`, choice.pattern, { shouldDirty: true, shouldValidate: true });
-      }}
-    />
+    <>
+      {asked !== null && asked.colour !== colour && (
+        <div className="flex flex-wrap items-center gap-2 rounded-lg border-2 border-dashed border-line bg-white px-3 py-2 text-sm" data-testid={`colour-suggestion-${index}`}>
+          <DieSwatch colour={asked.colour} pattern={asked.pattern} className="h-6 w-6" />
+          <span>
+            The name asks for {asked.colour}: use {asked.colour}, {asked.pattern}?
+          </span>
+          <Button type="button" variant="secondary" onClick={() => choose(asked)}>
+            Use {asked.colour}
+            <span className="sr-only"> for die {index + 1}</span>
+          </Button>
+        </div>
+      )}
+      <MemoPalettePicker dieLabel={`die ${index + 1}`} colour={colour} usedByOthers={usedByOthers} onChange={choose} />
+    </>
   );
 }
 
-// Typing faces re-renders PaletteField, but the eight swatches only redraw when a colour choice changes.
+// Typing faces re-renders PaletteField, but the palette's swatches only redraw when a colour choice changes.
 const MemoPalettePicker = memo(
   function MemoPalettePicker(props: { dieLabel: string; colour: string; usedByOthers: string; onChange: (choice: { colour: string; pattern: string }) => void }) {
     return <PalettePicker {...props} usedByOthers={new Set(props.usedByOthers.split(","))} />;
