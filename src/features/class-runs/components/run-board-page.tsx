@@ -14,6 +14,7 @@ import { PooledMatchups } from "./pooled-matchups";
 import { RunStatusBadge } from "./run-status-badge";
 import { VirtualClassForm } from "./virtual-class-form";
 import { VotesVersusTruth } from "./votes-versus-truth";
+import { formatCount, formatDateTime } from "@/lib/format";
 
 export function tallyLabel(tally: RunTally) {
   return `${tally.tally === 1 ? "First tally" : `Tally ${tally.tally} (Twist)`}: ${tally.dicePerPlayer === 2 ? "two dice each" : "one die each"}, ${tally.players === 3 ? "three players" : "two players"}`;
@@ -49,7 +50,7 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
       )}
       <p className="text-ink-soft" data-testid="pooled-total">
         {pooled.totals.rolls} rolls from {pooled.totals.groups} {pooled.totals.groups === 1 ? "group" : "groups"}
-        {snapshot.undoneRolls > 0 ? ` · ${snapshot.undoneRolls} undone rolls left out` : ""}
+        {snapshot.undoneRolls > 0 ? ` · ${formatCount(snapshot.undoneRolls, "undone roll")} left out` : ""}
       </p>
       <PooledMatchups pooled={pooled} />
     </div>
@@ -106,7 +107,7 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
             </section>
           ) : (
             <Alert tone="info" title="This run is closed">
-              It took its last roll{run.closedAt ? ` on ${new Date(run.closedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}. The results stay here.
+              It took its last roll{run.closedAt ? ` on ${formatDateTime(run.closedAt)}` : ""}. The results stay here.
             </Alert>
           )}
           <section aria-labelledby="votes-heading" className="rounded-2xl border-2 border-line bg-shell p-4">

@@ -1,4 +1,4 @@
-import { useMemo, useState, type ReactNode } from "react";
+import { useMemo, useRef, useState, type ReactNode } from "react";
 import { Controller, useFieldArray, useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useQueryClient } from "@tanstack/react-query";
@@ -17,6 +17,9 @@ import {
   type LessonStatus,
 } from "@shared/schemas/lessons";
 import { Alert } from "@/components/ui/alert";
+import { DraftOffer } from "@/components/ui/draft-offer";
+import { LeavePageDialog } from "@/components/ui/leave-page-dialog";
+import { SavedToast } from "@/components/ui/saved-toast";
 import { Button } from "@/components/ui/button";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { LinkButton } from "@/components/ui/link-button";
@@ -25,6 +28,9 @@ import { SelectField } from "@/components/ui/select-field";
 import { TextArea } from "@/components/ui/text-area";
 import { TextField } from "@/components/ui/text-field";
 import { ApiRequestError } from "@/lib/api-client";
+import { draftKey, useBrowserDraft } from "@/lib/browser-draft";
+import { formatTime } from "@/lib/format";
+import { useUnsavedChangesGuard } from "@/lib/unsaved-changes";
 import { useCreateLesson } from "../api/create-lesson";
 import { lessonQueryOptions, type LessonDetail } from "../api/get-lesson";
 import { useUsableDiceSets } from "../api/list-usable-dice-sets";
@@ -77,8 +83,29 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
   const values = useWatch({ control });
   const prompts = useWatch({ control, name: "discussionPrompts" }) ?? [];
 
-  const ownSets = sets.data?.sets.filter((set) => set.isOwner) ?? [];
-  const sharedSets = sets.data?.sets.filter((set) => !set.isOwner) ?? [];
+  // Set just before moving on after a save, so the guard lets that one navigation through.
+  const leavingAfterSave = useRef(false);
+  const blocker = useUnsavedChangesGuard(isDirty && !readOnly, leavingAfterSave);
+  const draft = useBrowserDraft<FormValues>({
+    key: draftKey("lesson", saved?.id ?? null),
+    values: values as FormValues,
+    dirty: isDirty && !readOnly,
+    baseVersion: saved ? baseVersion : null,
+    parse: (value) => (value !== null && typeof value === "object" && Array.isArray((value as FormValues).phases) ? (value as FormValues) : null),
+  });
+  const draftDiffers = !readOnly && draft.found !== null && JSON.stringify(draft.found.values) !== JSON.stringify(initial);
+  const restoreDraft = () => {
+    if (draft.found === null) return;
+    reset(draft.found.values, { keepDefaultValues: true });
+    if (saved && draft.found.baseVersion !== null) setBaseVersion(draft.found.baseVersion);
+    draft.dismiss();
+  };
+  const [toast, setToast] = useState<{ message: string | null; stamp: number }>({ message: null, stamp: 0 });
+
+  // A set can reach the list twice (e.g. the teacher's own set also shared with the department); list each once.
+  const usable = [...new Map((sets.data?.sets ?? []).map((set) => [set.id, set])).values()];
+  const ownSets = usable.filter((set) => set.isOwner);
+  const sharedSets = usable.filter((set) => !set.isOwner);
   const chosenId = values.diceSetId ?? null;
   const chosenDice: SetDie[] | null = useMemo(() => {
     if (chosenId === null) return null;
@@ -98,13 +125,18 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
     try {
       if (!saved) {
         const { lesson } = await create.mutateAsync(input);
-        navigate(`/app/lessons/${lesson.id}`, { replace: true, state: { notice: "Lesson created." } });
+        draft.saved();
+        leavingAfterSave.current = true;
+        navigate(`/app/lessons/${lesson.id}`, { replace: true, state: { notice: `Lesson created at ${formatTime(lesson.updatedAt)}.` } });
         return;
       }
       const { lesson } = await update.mutateAsync({ id: saved.id, update: { ...input, version: baseVersion } });
+      draft.saved();
       setBaseVersion(lesson.version);
       reset(lessonInputOf(lesson));
-      setSavedMessage(`Saved (version ${lesson.version}).`);
+      const note = `Saved at ${formatTime(lesson.updatedAt)} (version ${lesson.version}).`;
+      setSavedMessage(note);
+      setToast({ message: note, stamp: Date.now() });
     } catch (error) {
       if (error instanceof ApiRequestError) {
         for (const [field, messages] of Object.entries(error.fields)) setError(field as keyof FormValues, { message: messages[0] });
@@ -161,7 +193,10 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
           </>
         }
       />
+      <LeavePageDialog blocker={blocker} what="This lesson" onLeave={draft.discard} />
+      <SavedToast message={toast.message} stamp={toast.stamp} />
       <div className="mb-4 flex flex-col gap-3" data-slot="lesson-header-notes">
+        {draftDiffers && draft.found && <DraftOffer keptAt={draft.found.keptAt} what="this lesson" onRestore={restoreDraft} onDiscard={draft.discard} />}
         {saved?.fromTemplateId && (
           <Alert tone="info">Copied from a Department shelf template (version {saved.fromTemplateVersion ?? "?"}).</Alert>
         )}
@@ -171,8 +206,8 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
           </Alert>
         )}
         {savedMessage && !isDirty && (
-          <p role="status" className="font-bold text-tide-dark">
-            {savedMessage}
+          <p role="status" className="rounded-lg border-l-8 border-tide bg-tide-light px-4 py-2 font-bold">
+            ✓ {savedMessage}
           </p>
         )}
         {stale && (
