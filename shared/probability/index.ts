@@ -27,6 +27,8 @@ export {
 } from "./die";
 export type { DieFaces } from "./die";
 export { fractionToDecimal, fractionToNumber, fractionToPercent, fractionToString } from "./format";
+export { groupedTreeDiagram } from "./grouped-tree";
+export type { GroupedTree, GroupedTreeBand } from "./grouped-tree";
 export { logGamma, regularizedGammaLower, regularizedGammaUpper } from "./incomplete-gamma";
 export { compareDice, matchupCountsFromDistributions, matchupResultFromCounts } from "./matchup";
 export type { MatchupCounts, MatchupResult } from "./matchup";

@@ -2,8 +2,7 @@ import { useState } from "react";
 import { Link } from "react-router-dom";
 import type { PooledMatchup } from "@shared/class-results/pooled-results";
 import { runPhaseHints, type BoardSnapshot } from "@shared/schemas/class-runs";
-import { treeDiagram } from "@shared/probability/index";
-import { TreeDiagramFigure } from "@/components/tree-diagram";
+import { MatchupTree } from "@/components/tree-diagram";
 import { ApiRequestError } from "@/lib/api-client";
 import { useRunBoard } from "../api/get-run-board";
 import { useLiveBoard } from "../hooks/use-live-board";
@@ -54,12 +53,7 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
             </button>
           )}
         </div>
-        <TreeDiagramFigure
-          tree={treeDiagram(run.dice[matchup[0]].faces, run.dice[matchup[1]].faces, { dicePerPlayer: proved?.dicePerPlayer ?? current.tally.dicePerPlayer })}
-          first={run.dice[matchup[0]].name}
-          second={run.dice[matchup[1]].name}
-          look="projector"
-        />
+        <MatchupTree first={run.dice[matchup[0]]} second={run.dice[matchup[1]]} dicePerPlayer={proved?.dicePerPlayer ?? current.tally.dicePerPlayer} look="projector" />
       </div>
     );
   } else if (run.phase === "Pool" || run.phase === "Reflect" || run.status === "closed") {
