@@ -286,7 +286,7 @@ export function GroupedTreeFigure({
         </text>
         <circle cx={x.root} cy={rootY} r={size(5)} fill={colours.ink} />
         {groups.map(({ middle, leaves, y }) => {
-          const label = along(x.root, rootY, x.middle - half, y, 0.6);
+          const label = along(x.root, rootY, x.middle - half, y, 0.8);
           return (
             <g key={middle.key}>
               <line x1={x.root} y1={rootY} x2={x.middle - half} y2={y} stroke={colours.soft} strokeWidth="1.5" />
@@ -303,9 +303,12 @@ export function GroupedTreeFigure({
                 return (
                   <g key={leaf.key} data-outcome={leaf.outcome}>
                     <line x1={x.middle + half} y1={y} x2={x.leaf - half} y2={leafY} stroke={colours.soft} strokeWidth="1" />
-                    <text x={leafLabel.x} y={leafLabel.y - 3} textAnchor="middle" fontSize={size(10)} fill={colours.soft} {...haloText}>
-                      {fractionToString(leaf.chance)}
-                    </text>
+                    {/* A long conditional chance would cover its neighbours; the path sums beside the leaves stay exact. */}
+                    {fractionToString(leaf.chance).length <= 7 && (
+                      <text x={leafLabel.x} y={leafLabel.y - 3} textAnchor="middle" fontSize={size(10)} fill={colours.soft} {...haloText}>
+                        {fractionToString(leaf.chance)}
+                      </text>
+                    )}
                     <rect x={x.leaf - half} y={leafY - size(10)} width={half * 2} height={size(20)} rx="4" fill={won ? colours.winFill : colours.leafFill} stroke={colours.ink} strokeWidth="1.25" />
                     <text x={x.leaf} y={leafY + size(4.5)} textAnchor="middle" fontSize={size(11)} fontWeight="700" fill={won ? colours.winInk : colours.ink}>
                       {leaf.label}
