@@ -167,7 +167,7 @@ describe("the Dice bench and the Set finder in chromium", () => {
     await page.getByRole("button", { name: "Save dice set" }).first().click();
     await page.waitForURL(/\/app\/bench\/[0-9a-f-]{36}$/);
     savedSetId = page.url().split("/").pop()!;
-    await page.getByRole("status").filter({ hasText: "Saved." }).waitFor();
+    await page.getByRole("status").filter({ hasText: /Saved at \d\d:\d\d\./ }).waitFor();
     const stored = (await (await page.request.get(`${appUrl}/api/dice-sets/${savedSetId}`)).json()) as DiceSet;
     expect(stored.dice.map((die) => ({ name: die.name, faces: die.faces }))).toEqual(trio);
   });
