@@ -299,16 +299,12 @@ export function GroupedTreeFigure({
               </text>
               {leaves.map(({ leaf, y: leafY }) => {
                 const won = leaf.outcome === "win";
-                const leafLabel = along(x.middle + half, y, x.leaf - half, leafY, 0.7);
                 return (
                   <g key={leaf.key} data-outcome={leaf.outcome}>
                     <line x1={x.middle + half} y1={y} x2={x.leaf - half} y2={leafY} stroke={colours.soft} strokeWidth="1" />
-                    {/* A long conditional chance would cover its neighbours; the path sums beside the leaves stay exact. */}
-                    {fractionToString(leaf.chance).length <= 7 && (
-                      <text x={leafLabel.x} y={leafLabel.y - 3} textAnchor="middle" fontSize={size(10)} fill={colours.soft} {...haloText}>
-                        {fractionToString(leaf.chance)}
-                      </text>
-                    )}
+                    <title>
+                      {middle.label}, {leaf.label}: {fractionToString(middle.chance)} × {fractionToString(leaf.chance)} = {fractionToString(leaf.path)}
+                    </title>
                     <rect x={x.leaf - half} y={leafY - size(10)} width={half * 2} height={size(20)} rx="4" fill={won ? colours.winFill : colours.leafFill} stroke={colours.ink} strokeWidth="1.25" />
                     <text x={x.leaf} y={leafY + size(4.5)} textAnchor="middle" fontSize={size(11)} fontWeight="700" fill={won ? colours.winInk : colours.ink}>
                       {leaf.label}
@@ -329,7 +325,7 @@ export function GroupedTreeFigure({
           grouping === "total"
             ? `${first}'s totals in ${tree.bands.length} bands, each band's paths added up by outcome for ${first}`
             : `by outcome for ${first}, each outcome's paths added up by band of ${first}'s total`
-        }. Each P(paths) is the exact sum of the paths it stands for.`}
+        }. Each P(paths) is the exact sum of the paths it stands for${look === "screen" ? " (hover or focus a leaf for its branch chances)" : ""}.`}
       </figcaption>
       <ul className={style.classes.totals} data-testid="tree-totals">
         <li>

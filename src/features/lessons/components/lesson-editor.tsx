@@ -29,7 +29,7 @@ import { TextArea } from "@/components/ui/text-area";
 import { TextField } from "@/components/ui/text-field";
 import { ApiRequestError } from "@/lib/api-client";
 import { draftKey, useBrowserDraft } from "@/lib/browser-draft";
-import { formatTime } from "@/lib/format";
+import { formatDateTime, formatTime } from "@/lib/format";
 import { useUnsavedChangesGuard } from "@/lib/unsaved-changes";
 import { useCreateLesson } from "../api/create-lesson";
 import { lessonQueryOptions, type LessonDetail } from "../api/get-lesson";
@@ -153,10 +153,16 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
     setSavedMessage(`Loaded the saved version ${fresh.lesson.version}.`);
   };
 
+  const listed = [
+    ...ownSets.map((set) => ({ set, label: `${set.name} (yours, ${set.dice.length} dice)` })),
+    ...sharedSets.map((set) => ({ set, label: `${set.name} (shared by ${set.ownerName}, ${set.dice.length} dice)` })),
+  ];
+  // Two sets that would read the same (e.g. two saved Set finder results) are told apart by when they were last saved.
+  const labelCount = new Map<string, number>();
+  for (const entry of listed) labelCount.set(entry.label, (labelCount.get(entry.label) ?? 0) + 1);
   const setOptions = [
     { value: "", label: "No dice set yet" },
-    ...ownSets.map((set) => ({ value: set.id, label: `${set.name} (yours, ${set.dice.length} dice)` })),
-    ...sharedSets.map((set) => ({ value: set.id, label: `${set.name} (shared by ${set.ownerName}, ${set.dice.length} dice)` })),
+    ...listed.map(({ set, label }) => ({ value: set.id, label: (labelCount.get(label) ?? 0) > 1 ? `${label}, saved ${formatDateTime(set.updatedAt)}` : label })),
   ];
   if (chosenId && !setOptions.some((option) => option.value === chosenId)) {
     const name = saved?.diceSetName ?? detail?.diceSet?.name ?? "This lesson's set";
