@@ -36,6 +36,11 @@ describe("nothing lost in the editors, in chromium", () => {
     const lesson = await agent.post("/api/lessons", { ...emptyLessonInput(), title: `Auk lesson ${tag}`, diceSetId: set.id });
     expect(lesson.status).toBe(201);
     lessonId = (lesson.body as { lesson: { id: string } }).lesson.id;
+    // Two sets that would read alike in the lesson's list (same name, same number of dice).
+    for (let copy = 0; copy < 2; copy += 1) {
+      const twin = await agent.post("/api/dice-sets", { name: `Skerry pair ${tag}`, description: "", visibility: "private", dice: trio });
+      expect(twin.status).toBe(201);
+    }
     browser = await openBrowser(viewports.laptop);
     page = await signInThroughUi(browser.context, appUrl, teacher.email, demoPassword);
   });
@@ -116,7 +121,7 @@ describe("nothing lost in the editors, in chromium", () => {
     await suggestion.waitFor();
     await screenshot(page, "editors-colour-suggestion-laptop");
     await suggestion.getByRole("button", { name: "Use red for die 1" }).click();
-    await expect(page.getByRole("radio", { name: "red, diamonds" }).first().isChecked()).resolves.toBe(true);
+    await page.getByText("Colour and pattern of die 1: red, diamonds").waitFor();
     await expect(suggestion.count()).resolves.toBe(0);
 
     await page.getByRole("button", { name: "Duplicate", exact: true }).click();
@@ -127,6 +132,11 @@ describe("nothing lost in the editors, in chromium", () => {
 
   it("asks before leaving an edited lesson and confirms its save", async () => {
     await page.goto(`${appUrl}/app/lessons/${lessonId}`);
+    const setList = page.getByLabel("Dice set", { exact: true });
+    await expect.poll(() => setList.locator("option").count()).toBeGreaterThan(3);
+    const labels = await setList.locator("option").allTextContents();
+    expect(new Set(labels).size).toBe(labels.length);
+    expect(labels.filter((label) => label.startsWith(`Skerry pair ${tag}`))).toHaveLength(2);
     await page.getByLabel("Title", { exact: true }).fill(`Auk lesson ${tag}, edited`);
     await navLink(page, "Dice bench").click();
     const dialog = page.getByRole("dialog", { name: "Leave without saving?" });

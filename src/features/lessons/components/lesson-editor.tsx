@@ -160,9 +160,16 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
   // Two sets that would read the same (e.g. two saved Set finder results) are told apart by when they were last saved.
   const labelCount = new Map<string, number>();
   for (const entry of listed) labelCount.set(entry.label, (labelCount.get(entry.label) ?? 0) + 1);
+  const dated = listed.map(({ set, label }) => ({ value: set.id, label: (labelCount.get(label) ?? 0) > 1 ? `${label}, saved ${formatDateTime(set.updatedAt)}` : label }));
+  // Saved in the same minute as well: number them.
+  const seen = new Map<string, number>();
   const setOptions = [
     { value: "", label: "No dice set yet" },
-    ...listed.map(({ set, label }) => ({ value: set.id, label: (labelCount.get(label) ?? 0) > 1 ? `${label}, saved ${formatDateTime(set.updatedAt)}` : label })),
+    ...dated.map((option) => {
+      const nth = (seen.get(option.label) ?? 0) + 1;
+      seen.set(option.label, nth);
+      return nth === 1 ? option : { ...option, label: `${option.label} (${nth})` };
+    }),
   ];
   if (chosenId && !setOptions.some((option) => option.value === chosenId)) {
     const name = saved?.diceSetName ?? detail?.diceSet?.name ?? "This lesson's set";
