@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useRef, useState } from "react";
+import { useCallback, useEffect, useState } from "react";
 
 /** Every draft key starts with this, so signing out can clear them all. */
 const DRAFT_PREFIX = "outroll:draft:";
@@ -65,34 +65,12 @@ export function clearAllDrafts(): void {
 }
 
 /**
- * An editor's browser draft: while `dirty`, the current values are written (shortly after each change); `found` is the draft
- * that was there when the editor opened, offered for restoring until the teacher restores or discards it. Call `saved()` after
- * a successful save.
+ * The draft an editor found in this browser when it opened, offered for restoring until the teacher restores (`dismiss`) or
+ * discards it. Call `saved()` after a successful save. Writing drafts is `useDraftWriter`'s job, kept apart so that only the
+ * component that watches every keystroke re-renders on one.
  */
-export function useBrowserDraft<T>({
-  key,
-  values,
-  dirty,
-  baseVersion,
-  parse,
-}: {
-  key: string;
-  values: T;
-  dirty: boolean;
-  baseVersion: number | null;
-  parse: (values: unknown) => T | null;
-}) {
+export function useBrowserDraft<T>({ key, parse }: { key: string; parse: (values: unknown) => T | null }) {
   const [found, setFound] = useState(() => readDraft(key, parse));
-  const offerOpen = useRef(found !== null);
-  offerOpen.current = found !== null;
-  useEffect(() => {
-    // While a kept draft is offered, editing must not overwrite it before the teacher chooses.
-    if (offerOpen.current) return;
-    // Back to the saved values: nothing is left to recover.
-    if (!dirty) return clearDraft(key);
-    const timer = window.setTimeout(() => writeDraft(key, values, baseVersion), DRAFT_WRITE_DELAY_MS);
-    return () => window.clearTimeout(timer);
-  }, [key, values, dirty, baseVersion]);
   const dismiss = useCallback(() => setFound(null), []);
   const discard = useCallback(() => {
     clearDraft(key);
@@ -103,4 +81,18 @@ export function useBrowserDraft<T>({
     setFound(null);
   }, [key]);
   return { found, dismiss, discard, saved };
+}
+
+/**
+ * Keeps an editor's values as its browser draft: written shortly after each change while `dirty`, removed when the form is back
+ * to its saved values. While `paused` (a kept draft is being offered) nothing is written, so editing cannot overwrite it unseen.
+ */
+export function useDraftWriter<T>({ key, values, dirty, baseVersion, paused }: { key: string; values: T; dirty: boolean; baseVersion: number | null; paused: boolean }) {
+  useEffect(() => {
+    if (paused) return;
+    // Back to the saved values: nothing is left to recover.
+    if (!dirty) return clearDraft(key);
+    const timer = window.setTimeout(() => writeDraft(key, values, baseVersion), DRAFT_WRITE_DELAY_MS);
+    return () => window.clearTimeout(timer);
+  }, [key, values, dirty, baseVersion, paused]);
 }

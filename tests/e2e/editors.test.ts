@@ -126,7 +126,8 @@ describe("nothing lost in the editors, in chromium", () => {
 
     await page.getByRole("button", { name: "Duplicate", exact: true }).click();
     await page.waitForURL(`${appUrl}/app/bench/new`);
-    await expect(page.getByLabel("Set name", { exact: true }).inputValue()).resolves.toBe(`Auk ledge ${tag} (draft) (copy)`);
+    // The new page may take a moment to replace the old one after the address changes.
+    await expect.poll(() => page.getByLabel("Set name", { exact: true }).inputValue()).toBe(`Auk ledge ${tag} (draft) (copy)`);
     await expect(page.getByLabel("Die 1 name", { exact: true }).inputValue()).resolves.toBe("Red");
   });
 

@@ -26,7 +26,7 @@ import { useSetAnalysis } from "../hooks/use-set-analysis";
 import { AnalysisPanel } from "./analysis-panel";
 import { FacesField, type FacesEntry } from "./faces-field";
 import { PalettePicker } from "./palette-picker";
-import { draftKey, useBrowserDraft } from "@/lib/browser-draft";
+import { draftKey, useBrowserDraft, useDraftWriter } from "@/lib/browser-draft";
 import { formatTime } from "@/lib/format";
 import { useUnsavedChangesGuard } from "@/lib/unsaved-changes";
 
@@ -86,15 +86,13 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
   // Set just before moving on after a save, so the guard lets that one navigation through.
   const leavingAfterSave = useRef(false);
   const blocker = useUnsavedChangesGuard(isDirty, leavingAfterSave);
-  const allValues = useWatch({ control });
+  const keyOfDraft = draftKey("dice-set", saved?.id ?? null);
   const draft = useBrowserDraft<FormValues>({
-    key: draftKey("dice-set", saved?.id ?? null),
-    values: allValues as FormValues,
-    dirty: isDirty,
-    baseVersion,
+    key: keyOfDraft,
     parse: (value) => (value !== null && typeof value === "object" && Array.isArray((value as FormValues).dice) ? (value as FormValues) : null),
   });
   const draftDiffers = draft.found !== null && JSON.stringify(draft.found.values) !== JSON.stringify(initial);
+  // A first save moves to the new page, whose status line at the top (where the page opens) confirms it.
   const [toast, setToast] = useState<{ message: string | null; stamp: number }>({ message: null, stamp: 0 });
   const problems = formState.submitCount > 0 ? formProblems(errors) : [];
 
@@ -188,6 +186,7 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
           </>
         }
       />
+      <DraftWriter control={control} draftKey={keyOfDraft} dirty={isDirty} baseVersion={baseVersion} paused={draftDiffers} />
       <LeavePageDialog blocker={blocker} what="This dice set" onLeave={draft.discard} />
       <SavedToast message={toast.message} stamp={toast.stamp} />
       <div className="mb-4 flex flex-col gap-3">
@@ -361,6 +360,25 @@ function SaveProblems({ problems }: { problems: { path: string[]; message: strin
       </ul>
     </div>
   );
+}
+
+/** Keeps the form's values as the browser draft; it alone watches every field, so the editor does not re-render on each keystroke. */
+function DraftWriter({
+  control,
+  draftKey: key,
+  dirty,
+  baseVersion,
+  paused,
+}: {
+  control: Control<FormValues, unknown, DiceSetInput>;
+  draftKey: string;
+  dirty: boolean;
+  baseVersion: number | null;
+  paused: boolean;
+}) {
+  const values = useWatch({ control });
+  useDraftWriter({ key, values, dirty, baseVersion, paused });
+  return null;
 }
 
 /** The analysis, fed from the form as the teacher types; it alone re-renders on every keystroke. */

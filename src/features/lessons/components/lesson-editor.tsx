@@ -28,7 +28,7 @@ import { SelectField } from "@/components/ui/select-field";
 import { TextArea } from "@/components/ui/text-area";
 import { TextField } from "@/components/ui/text-field";
 import { ApiRequestError } from "@/lib/api-client";
-import { draftKey, useBrowserDraft } from "@/lib/browser-draft";
+import { draftKey, useBrowserDraft, useDraftWriter } from "@/lib/browser-draft";
 import { formatDateTime, formatTime } from "@/lib/format";
 import { useUnsavedChangesGuard } from "@/lib/unsaved-changes";
 import { useCreateLesson } from "../api/create-lesson";
@@ -86,20 +86,20 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
   // Set just before moving on after a save, so the guard lets that one navigation through.
   const leavingAfterSave = useRef(false);
   const blocker = useUnsavedChangesGuard(isDirty && !readOnly, leavingAfterSave);
+  const keyOfDraft = draftKey("lesson", saved?.id ?? null);
   const draft = useBrowserDraft<FormValues>({
-    key: draftKey("lesson", saved?.id ?? null),
-    values: values as FormValues,
-    dirty: isDirty && !readOnly,
-    baseVersion: saved ? baseVersion : null,
+    key: keyOfDraft,
     parse: (value) => (value !== null && typeof value === "object" && Array.isArray((value as FormValues).phases) ? (value as FormValues) : null),
   });
   const draftDiffers = !readOnly && draft.found !== null && JSON.stringify(draft.found.values) !== JSON.stringify(initial);
+  useDraftWriter({ key: keyOfDraft, values, dirty: isDirty && !readOnly, baseVersion: saved ? baseVersion : null, paused: readOnly || draftDiffers });
   const restoreDraft = () => {
     if (draft.found === null) return;
     reset(draft.found.values, { keepDefaultValues: true });
     if (saved && draft.found.baseVersion !== null) setBaseVersion(draft.found.baseVersion);
     draft.dismiss();
   };
+  // A first save moves to the new page, whose status line at the top (where the page opens) confirms it.
   const [toast, setToast] = useState<{ message: string | null; stamp: number }>({ message: null, stamp: 0 });
 
   // A set can reach the list twice (e.g. the teacher's own set also shared with the department); list each once.
