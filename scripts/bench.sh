@@ -22,6 +22,12 @@ mkdir -p "$BENCH_DATA_DIR"
 log "Probability engine"
 npx tsx scripts/bench/engine.ts
 
+log "A large tree diagram in chromium (two 60-faced dice at two dice each; the time to the next key press while it is worked out)"
+export BENCH_TREE_REPORT="$run_dir/tree-report.txt"
+: > "$BENCH_TREE_REPORT"
+bash "$(dirname "$0")/test.sh" tests/e2e/tree-responsiveness.test.ts > "$run_dir/tree-test.log" 2>&1 || { tail -20 "$run_dir/tree-test.log"; }
+cat "$BENCH_TREE_REPORT"
+
 log "Set finder"
 npx tsx scripts/bench/set-finder.ts
 

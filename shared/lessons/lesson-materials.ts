@@ -131,10 +131,7 @@ interface MainMatchups {
 function mainMatchupsOf(dice: MaterialsDie[], dicePerPlayer: number): MainMatchups {
   const analysis = analyzeSet(dice, { dicePerPlayer, cycleLimit: 500 });
   const level = analysis.levels.find((entry) => entry.dicePerPlayer === dicePerPlayer)!;
-  const strongest = level.hamiltonianCycles.reduce<(typeof level.hamiltonianCycles)[number] | null>(
-    (best, cycle) => (best === null || cycle.weakestWin.gt(best.weakestWin) ? cycle : best),
-    null,
-  );
+  const strongest = level.strongestHamiltonianCycle;
   if (strongest) {
     const order = strongest.indices;
     return { source: "cycle", order, pairs: order.map((index, position) => [index, order[(position + 1) % order.length]]) };

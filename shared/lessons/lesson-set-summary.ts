@@ -17,7 +17,7 @@ function joinSentence(parts: string[]): string {
 }
 
 function cycleSentenceOf(level: SetLevelAnalysis): string | null {
-  const cycle = level.hamiltonianCycles[0] ?? level.cycles.reduce<SetLevelAnalysis["cycles"][number] | null>(
+  const cycle = level.strongestHamiltonianCycle ?? level.cycles.reduce<SetLevelAnalysis["cycles"][number] | null>(
     (longest, entry) => (longest === null || entry.indices.length > longest.indices.length ? entry : longest),
     null,
   );

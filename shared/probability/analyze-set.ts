@@ -6,6 +6,7 @@ import { dicePerPlayerChecked } from "./die";
 import { type MatchupResult, matchupCountsFromDistributions, matchupResultFromCounts } from "./matchup";
 import { type PickAdvice, pickAdviceForThreePlayers } from "./pick-advisor";
 import { simpleCycles } from "./simple-cycles";
+import { strongestHamiltonianCycle } from "./strongest-hamiltonian-cycle";
 import { type TieRule, winProbabilitiesByTieRule } from "./tie-rule";
 import { sumCountDistribution } from "./sum-distribution";
 
@@ -58,8 +59,10 @@ export interface SetLevelAnalysis {
   cycles: DiceCycle[];
   /** False when the cycle list was cut at `cycleLimit`. */
   cyclesComplete: boolean;
-  /** Cycles that visit every die once. */
+  /** Cycles that visit every die once (among the listed cycles, so cut short with them). */
   hamiltonianCycles: DiceCycle[];
+  /** The cycle through every die whose weakest link is strongest, found without listing cycles, so never cut short; null without one. */
+  strongestHamiltonianCycle: DiceCycle | null;
   /** True when the beats graph has at least one cycle. */
   isIntransitive: boolean;
   /** True when every die is beaten by some other die: whichever die you pick, an opponent can do better. */
@@ -107,13 +110,17 @@ export interface SetAnalysis {
  * Analyses a set of 2 to 10 dice exactly: the matchup matrix, the beats graph, every simple cycle
  * (Johnson's algorithm, 1975) and the Hamiltonian ones, best counters, reversals relative to one die each,
  * and three-player pick advice. Without `dicePerPlayer` it analyses 1, 2 and 3 dice each; with it, 1 and that count.
- * Sum distributions are convolved once per (die, count) and reused.
+ * Sum distributions are convolved once per (die, count) and reused. `cycleLimit` (a whole number, at least 1) caps the cycle list;
+ * the strongest cycle through every die is searched for separately (Held–Karp) and does not depend on it.
  */
 export function analyzeSet(
   dice: { name: string; faces: number[] }[],
   options?: { dicePerPlayer?: number; cycleLimit?: number },
 ): SetAnalysis {
   const checked = diceSetChecked(dice);
+  if (options?.cycleLimit !== undefined && (!Number.isInteger(options.cycleLimit) || options.cycleLimit < 1)) {
+    throw new RangeError(`The cycle limit must be a whole number of at least 1 (got ${options.cycleLimit}).`);
+  }
   const counts = options?.dicePerPlayer === undefined ? [1, 2, 3] : [...new Set([1, dicePerPlayerChecked(options.dicePerPlayer)])].sort((x, y) => x - y);
   const cache = new Map<string, CountDistribution>();
   const distributionOf = (index: number, dicePerPlayer: number): CountDistribution => {
@@ -176,6 +183,7 @@ function setLevelAnalysis(
       .map((index, position) => matrix[index][indices[(position + 1) % indices.length]]!.win)
       .reduce((least, win) => (win.lt(least) ? win : least)),
   }));
+  const strongest = strongestHamiltonianCycle(graph.map((losers, winner) => names.map((_name, loser) => (losers.includes(loser) ? matrix[winner][loser]!.win : null))));
   const bestCounters: BestCounter[] = names.map((die, dieIndex) => {
     let counterIndex: number | null = null;
     for (let other = 0; other < size; other += 1) {
@@ -200,6 +208,7 @@ function setLevelAnalysis(
     cycles,
     cyclesComplete: found.complete,
     hamiltonianCycles: cycles.filter((cycle) => cycle.indices.length === size),
+    strongestHamiltonianCycle: strongest === null ? null : { dice: strongest.order.map((index) => names[index]), indices: strongest.order, weakestWin: strongest.weakest },
     isIntransitive: cycles.length > 0,
     everyDieIsBeaten: bestCounters.every((counter) => counter.counter !== null),
     bestCounters,

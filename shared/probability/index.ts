@@ -27,6 +27,8 @@ export {
 } from "./die";
 export type { DieFaces } from "./die";
 export { fractionToDecimal, fractionToNumber, fractionToPercent, fractionToString } from "./format";
+export { groupedTreeDiagram } from "./grouped-tree";
+export type { GroupedTree, GroupedTreeBand } from "./grouped-tree";
 export { logGamma, regularizedGammaLower, regularizedGammaUpper } from "./incomplete-gamma";
 export { compareDice, matchupCountsFromDistributions, matchupResultFromCounts } from "./matchup";
 export type { MatchupCounts, MatchupResult } from "./matchup";
@@ -42,6 +44,8 @@ export type { RandomSource } from "./seeded-random";
 export { expectedPoints, expectedWins, SERIES_GAMES_MAX, seriesOutcome, seriesOutcomeForDice } from "./series";
 export type { SeriesOutcome } from "./series";
 export { simpleCycles } from "./simple-cycles";
+export { STRONGEST_CYCLE_VERTICES_MAX, strongestHamiltonianCycle } from "./strongest-hamiltonian-cycle";
+export type { StrongestHamiltonianCycle } from "./strongest-hamiltonian-cycle";
 export type { DirectedGraph, SimpleCycles } from "./simple-cycles";
 export { matchupSimulation, SIMULATION_ROLLS_MAX } from "./simulation";
 export type { MatchupSimulation, SimulatedRoll } from "./simulation";

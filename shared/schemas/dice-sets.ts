@@ -5,6 +5,21 @@ import { diePalette } from "../dice-palette";
 
 export { diePalette };
 
+/** Words in a die's name that ask for a palette colour, beyond the colours' own names. */
+const colourWords: Record<string, DieColour> = { gray: "grey", violet: "purple", scarlet: "red", crimson: "red", navy: "blue", gold: "yellow", golden: "yellow" };
+
+/**
+ * The palette entry a die's name asks for ("Red" or "Big red die" → red, "Grey" or "Gray" → grey), matching whole words
+ * case-insensitively, the first colour word in the name winning; null when the name names no palette colour.
+ */
+export function paletteEntryForName(name: string): (typeof diePalette)[number] | null {
+  for (const word of name.toLowerCase().split(/[^a-z]+/)) {
+    const colour = colourWords[word] ?? diePalette.find((entry) => entry.colour === word)?.colour;
+    if (colour !== undefined) return diePalette.find((entry) => entry.colour === colour) ?? null;
+  }
+  return null;
+}
+
 export const dieColourSchema = z.enum(diePalette.map((entry) => entry.colour) as [string, ...string[]], {
   error: `Choose a colour from the palette: ${diePalette.map((entry) => entry.colour).join(", ")}.`,
 });

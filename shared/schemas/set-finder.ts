@@ -68,6 +68,8 @@ export const setFinderRequestSchema = z
     property: finderPropertySchema,
     /** False: no two dice share a face value, so a roll of one die each never ties. */
     allowTies: z.boolean().default(false),
+    /** True: leave out dice whose faces all show the same value (a die like 3, 3, 3, 3 hardly feels like a die in a lesson). */
+    refuseAllEqualFaces: z.boolean().default(true),
     objective: finderObjectiveSchema.default("strongest-cycle"),
     maxResults: z
       .number()
@@ -133,6 +135,8 @@ export interface FoundSet {
   figures: FoundSetFigures;
   /** Higher is better under the request's objective (see docs/user-guide.md, "The Set finder"). */
   score: number;
+  /** How many other found sets play every matchup the search asked about with the same chances, folded into this one ("and 4 variants"). */
+  variants?: number;
 }
 
 /** How far a search has got. `examined` counts candidate sets settled, whether checked one by one or ruled out together by a bound. */

@@ -80,9 +80,12 @@ export function exhaustiveSearch(request: SetFinderRequest, pool: DicePool, shif
   const largest = new Int32Array(size);
   const faceTotal = new Int32Array(size);
   const facesOf: number[][] = [];
+  // 1 for a die the request refuses: every face the same value.
+  const refused = new Uint8Array(size);
   for (let die = 0; die < size; die += 1) {
     const faces = poolDieFaces(pool, die);
     facesOf.push(faces);
+    if (request.refuseAllEqualFaces && faces[0] === faces[f - 1]) refused[die] = 1;
     largest[die] = faces[f - 1] - lowest;
     faceTotal[die] = faces.reduce((sum, face) => sum + face - lowest, 0);
   }
@@ -157,7 +160,7 @@ export function exhaustiveSearch(request: SetFinderRequest, pool: DicePool, shif
       const die = beaten[at];
       const wins = win[previous * size + die];
       if (strongest && top.full && wins * scale < top.worstStrength) break;
-      if (die <= first) continue;
+      if (die <= first || refused[die] === 1) continue;
       let repeated = false;
       for (let chosen = 1; chosen < depth; chosen += 1) if (order[chosen] === die) repeated = true;
       if (repeated) continue;
@@ -187,7 +190,7 @@ export function exhaustiveSearch(request: SetFinderRequest, pool: DicePool, shif
   for (let first = 0; first < firstDice && !stopped; first += 1) {
     const settledBefore = tally.settled;
     order[0] = first;
-    extend(1, largest[first], faceTotal[first]);
+    if (refused[first] === 0) extend(1, largest[first], faceTotal[first]);
     if (stopped) break;
     tally.settled = settledBefore + orderedChoices(size - 1 - first, n - 1);
     hooks.onTick(tally);

@@ -136,6 +136,7 @@ export function randomizedSearch(
         if (oneDie[a][b] + oneDie[b][a] === 0 && dice[a].every((face, index) => face === dice[b][index])) repeats += 1;
       }
     }
+    if (request.refuseAllEqualFaces) for (const die of dice) if (die[0] === die[f - 1]) repeats += 1;
     if (!match.holds || repeats > 0) return -match.shortfall / fourth - 0.05 * repeats;
     const { shift, largestSpan, totalSpan } = spans();
     offer(match.strength, match.secondCycle, shift, largestSpan, totalSpan);

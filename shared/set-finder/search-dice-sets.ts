@@ -10,6 +10,7 @@ import { allowedFaceValues, buildDicePool, candidateDieCount } from "./candidate
 import { exhaustiveSearch, type ExhaustiveTally } from "./exhaustive-search";
 import { randomizedSearch } from "./randomized-search";
 import { type Candidate, TopList } from "./ranking";
+import { collapseEquivalentSets } from "./equivalent-sets";
 import { verifyFoundSet } from "./verify-found-set";
 
 /** Largest pool of candidate dice the exhaustive search takes on (its win table holds pool² bytes); above it the search is randomized. */
@@ -36,7 +37,12 @@ export interface SearchOptions {
   warmUpSeconds?: number;
   /** The clock in milliseconds (default performance.now). */
   now?: () => number;
+  /** Fold sets that play every asked matchup alike into one result with a variants count (default true). */
+  collapseVariants?: boolean;
 }
+
+/** How many ranked sets the search keeps per result asked for when folding variants, so folding still leaves enough distinct results. */
+export const KEPT_PER_RESULT_WHEN_FOLDING = 3;
 
 /** How an exhaustive search would cover a request, or why it would not: used to choose the mode. */
 export function searchPlan(request: SetFinderRequest): { mode: SetFinderMode; poolSize: number; values: number[]; shiftsPruned: boolean } {
@@ -49,7 +55,7 @@ export function searchPlan(request: SetFinderRequest): { mode: SetFinderMode; po
  * Searches for dice sets with the requested property, ranked by the objective, within the request's time budget.
  * Small requests are searched exhaustively up to symmetry (faces sorted, cycles up to rotation, value shifts), with branch and bound;
  * requests with more than EXHAUSTIVE_POOL_MAX candidate dice get a randomized local search. Every result is verified by the exact
- * engine before it is reported. Synchronous and free of I/O, so it runs in a worker thread; `shouldStop` ends it early with the best so far.
+ * engine before it is reported; sets that play every asked matchup alike are folded into the best of them (`variants`). Synchronous and free of I/O, so it runs in a worker thread; `shouldStop` ends it early with the best so far.
  */
 export function searchDiceSets(
   input: SetFinderRequestInput,
@@ -63,7 +69,8 @@ export function searchDiceSets(
   const started = now();
   const deadline = started + request.timeBudgetSeconds * 1000;
   const plan = searchPlan(request);
-  const top = new TopList(request.objective, request.maxResults);
+  const collapse = options.collapseVariants ?? true;
+  const top = new TopList(request.objective, collapse ? request.maxResults * KEPT_PER_RESULT_WHEN_FOLDING : request.maxResults);
   const verified = new Map<string, FoundSet | null>();
   let failedChecks = 0;
   let stoppedByCaller = false;
@@ -85,7 +92,7 @@ export function searchDiceSets(
       const checked = verified.get(cacheKey);
       if (checked) found.push(checked);
     }
-    return found;
+    return collapse ? collapseEquivalentSets(request.property, found, request.maxResults) : found;
   };
   const elapsedSeconds = () => (now() - started) / 1000;
   let lastReport = Number.NEGATIVE_INFINITY;

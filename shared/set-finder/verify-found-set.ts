@@ -19,6 +19,7 @@ export function verifyFoundSet(request: SetFinderRequest, candidate: Candidate):
   const allowed = new Set(allowedFaceValues(request.faceValues));
   if (candidate.faces.length !== n) return null;
   if (candidate.faces.some((faces) => faces.length !== request.facesPerDie || faces.some((face) => !allowed.has(face)))) return null;
+  if (request.refuseAllEqualFaces && candidate.faces.some(allFacesEqual)) return null;
   const dice = candidate.faces.map((faces, index) => ({ name: FOUND_DIE_NAMES[index], faces: [...faces] }));
   const analysis = analyzeSet(dice, { dicePerPlayer: 2 });
   const [oneDie, twoDice] = analysis.levels;
@@ -65,6 +66,11 @@ export function verifyFoundSet(request: SetFinderRequest, candidate: Candidate):
     },
     score: candidateScore(request.objective, candidate, request.facesPerDie),
   };
+}
+
+/** True when every face of a die shows the same value. */
+export function allFacesEqual(faces: readonly number[]): boolean {
+  return faces.every((face) => face === faces[0]);
 }
 
 function pairs(n: number): [number, number][] {

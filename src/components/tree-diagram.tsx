@@ -1,7 +1,8 @@
 import Fraction from "fraction.js";
-import { useId } from "react";
-import { fractionToString, type Outcome, type TreeDiagram } from "@shared/probability/index";
+import { useId, useMemo } from "react";
+import { fractionToString, type GroupedTree, type Outcome, sumCountDistribution, type TreeDiagram, treeDiagram } from "@shared/probability/index";
 import { probabilityText } from "@/lib/probability-text";
+import { useGroupedTree } from "@/lib/use-grouped-tree";
 
 /** Where the tree is shown: the Dice bench on screen, the Wall view on a projector (light on dark), or a printed page. */
 export type TreeLook = "screen" | "projector" | "print";
@@ -196,4 +197,184 @@ export function TreeDiagramFigure({ tree, first, second, look = "screen" }: { tr
       </ul>
     </figure>
   );
+}
+
+/** How a grouped tree is laid out: the first die's values (in bands) then outcomes, or outcomes then the bands that reach them. */
+export type TreeGrouping = "total" | "outcome";
+
+const outcomeOrder: Outcome[] = ["win", "tie", "loss"];
+
+const bandText = (band: GroupedTree["bands"][number]) => (band.from === band.to ? String(band.from) : `${band.from}–${band.to}`);
+
+/**
+ * A tree diagram too large to draw path by path (engine's groupedTreeDiagram), drawn grouped: by the first die's total (its
+ * values in bands, each band's paths added up by outcome) or by outcome (each outcome's paths added up by band of the first
+ * die's total). Every number is an exact sum of the paths it stands for.
+ */
+export function GroupedTreeFigure({
+  tree,
+  first,
+  second,
+  grouping = "total",
+  look = "screen",
+}: {
+  tree: GroupedTree;
+  first: string;
+  second: string;
+  grouping?: TreeGrouping;
+  look?: TreeLook;
+}) {
+  const titleId = useId();
+  const style = looks[look];
+  const { row, gap, colours, font } = style;
+  const size = (units: number) => units * font;
+  const x = { root: 12, middle: 118, leaf: 262, product: 316 };
+  const width = 470;
+  const top = 34 * font;
+  const haloText = { paintOrder: "stroke" as const, stroke: colours.halo, strokeWidth: 3 };
+  const secondTotal = tree.total / tree.firstTotal;
+  const paths = tree.firstValues * tree.secondValues;
+  const whole = (count: bigint) => new Fraction(count, tree.total);
+  const middles =
+    grouping === "total"
+      ? tree.bands.map((band) => ({
+          key: `${band.from}`,
+          label: bandText(band),
+          chance: new Fraction(band.ways, tree.firstTotal),
+          leaves: outcomeOrder
+            .filter((outcome) => band.outcomes[outcome] > 0n)
+            .map((outcome) => ({ key: outcome, label: outcomeMarks[outcome].symbol, outcome, chance: new Fraction(band.outcomes[outcome], band.ways * secondTotal), path: whole(band.outcomes[outcome]) })),
+        }))
+      : outcomeOrder
+          .filter((outcome) => tree.totals[outcome] > 0n)
+          .map((outcome) => ({
+            key: outcome,
+            label: `${outcomeMarks[outcome].symbol} ${outcomeMarks[outcome].word}`,
+            chance: whole(tree.totals[outcome]),
+            leaves: tree.bands
+              .filter((band) => band.outcomes[outcome] > 0n)
+              .map((band) => ({ key: `${band.from}`, label: bandText(band), outcome, chance: new Fraction(band.outcomes[outcome], tree.totals[outcome]), path: whole(band.outcomes[outcome]) })),
+          }));
+  let cursor = top;
+  const groups = middles.map((middle) => {
+    const leaves = middle.leaves.map((leaf) => {
+      const y = cursor + row / 2;
+      cursor += row;
+      return { leaf, y };
+    });
+    cursor += gap;
+    return { middle, leaves, y: (leaves[0].y + leaves[leaves.length - 1].y) / 2 };
+  });
+  const height = cursor;
+  const rootY = (groups[0].y + groups[groups.length - 1].y) / 2;
+  const half = size(34);
+  return (
+    <figure className={style.classes.frame} tabIndex={look === "screen" ? 0 : undefined} role={look === "screen" ? "region" : undefined} aria-labelledby={look === "screen" ? titleId : undefined}>
+      <svg viewBox={`0 0 ${width} ${height}`} className={style.classes.svg} role="img" aria-labelledby={titleId} data-testid="grouped-tree-diagram">
+        <title id={titleId}>
+          Tree diagram of {first} against {second}, grouped by {grouping === "total" ? `${first}'s total` : "outcome"}: {first} wins {fractionToString(whole(tree.totals.win))}, ties{" "}
+          {fractionToString(whole(tree.totals.tie))}, loses {fractionToString(whole(tree.totals.loss))}.
+        </title>
+        <text x={x.middle} y={size(18)} textAnchor="middle" fontSize={size(12)} fontWeight="700" fill={colours.soft}>
+          {grouping === "total" ? shortName(first) : "Outcome"}
+        </text>
+        <text x={x.leaf} y={size(18)} textAnchor="middle" fontSize={size(12)} fontWeight="700" fill={colours.soft}>
+          {grouping === "total" ? "Outcome" : shortName(first)}
+        </text>
+        <text x={x.product + 8} y={size(18)} fontSize={size(12)} fontWeight="700" fill={colours.soft}>
+          P(paths)
+        </text>
+        <circle cx={x.root} cy={rootY} r={size(5)} fill={colours.ink} />
+        {groups.map(({ middle, leaves, y }) => {
+          const label = along(x.root, rootY, x.middle - half, y, 0.8);
+          return (
+            <g key={middle.key}>
+              <line x1={x.root} y1={rootY} x2={x.middle - half} y2={y} stroke={colours.soft} strokeWidth="1.5" />
+              <text x={label.x} y={label.y - 4} textAnchor="middle" fontSize={size(11)} fill={colours.ink} {...haloText}>
+                {fractionToString(middle.chance)}
+              </text>
+              <rect x={x.middle - half} y={y - size(11)} width={half * 2} height={size(22)} rx="5" fill={colours.valueFill} stroke={colours.valueStroke} strokeWidth="1.5" />
+              <text x={x.middle} y={y + size(5)} textAnchor="middle" fontSize={size(12)} fontWeight="700" fill={colours.ink}>
+                {middle.label}
+              </text>
+              {leaves.map(({ leaf, y: leafY }) => {
+                const won = leaf.outcome === "win";
+                return (
+                  <g key={leaf.key} data-outcome={leaf.outcome}>
+                    <line x1={x.middle + half} y1={y} x2={x.leaf - half} y2={leafY} stroke={colours.soft} strokeWidth="1" />
+                    <title>
+                      {middle.label}, {leaf.label}: {fractionToString(middle.chance)} × {fractionToString(leaf.chance)} = {fractionToString(leaf.path)}
+                    </title>
+                    <rect x={x.leaf - half} y={leafY - size(10)} width={half * 2} height={size(20)} rx="4" fill={won ? colours.winFill : colours.leafFill} stroke={colours.ink} strokeWidth="1.25" />
+                    <text x={x.leaf} y={leafY + size(4.5)} textAnchor="middle" fontSize={size(11)} fontWeight="700" fill={won ? colours.winInk : colours.ink}>
+                      {leaf.label}
+                    </text>
+                    <text x={x.product} y={leafY + size(4.5)} fontSize={size(12)} fill={colours.ink} fontWeight={won ? 700 : 400}>
+                      {fractionToString(leaf.path)}
+                      {grouping === "total" && <tspan dx="8">{outcomeMarks[leaf.outcome].word}</tspan>}
+                    </text>
+                  </g>
+                );
+              })}
+            </g>
+          );
+        })}
+      </svg>
+      <figcaption className={style.classes.note}>
+        {`The full tree has ${paths.toLocaleString("en-GB")} paths, so they are drawn grouped: ${
+          grouping === "total"
+            ? `${first}'s totals in ${tree.bands.length} bands, each band's paths added up by outcome for ${first}`
+            : `by outcome for ${first}, each outcome's paths added up by band of ${first}'s total`
+        }. Each P(paths) is the exact sum of the paths it stands for${look === "screen" ? " (hover or focus a leaf for its branch chances)" : ""}.`}
+      </figcaption>
+      <ul className={style.classes.totals} data-testid="tree-totals">
+        <li>
+          P({first} wins) = <strong>{probabilityText(whole(tree.totals.win))}</strong>
+        </li>
+        <li>P(tie) = {probabilityText(whole(tree.totals.tie))}</li>
+        <li>
+          P({second} wins) = {probabilityText(whole(tree.totals.loss))}
+        </li>
+      </ul>
+    </figure>
+  );
+}
+
+/** Above this many paths the tree is worked out in a worker and drawn grouped. */
+export const TREE_PATHS_IN_PAGE_MAX = 2500;
+
+/**
+ * The tree diagram of a matchup, whatever the dice: a small tree is worked out on the page and drawn path by path (or, above the
+ * look's limit, by its first stage); a large one is worked out in a Web Worker and drawn grouped, so the page stays responsive.
+ */
+export function MatchupTree({
+  first,
+  second,
+  dicePerPlayer,
+  look = "screen",
+  grouping = "total",
+}: {
+  first: { name: string; faces: number[] };
+  second: { name: string; faces: number[] };
+  dicePerPlayer: number;
+  look?: TreeLook;
+  grouping?: TreeGrouping;
+}) {
+  const paths = useMemo(
+    () => sumCountDistribution(first.faces, dicePerPlayer).values.length * sumCountDistribution(second.faces, dicePerPlayer).values.length,
+    [first.faces, second.faces, dicePerPlayer],
+  );
+  const large = paths > TREE_PATHS_IN_PAGE_MAX;
+  const small = useMemo(() => (large ? null : treeDiagram(first.faces, second.faces, { dicePerPlayer })), [large, first.faces, second.faces, dicePerPlayer]);
+  const grouped = useGroupedTree(large ? { first: first.faces, second: second.faces, dicePerPlayer } : null);
+  if (small) return <TreeDiagramFigure tree={small} first={first.name} second={second.name} look={look} />;
+  if (grouped.error) return <p role="alert">The tree diagram could not be worked out: {grouped.error}</p>;
+  if (!grouped.tree) {
+    return (
+      <p role="status" className={looks[look].classes.note} data-testid="tree-working">
+        Working out the {paths.toLocaleString("en-GB")} paths of the tree diagram…
+      </p>
+    );
+  }
+  return <GroupedTreeFigure tree={grouped.tree} first={first.name} second={second.name} grouping={grouping} look={look} />;
 }

@@ -122,7 +122,7 @@ describe("Lessons in chromium", () => {
     await expect.poll(() => sheets.textContent()).toContain("room for 104 rolls each");
 
     await page.getByRole("button", { name: "Save lesson" }).first().click();
-    await page.getByText("Saved (version 2).").waitFor();
+    await page.getByText(/Saved at \d\d:\d\d \(version 2\)\./).first().waitFor();
 
     const image = new PNG({ width: 8, height: 8 });
     image.data.fill(180);

@@ -131,7 +131,7 @@ describe("dice sets API", () => {
     expect(many.status).toBe(400);
     expect(many.body.error.fields.dice).toEqual(["A dice set can have at most 10 dice."]);
 
-    const badColour = await owner.post("/api/dice-sets", { ...sample("Odd colour"), dice: [{ ...sample("x").dice[0], colour: "red" }, sample("x").dice[1]] });
+    const badColour = await owner.post("/api/dice-sets", { ...sample("Odd colour"), dice: [{ ...sample("x").dice[0], colour: "magenta" }, sample("x").dice[1]] });
     expect(badColour.status).toBe(400);
     expect(badColour.body.error.fields["dice.0.colour"][0]).toMatch(/Choose a colour from the palette/);
 
@@ -206,7 +206,7 @@ describe("dice set files", () => {
     expect(response.body.error.issues).toEqual([
       "dice[1].faces[2]: Each face value must be a number.",
       "dice[1].faces[4]: Face values must be at most 999.",
-      "dice[1].pattern: Choose a pattern from the palette: dots, stripes, checks, waves, triangles, crosses, rings, zigzags.",
+      "dice[1].pattern: Choose a pattern from the palette: dots, stripes, checks, waves, triangles, crosses, rings, zigzags, diamonds, squares, hexagons, bricks, dashes, grid, chevrons, hearts, bars, hatching.",
     ]);
     expect(response.body.error.fields["dice[1].faces[4]"]).toEqual(["Face values must be at most 999."]);
 
@@ -216,7 +216,7 @@ describe("dice set files", () => {
       'version: This file\'s version is not one Outroll reads: "version" must be 1.',
       "dice[1].faces[2]: Each face value must be a number.",
       "dice[1].faces[4]: Face values must be at most 999.",
-      "dice[1].pattern: Choose a pattern from the palette: dots, stripes, checks, waves, triangles, crosses, rings, zigzags.",
+      "dice[1].pattern: Choose a pattern from the palette: dots, stripes, checks, waves, triangles, crosses, rings, zigzags, diamonds, squares, hexagons, bricks, dashes, grid, chevrons, hearts, bars, hatching.",
     ]);
 
     const notJson = await owner.request("POST", "/api/dice-sets/import", "{ this is not json", { "content-type": "text/plain" });

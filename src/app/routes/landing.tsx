@@ -6,6 +6,8 @@ const steps = [
   { name: "Roll", text: "Groups play their matchups and tap every roll into a phone, or onto a paper sheet." },
   { name: "Pool", text: "The whole class's rolls come together live, beside the exact probabilities." },
   { name: "Prove", text: "A tree diagram shows why each die is beaten by another: there is no best die." },
+  { name: "Twist", text: "Two dice each, or a third player, and the cycle can turn round." },
+  { name: "Reflect", text: "Talk it through and finish with an exit ticket." },
 ];
 
 export function LandingRoute() {
@@ -54,9 +56,9 @@ export function LandingRoute() {
         <section aria-labelledby="how-heading" className="bg-sand text-ink">
           <div className="mx-auto max-w-6xl px-4 py-12 sm:px-8">
             <h2 id="how-heading" className="text-3xl">
-              One lesson, four moves
+              One lesson, six phases
             </h2>
-            <ol className="mt-6 grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
+            <ol className="mt-6 grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
               {steps.map((step, index) => (
                 <li key={step.name} className="rounded-2xl border-2 border-line bg-shell p-5">
                   <p className="text-sm font-bold text-tide">Phase {index + 1}</p>

@@ -10,6 +10,7 @@ export function ConfirmDialog({
   title,
   children,
   confirmLabel,
+  cancelLabel = "Cancel",
   tone = "danger",
   busy = false,
   onConfirm,
@@ -19,6 +20,7 @@ export function ConfirmDialog({
   title: string;
   children: ReactNode;
   confirmLabel: string;
+  cancelLabel?: string;
   tone?: "danger" | "primary";
   busy?: boolean;
   onConfirm: () => void;
@@ -49,7 +51,7 @@ export function ConfirmDialog({
       <div className="mb-6 text-base">{children}</div>
       <div className="flex flex-wrap justify-end gap-2">
         <Button variant="secondary" onClick={onCancel} autoFocus>
-          Cancel
+          {cancelLabel}
         </Button>
         <Button variant={tone} busy={busy} onClick={onConfirm}>
           {confirmLabel}

@@ -2,6 +2,7 @@ import Fraction from "fraction.js";
 import jStat from "jstat";
 import { describe, expect, it } from "vitest";
 import { lessonMaterials, sparesFor } from "@shared/lessons/lesson-materials";
+import { analyzeSet } from "@shared/probability/analyze-set";
 import { emptyLessonInput, type LessonInput } from "@shared/schemas/lessons";
 
 // Martin Gardner, "Mathematical Games", Scientific American, December 1970: each die beats the next with probability 2/3 (faces from memory).
@@ -239,5 +240,28 @@ describe("lessonMaterials: the rolls verdict within the Roll phase", () => {
     expect(result.verdict.budget).toBeNull();
     expect(result.verdict.fitsTime).toBe(true);
     expect(result.materials.recordingSheets.rowsPerSheet).toBe(500);
+  });
+});
+
+describe("lessonMaterials: the main cycle of a set with many cycles", () => {
+  // Ten dice of our own (random faces summing to 39, seed 216): the first 500 cycles listed hold none through every die stronger than 17/36.
+  const crowded = [
+    [1, 3, 7, 8, 10, 10], [3, 3, 4, 8, 10, 11], [1, 3, 6, 6, 11, 12], [3, 7, 7, 7, 7, 8], [5, 5, 5, 6, 8, 10],
+    [3, 3, 5, 9, 9, 10], [1, 4, 6, 7, 9, 12], [2, 2, 3, 8, 12, 12], [1, 2, 3, 10, 11, 12], [1, 2, 3, 11, 11, 11],
+  ].map((faces, index) => ({ name: `Die ${index + 1}`, faces }));
+
+  it("plays round the strongest cycle through every die, not just the strongest of the first 500 listed", () => {
+    const complete = analyzeSet(crowded, { dicePerPlayer: 1, cycleLimit: 10_000_000 }).levels[0];
+    expect(complete.cyclesComplete).toBe(true);
+    expect(complete.cycles.length).toBeGreaterThan(500);
+    const strongest = complete.hamiltonianCycles.reduce((best, cycle) => (cycle.weakestWin.gt(best.weakestWin) ? cycle : best));
+    const firstListed = analyzeSet(crowded, { dicePerPlayer: 1, cycleLimit: 500 }).levels[0].hamiltonianCycles;
+    expect(firstListed.every((cycle) => cycle.weakestWin.lt(strongest.weakestWin))).toBe(true);
+    const result = lessonMaterials(plan({ groups: 10 }), crowded);
+    expect(result.mainMatchupSource).toBe("cycle");
+    const weakestPlayed = result.games
+      .map(([winner, loser]) => complete.matrix[crowded.findIndex((die) => die.name === winner)][crowded.findIndex((die) => die.name === loser)]!.win)
+      .reduce((least, win) => (win.lt(least) ? win : least));
+    expect(weakestPlayed.equals(strongest.weakestWin)).toBe(true);
   });
 });

@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import { clearAllDrafts } from "@/lib/browser-draft";
 
 export function signOut() {
   return api.post("/api/auth/sign-out");
@@ -9,6 +10,9 @@ export function useSignOut() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: signOut,
-    onSuccess: () => queryClient.clear(),
+    onSuccess: () => {
+      queryClient.clear();
+      clearAllDrafts();
+    },
   });
 }

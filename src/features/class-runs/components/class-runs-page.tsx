@@ -10,8 +10,9 @@ import { useRunnableLessons } from "../api/list-runnable-lessons";
 import { useOpenClassRun } from "../api/open-class-run";
 import { spacedCode } from "./join-panel";
 import { RunStatusBadge } from "./run-status-badge";
+import { formatDateTime } from "@/lib/format";
 
-const when = (iso: string) => new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });
+const when = (iso: string) => formatDateTime(iso);
 
 function OpenFromLesson() {
   const lessons = useRunnableLessons();

@@ -15,6 +15,7 @@ import { PooledMatchups } from "./pooled-matchups";
 import { RunStatusBadge } from "./run-status-badge";
 import { VirtualClassForm } from "./virtual-class-form";
 import { VotesVersusTruth } from "./votes-versus-truth";
+import { formatCount, formatDateTime } from "@/lib/format";
 
 /** "one die each, two players". */
 function modeText(tally: Pick<RunTally, "dicePerPlayer" | "players">) {
@@ -57,7 +58,7 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
       )}
       <p className="text-ink-soft" data-testid="pooled-total">
         {pooled.totals.rolls} rolls from {pooled.totals.groups} {pooled.totals.groups === 1 ? "group" : "groups"}
-        {snapshot.undoneRolls > 0 ? ` · ${snapshot.undoneRolls} undone rolls left out` : ""}
+        {snapshot.undoneRolls > 0 ? ` · ${formatCount(snapshot.undoneRolls, "undone roll")} left out` : ""}
       </p>
       <PooledMatchups pooled={pooled} playedMatchups={snapshot.groups.map((group) => group.matchup)} diceCount={run.dice.length} />
     </div>
@@ -123,7 +124,7 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
             </section>
           ) : (
             <Alert tone="info" title="This run is closed">
-              It took its last roll{run.closedAt ? ` on ${new Date(run.closedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}. The figures stay on this board;{" "}
+              It took its last roll{run.closedAt ? ` on ${formatDateTime(run.closedAt)}` : ""}. The figures stay on this board;{" "}
               <Link to={`/app/results/${run.id}`} className="font-bold underline">
                 its results page
               </Link>{" "}

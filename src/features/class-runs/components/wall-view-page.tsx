@@ -4,8 +4,7 @@ import type { PooledMatchup, PooledResults } from "@shared/class-results/pooled-
 import { matchupFromSeat, padDieOrder, seatShares, shareMeanings } from "@shared/class-results/seat-shares";
 import { runPhaseHints, type BoardSnapshot, type ClassRun, type RunTally } from "@shared/schemas/class-runs";
 import { LESSON_PHASES, tieRuleLabels } from "@shared/schemas/lessons";
-import { treeDiagram } from "@shared/probability/index";
-import { TreeDiagramFigure } from "@/components/tree-diagram";
+import { MatchupTree } from "@/components/tree-diagram";
 import { ApiRequestError } from "@/lib/api-client";
 import { useRunBoard } from "../api/get-run-board";
 import { useLiveBoard } from "../hooks/use-live-board";
@@ -176,12 +175,7 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
             <MatchupLine entry={proved} run={run} order={order} showExact={showExact} showLabel={false} />
           </ul>
         )}
-        <TreeDiagramFigure
-          tree={treeDiagram(run.dice[matchup[0]].faces, run.dice[matchup[1]].faces, { dicePerPlayer: proved?.dicePerPlayer ?? current.tally.dicePerPlayer })}
-          first={run.dice[matchup[0]].name}
-          second={run.dice[matchup[1]].name}
-          look="projector"
-        />
+        <MatchupTree first={run.dice[matchup[0]]} second={run.dice[matchup[1]]} dicePerPlayer={proved?.dicePerPlayer ?? current.tally.dicePerPlayer} look="projector" />
       </div>
     );
   } else if (reflecting) {

@@ -1,5 +1,4 @@
 import { useState } from "react";
-import { treeDiagram, twoWayTable } from "@shared/probability/index";
 import { Alert } from "@/components/ui/alert";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { Tabs } from "@/components/ui/tabs";
@@ -11,8 +10,8 @@ import { MatchupMatrix } from "./matchup-matrix";
 import { PickAdvisor } from "./pick-advisor";
 import { SeriesPlanner } from "./series-planner";
 import { SetSummary } from "./set-summary";
-import { TreeDiagramFigure } from "@/components/tree-diagram";
-import { TwoWayTableFigure } from "./two-way-table-figure";
+import { MatchupTree, type TreeGrouping } from "@/components/tree-diagram";
+import { MatchupTable } from "./two-way-table-figure";
 
 type AnalysisTab = "matchups" | "tree" | "pick" | "series";
 
@@ -22,6 +21,7 @@ export function AnalysisPanel({ state }: { state: SetAnalysisState }) {
   const [level, setLevel] = useState("1");
   const [treeChoice, setTreeChoice] = useState<MatchupChoice>({ first: 0, second: 1, dicePerPlayer: 1 });
   const [seriesChoice, setSeriesChoice] = useState<MatchupChoice>({ first: 0, second: 1, dicePerPlayer: 1 });
+  const [grouping, setGrouping] = useState<TreeGrouping>("total");
   const { analysis, dice, leftOut } = state;
 
   if (analysis === null) {
@@ -75,17 +75,19 @@ export function AnalysisPanel({ state }: { state: SetAnalysisState }) {
             <h3 className="text-xl">
               Tree diagram: {treeFirst.name} against {treeSecond.name}, {modeLabel(tree.dicePerPlayer)}
             </h3>
-            <TreeDiagramFigure
-              tree={treeDiagram(treeFirst.faces, treeSecond.faces, { dicePerPlayer: tree.dicePerPlayer })}
-              first={treeFirst.name}
-              second={treeSecond.name}
+            <ChoiceGroup
+              legend="Group a large tree by"
+              value={grouping}
+              onChange={setGrouping}
+              options={[
+                { value: "total", label: `${treeFirst.name}'s total` },
+                { value: "outcome", label: "outcome" },
+              ]}
+              hint="Used when the tree has too many paths to draw one by one."
             />
+            <MatchupTree first={treeFirst} second={treeSecond} dicePerPlayer={tree.dicePerPlayer} grouping={grouping} />
             <h3 className="text-xl">Two-way table of {tree.dicePerPlayer === 1 ? "faces" : "sums"}</h3>
-            <TwoWayTableFigure
-              table={twoWayTable(treeFirst.faces, treeSecond.faces, { dicePerPlayer: tree.dicePerPlayer })}
-              first={treeFirst.name}
-              second={treeSecond.name}
-            />
+            <MatchupTable first={treeFirst} second={treeSecond} dicePerPlayer={tree.dicePerPlayer} />
           </div>
         )}
         {tab === "pick" && <PickAdvisor analysis={analysis} dice={dice} />}

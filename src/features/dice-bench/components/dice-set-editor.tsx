@@ -1,13 +1,17 @@
-import { memo, useEffect, useState } from "react";
+import { memo, useRef, useState } from "react";
 import { type Control, Controller, type UseFormSetValue, useFieldArray, useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useQueryClient } from "@tanstack/react-query";
 import { useNavigate } from "react-router-dom";
 import type { z } from "zod";
 import { SET_SIZE_MAX, SET_SIZE_MIN } from "@shared/probability/index";
-import { diePalette, diceSetInputSchema, type DiceSet, type DiceSetInput } from "@shared/schemas/dice-sets";
+import { diePalette, diceSetInputSchema, type DiceSet, type DiceSetInput, paletteEntryForName } from "@shared/schemas/dice-sets";
 import { DieSwatch } from "@/components/dice/die-swatch";
 import { Alert } from "@/components/ui/alert";
+import { DraftOffer } from "@/components/ui/draft-offer";
+import { formProblems } from "@/components/ui/form-problems";
+import { LeavePageDialog } from "@/components/ui/leave-page-dialog";
+import { SavedToast } from "@/components/ui/saved-toast";
 import { Button } from "@/components/ui/button";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { AnchorButton, LinkButton } from "@/components/ui/link-button";
@@ -22,6 +26,9 @@ import { useSetAnalysis } from "../hooks/use-set-analysis";
 import { AnalysisPanel } from "./analysis-panel";
 import { FacesField, type FacesEntry } from "./faces-field";
 import { PalettePicker } from "./palette-picker";
+import { draftKey, useBrowserDraft, useDraftWriter } from "@/lib/browser-draft";
+import { formatTime } from "@/lib/format";
+import { useUnsavedChangesGuard } from "@/lib/unsaved-changes";
 
 type FormValues = z.input<typeof diceSetInputSchema>;
 
@@ -76,14 +83,27 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
   const { errors, isDirty } = formState;
   const dice = useFieldArray({ control, name: "dice" });
 
-  useEffect(() => {
-    if (!isDirty) return;
-    const warn = (event: BeforeUnloadEvent) => event.preventDefault();
-    window.addEventListener("beforeunload", warn);
-    return () => window.removeEventListener("beforeunload", warn);
-  }, [isDirty]);
+  // Set just before moving on after a save, so the guard lets that one navigation through.
+  const leavingAfterSave = useRef(false);
+  const blocker = useUnsavedChangesGuard(isDirty, leavingAfterSave);
+  const keyOfDraft = draftKey("dice-set", saved?.id ?? null);
+  const draft = useBrowserDraft<FormValues>({
+    key: keyOfDraft,
+    parse: (value) => (value !== null && typeof value === "object" && Array.isArray((value as FormValues).dice) ? (value as FormValues) : null),
+  });
+  const draftDiffers = draft.found !== null && JSON.stringify(draft.found.values) !== JSON.stringify(initial);
+  // A first save moves to the new page, whose status line at the top (where the page opens) confirms it.
+  const [toast, setToast] = useState<{ message: string | null; stamp: number }>({ message: null, stamp: 0 });
+  const problems = formState.submitCount > 0 ? formProblems(errors) : [];
 
-  const openSaved = (set: DiceSet) => navigate(`/app/bench/${set.id}`, { replace: saved === null, state: { notice: "Saved." } });
+  const moveOn = (to: string, options: { replace?: boolean; state: { notice: string } }) => {
+    leavingAfterSave.current = true;
+    navigate(to, options);
+  };
+  const openSaved = (set: DiceSet) => {
+    draft.saved();
+    moveOn(`/app/bench/${set.id}`, { replace: saved === null, state: { notice: `Saved at ${formatTime(set.updatedAt)}.` } });
+  };
   const submit = handleSubmit((values) => {
     setSavedNote(null);
     if (saved === null || baseVersion === null) {
@@ -94,14 +114,39 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
       { id: saved.id, update: { ...values, version: baseVersion } },
       {
         onSuccess: (set) => {
+          draft.saved();
           setBaseVersion(set.version);
           reset(diceSetInputOf(set));
-          setSavedNote(`Saved at ${new Date(set.updatedAt).toLocaleTimeString()}.`);
+          const note = `Saved at ${formatTime(set.updatedAt)}.`;
+          setSavedNote(note);
+          setToast({ message: note, stamp: Date.now() });
         },
       },
     );
   });
-  const saveAsNew = handleSubmit((values) => create.mutate({ ...values, name: `${values.name} (my edits)`.slice(0, 80) }, { onSuccess: (set) => navigate(`/app/bench/${set.id}`, { state: { notice: "Saved as a new set." } }) }));
+  const saveAsNew = handleSubmit((values) =>
+    create.mutate(
+      { ...values, name: `${values.name} (my edits)`.slice(0, 80) },
+      {
+        onSuccess: (set) => {
+          draft.saved();
+          moveOn(`/app/bench/${set.id}`, { state: { notice: "Saved as a new set." } });
+        },
+      },
+    ),
+  );
+  const duplicate = () => {
+    // The copy carries any unsaved edits with it, so nothing is lost by leaving.
+    const values = form.getValues();
+    leavingAfterSave.current = true;
+    navigate("/app/bench/new", { state: { draft: { ...values, name: `${values.name} (copy)`.slice(0, 80), visibility: "private" } } });
+  };
+  const restoreDraft = () => {
+    if (draft.found === null) return;
+    reset(draft.found.values, { keepDefaultValues: true });
+    if (saved !== null && draft.found.baseVersion !== null) setBaseVersion(draft.found.baseVersion);
+    draft.dismiss();
+  };
   const reloadSaved = async () => {
     if (saved === null) return;
     const fresh = await queryClient.fetchQuery({ ...diceSetQueryOptions(saved.id), staleTime: 0 });
@@ -128,6 +173,9 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
             </Button>
             {saved && (
               <>
+                <Button type="button" variant="secondary" onClick={duplicate}>
+                  Duplicate
+                </Button>
                 <LinkButton to={`/app/bench/${saved.id}/print?kind=nets&paper=a4`}>Print dice</LinkButton>
                 <LinkButton to={`/app/bench/${saved.id}/print?kind=sheet&paper=a4`}>Print recording sheet</LinkButton>
                 <AnchorButton href={diceSetFileUrl(saved.id)} download>
@@ -138,7 +186,12 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
           </>
         }
       />
+      <DraftWriter control={control} draftKey={keyOfDraft} dirty={isDirty} baseVersion={baseVersion} paused={draftDiffers} />
+      <LeavePageDialog blocker={blocker} what="This dice set" onLeave={draft.discard} />
+      <SavedToast message={toast.message} stamp={toast.stamp} />
       <div className="mb-4 flex flex-col gap-3">
+        {draftDiffers && draft.found && <DraftOffer keptAt={draft.found.keptAt} what="this dice set" onRestore={restoreDraft} onDiscard={draft.discard} />}
+        {problems.length > 0 && <SaveProblems problems={problems} />}
         {savedNote && !isDirty && (
           <p role="status" className="rounded-lg border-l-8 border-tide bg-tide-light px-4 py-2 font-bold">
             ✓ {savedNote}
@@ -261,9 +314,12 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
           <Button type="button" variant="secondary" disabled={dice.fields.length >= SET_SIZE_MAX} onClick={() => dice.append(nextDie(form.getValues("dice")))}>
             + Add a die
           </Button>
-          <Button type="submit" busy={create.isPending || update.isPending}>
-            {saved ? "Save changes" : "Save dice set"}
-          </Button>
+          <div className="flex flex-col gap-2">
+            <Button type="submit" busy={create.isPending || update.isPending}>
+              {saved ? "Save changes" : "Save dice set"}
+            </Button>
+            {problems.length > 0 && <SaveProblems problems={problems} />}
+          </div>
         </form>
         <section aria-labelledby="analysis-heading" className="min-w-0">
           <h2 id="analysis-heading" className="mb-3 text-2xl">
@@ -274,6 +330,55 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
       </div>
     </>
   );
+}
+
+/** Where a field path points, in the editor's words: "Die 2, face 4", "Set name". */
+function problemPlace(path: string[]): string {
+  const [first, index, field, faceIndex] = path;
+  if (first === "name") return "Set name";
+  if (first === "description") return "Description";
+  if (first !== "dice") return path.join(".");
+  if (index === undefined || !/^\d+$/.test(index)) return "Dice";
+  const die = `Die ${Number(index) + 1}`;
+  if (field === "faces" && faceIndex !== undefined && /^\d+$/.test(faceIndex)) return `${die}, face ${Number(faceIndex) + 1}`;
+  if (field === "faces") return `${die}, faces`;
+  if (field === "name") return `${die}, name`;
+  return die;
+}
+
+/** Why Save did nothing, beside the button: each problem with the place it is. */
+function SaveProblems({ problems }: { problems: { path: string[]; message: string }[] }) {
+  return (
+    <div role="alert" className="rounded-lg border-l-8 border-alarm bg-white px-3 py-2 text-sm" data-testid="save-problems">
+      <p className="font-bold text-alarm">Not saved yet: fix {problems.length === 1 ? "this" : "these"} first.</p>
+      <ul className="list-disc pl-5">
+        {problems.map((problem) => (
+          <li key={problem.path.join(".")}>
+            {problemPlace(problem.path)}: {problem.message}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+/** Keeps the form's values as the browser draft; it alone watches every field, so the editor does not re-render on each keystroke. */
+function DraftWriter({
+  control,
+  draftKey: key,
+  dirty,
+  baseVersion,
+  paused,
+}: {
+  control: Control<FormValues, unknown, DiceSetInput>;
+  draftKey: string;
+  dirty: boolean;
+  baseVersion: number | null;
+  paused: boolean;
+}) {
+  const values = useWatch({ control });
+  useDraftWriter({ key, values, dirty, baseVersion, paused });
+  return null;
 }
 
 /** The analysis, fed from the form as the teacher types; it alone re-renders on every keystroke. */
@@ -312,20 +417,31 @@ function PaletteField({
     .filter((_, other) => other !== index)
     .map((die) => die.colour)
     .join(",");
+  const choose = (choice: { colour: string; pattern: string }) => {
+    setValue(`dice.${index}.colour`, choice.colour, { shouldDirty: true, shouldValidate: true });
+    setValue(`dice.${index}.pattern`, choice.pattern, { shouldDirty: true, shouldValidate: true });
+  };
+  const asked = paletteEntryForName(dice?.[index]?.name ?? "");
   return (
-    <MemoPalettePicker
-      dieLabel={`die ${index + 1}`}
-      colour={colour}
-      usedByOthers={usedByOthers}
-      onChange={(choice) => {
-        setValue(`dice.${index}.colour`, choice.colour, { shouldDirty: true, shouldValidate: true });
-        setValue(`dice.${index}.pattern`, choice.pattern, { shouldDirty: true, shouldValidate: true });
-      }}
-    />
+    <>
+      {asked !== null && asked.colour !== colour && (
+        <div className="flex flex-wrap items-center gap-2 rounded-lg border-2 border-dashed border-line bg-white px-3 py-2 text-sm" data-testid={`colour-suggestion-${index}`}>
+          <DieSwatch colour={asked.colour} pattern={asked.pattern} className="h-6 w-6" />
+          <span>
+            The name asks for {asked.colour}: use {asked.colour}, {asked.pattern}?
+          </span>
+          <Button type="button" variant="secondary" onClick={() => choose(asked)}>
+            Use {asked.colour}
+            <span className="sr-only"> for die {index + 1}</span>
+          </Button>
+        </div>
+      )}
+      <MemoPalettePicker dieLabel={`die ${index + 1}`} colour={colour} usedByOthers={usedByOthers} onChange={choose} />
+    </>
   );
 }
 
-// Typing faces re-renders PaletteField, but the eight swatches only redraw when a colour choice changes.
+// Typing faces re-renders PaletteField, but the palette's swatches only redraw when a colour choice changes.
 const MemoPalettePicker = memo(
   function MemoPalettePicker(props: { dieLabel: string; colour: string; usedByOthers: string; onChange: (choice: { colour: string; pattern: string }) => void }) {
     return <PalettePicker {...props} usedByOthers={new Set(props.usedByOthers.split(","))} />;

@@ -1,10 +1,45 @@
+import Fraction from "fraction.js";
+import { useMemo } from "react";
 import type { TwoWayTable } from "@shared/probability/index";
-import { fractionToString } from "@shared/probability/index";
+import { fractionToString, sumCountDistribution, twoWayTable } from "@shared/probability/index";
 import { modeLabel, probabilityText } from "@/lib/probability-text";
 import { outcomeMarks } from "@/components/tree-diagram";
+import { formatNumber } from "@/lib/format";
+import { useGroupedTree } from "@/lib/use-grouped-tree";
 
 /** Largest table drawn, in cells. */
 const CELLS_MAX = 900;
+
+/**
+ * The two-way table of a matchup, whatever the dice: built on the page when it has at most CELLS_MAX cells; above that no cell
+ * is built, and the exact totals come from the grouped tree worked out in a Web Worker.
+ */
+export function MatchupTable({ first, second, dicePerPlayer }: { first: { name: string; faces: number[] }; second: { name: string; faces: number[] }; dicePerPlayer: number }) {
+  const cellCount = useMemo(
+    () => sumCountDistribution(first.faces, dicePerPlayer).values.length * sumCountDistribution(second.faces, dicePerPlayer).values.length,
+    [first.faces, second.faces, dicePerPlayer],
+  );
+  const large = cellCount > CELLS_MAX;
+  const table = useMemo(() => (large ? null : twoWayTable(first.faces, second.faces, { dicePerPlayer })), [large, first.faces, second.faces, dicePerPlayer]);
+  const grouped = useGroupedTree(large ? { first: first.faces, second: second.faces, dicePerPlayer } : null);
+  if (table) return <TwoWayTableFigure table={table} first={first.name} second={second.name} />;
+  const tree = grouped.tree;
+  return (
+    <div className="flex flex-col gap-2">
+      <p className="rounded-lg border-2 border-line bg-shell p-3">
+        This table would have {formatNumber(cellCount)} cells, too many to read here; the totals below are exact.
+      </p>
+      {tree ? (
+        <p data-testid="two-way-totals">
+          Out of {tree.total.toString()} equally likely outcomes: {first.name} wins {probabilityText(new Fraction(tree.totals.win, tree.total))}, ties{" "}
+          {probabilityText(new Fraction(tree.totals.tie, tree.total))}, {second.name} wins {probabilityText(new Fraction(tree.totals.loss, tree.total))}.
+        </p>
+      ) : (
+        <p role="status">Working out the totals…</p>
+      )}
+    </div>
+  );
+}
 
 /** The two-way table of a matchup's totals: every equally likely pair, who wins it, and its probability. */
 export function TwoWayTableFigure({ table, first, second }: { table: TwoWayTable; first: string; second: string }) {

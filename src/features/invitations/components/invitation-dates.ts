@@ -1,8 +1,8 @@
-const dateTime = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" });
+import { formatDateTime } from "@/lib/format";
 
 /** An invitation's date and time as the screens show it, e.g. "10 Feb 2026, 14:05". */
 export function invitationDate(iso: string) {
-  return dateTime.format(new Date(iso));
+  return formatDateTime(iso);
 }
 
 /** "in 6 days", "in 5 hours" or "expired", for a pending invitation's expiry. */

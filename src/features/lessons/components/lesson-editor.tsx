@@ -1,4 +1,4 @@
-import { useMemo, useState, type ReactNode } from "react";
+import { useMemo, useRef, useState, type ReactNode } from "react";
 import { Controller, useFieldArray, useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useQueryClient } from "@tanstack/react-query";
@@ -17,6 +17,9 @@ import {
   type LessonStatus,
 } from "@shared/schemas/lessons";
 import { Alert } from "@/components/ui/alert";
+import { DraftOffer } from "@/components/ui/draft-offer";
+import { LeavePageDialog } from "@/components/ui/leave-page-dialog";
+import { SavedToast } from "@/components/ui/saved-toast";
 import { Button } from "@/components/ui/button";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { LinkButton } from "@/components/ui/link-button";
@@ -25,6 +28,9 @@ import { SelectField } from "@/components/ui/select-field";
 import { TextArea } from "@/components/ui/text-area";
 import { TextField } from "@/components/ui/text-field";
 import { ApiRequestError } from "@/lib/api-client";
+import { draftKey, useBrowserDraft, useDraftWriter } from "@/lib/browser-draft";
+import { formatDateTime, formatTime } from "@/lib/format";
+import { useUnsavedChangesGuard } from "@/lib/unsaved-changes";
 import { useCreateLesson } from "../api/create-lesson";
 import { lessonQueryOptions, type LessonDetail } from "../api/get-lesson";
 import { useUsableDiceSets } from "../api/list-usable-dice-sets";
@@ -77,8 +83,29 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
   const values = useWatch({ control });
   const prompts = useWatch({ control, name: "discussionPrompts" }) ?? [];
 
-  const ownSets = sets.data?.sets.filter((set) => set.isOwner) ?? [];
-  const sharedSets = sets.data?.sets.filter((set) => !set.isOwner) ?? [];
+  // Set just before moving on after a save, so the guard lets that one navigation through.
+  const leavingAfterSave = useRef(false);
+  const blocker = useUnsavedChangesGuard(isDirty && !readOnly, leavingAfterSave);
+  const keyOfDraft = draftKey("lesson", saved?.id ?? null);
+  const draft = useBrowserDraft<FormValues>({
+    key: keyOfDraft,
+    parse: (value) => (value !== null && typeof value === "object" && Array.isArray((value as FormValues).phases) ? (value as FormValues) : null),
+  });
+  const draftDiffers = !readOnly && draft.found !== null && JSON.stringify(draft.found.values) !== JSON.stringify(initial);
+  useDraftWriter({ key: keyOfDraft, values, dirty: isDirty && !readOnly, baseVersion: saved ? baseVersion : null, paused: readOnly || draftDiffers });
+  const restoreDraft = () => {
+    if (draft.found === null) return;
+    reset(draft.found.values, { keepDefaultValues: true });
+    if (saved && draft.found.baseVersion !== null) setBaseVersion(draft.found.baseVersion);
+    draft.dismiss();
+  };
+  // A first save moves to the new page, whose status line at the top (where the page opens) confirms it.
+  const [toast, setToast] = useState<{ message: string | null; stamp: number }>({ message: null, stamp: 0 });
+
+  // A set can reach the list twice (e.g. the teacher's own set also shared with the department); list each once.
+  const usable = [...new Map((sets.data?.sets ?? []).map((set) => [set.id, set])).values()];
+  const ownSets = usable.filter((set) => set.isOwner);
+  const sharedSets = usable.filter((set) => !set.isOwner);
   const chosenId = values.diceSetId ?? null;
   const chosenDice: SetDie[] | null = useMemo(() => {
     if (chosenId === null) return null;
@@ -98,13 +125,18 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
     try {
       if (!saved) {
         const { lesson } = await create.mutateAsync(input);
-        navigate(`/app/lessons/${lesson.id}`, { replace: true, state: { notice: "Lesson created." } });
+        draft.saved();
+        leavingAfterSave.current = true;
+        navigate(`/app/lessons/${lesson.id}`, { replace: true, state: { notice: `Lesson created at ${formatTime(lesson.updatedAt)}.` } });
         return;
       }
       const { lesson } = await update.mutateAsync({ id: saved.id, update: { ...input, version: baseVersion } });
+      draft.saved();
       setBaseVersion(lesson.version);
       reset(lessonInputOf(lesson));
-      setSavedMessage(`Saved (version ${lesson.version}).`);
+      const note = `Saved at ${formatTime(lesson.updatedAt)} (version ${lesson.version}).`;
+      setSavedMessage(note);
+      setToast({ message: note, stamp: Date.now() });
     } catch (error) {
       if (error instanceof ApiRequestError) {
         for (const [field, messages] of Object.entries(error.fields)) setError(field as keyof FormValues, { message: messages[0] });
@@ -121,10 +153,23 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
     setSavedMessage(`Loaded the saved version ${fresh.lesson.version}.`);
   };
 
+  const listed = [
+    ...ownSets.map((set) => ({ set, label: `${set.name} (yours, ${set.dice.length} dice)` })),
+    ...sharedSets.map((set) => ({ set, label: `${set.name} (shared by ${set.ownerName}, ${set.dice.length} dice)` })),
+  ];
+  // Two sets that would read the same (e.g. two saved Set finder results) are told apart by when they were last saved.
+  const labelCount = new Map<string, number>();
+  for (const entry of listed) labelCount.set(entry.label, (labelCount.get(entry.label) ?? 0) + 1);
+  const dated = listed.map(({ set, label }) => ({ value: set.id, label: (labelCount.get(label) ?? 0) > 1 ? `${label}, saved ${formatDateTime(set.updatedAt)}` : label }));
+  // Saved in the same minute as well: number them.
+  const seen = new Map<string, number>();
   const setOptions = [
     { value: "", label: "No dice set yet" },
-    ...ownSets.map((set) => ({ value: set.id, label: `${set.name} (yours, ${set.dice.length} dice)` })),
-    ...sharedSets.map((set) => ({ value: set.id, label: `${set.name} (shared by ${set.ownerName}, ${set.dice.length} dice)` })),
+    ...dated.map((option) => {
+      const nth = (seen.get(option.label) ?? 0) + 1;
+      seen.set(option.label, nth);
+      return nth === 1 ? option : { ...option, label: `${option.label} (${nth})` };
+    }),
   ];
   if (chosenId && !setOptions.some((option) => option.value === chosenId)) {
     const name = saved?.diceSetName ?? detail?.diceSet?.name ?? "This lesson's set";
@@ -161,7 +206,10 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
           </>
         }
       />
+      <LeavePageDialog blocker={blocker} what="This lesson" onLeave={draft.discard} />
+      <SavedToast message={toast.message} stamp={toast.stamp} />
       <div className="mb-4 flex flex-col gap-3" data-slot="lesson-header-notes">
+        {draftDiffers && draft.found && <DraftOffer keptAt={draft.found.keptAt} what="this lesson" onRestore={restoreDraft} onDiscard={draft.discard} />}
         {saved?.fromTemplateId && (
           <Alert tone="info">Copied from a Department shelf template (version {saved.fromTemplateVersion ?? "?"}).</Alert>
         )}
@@ -171,8 +219,8 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
           </Alert>
         )}
         {savedMessage && !isDirty && (
-          <p role="status" className="font-bold text-tide-dark">
-            {savedMessage}
+          <p role="status" className="rounded-lg border-l-8 border-tide bg-tide-light px-4 py-2 font-bold">
+            ✓ {savedMessage}
           </p>
         )}
         {stale && (

@@ -16,6 +16,7 @@ import { useLessons } from "../api/list-lessons";
 import { StatusBadge } from "./status-badge";
 import { SortableTable } from "@/components/ui/sortable-table";
 import { searchableTableFeatures } from "@/lib/table-features";
+import { formatDate } from "@/lib/format";
 
 const features = searchableTableFeatures;
 
@@ -72,7 +73,7 @@ const columns = helper.columns([
   helper.accessor("updatedAt", {
     header: "Last changed",
     sortFn: "alphanumeric",
-    cell: (info) => new Date(info.getValue()).toLocaleDateString(undefined, { day: "numeric", month: "short", year: "numeric" }),
+    cell: (info) => formatDate(info.getValue()),
   }),
   helper.display({ id: "actions", header: "Actions", cell: (info) => <LessonActions lesson={info.row.original} /> }),
 ]);

@@ -1,5 +1,4 @@
 import { Link } from "react-router-dom";
-import { treeDiagram } from "@shared/probability/index";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { DieSwatch } from "@/components/dice/die-swatch";
@@ -7,7 +6,7 @@ import { useRunResults } from "../api/get-run-results";
 import { ConvergenceChart } from "./convergence-chart";
 import { dayText, plural, runModeText, tallyHeading, tieRulePhrase, tieRuleText } from "./figures";
 import { PooledTable } from "./pooled-table";
-import { TreeDiagramFigure } from "@/components/tree-diagram";
+import { MatchupTree } from "@/components/tree-diagram";
 
 /** The printable class report: lesson, set, tree diagram of the main matchup, pooled results beside exact values, convergence, findings. */
 export function ClassReportPage({ runId, includeSimulated = true }: { runId: string; includeSimulated?: boolean }) {
@@ -23,7 +22,7 @@ export function ClassReportPage({ runId, includeSimulated = true }: { runId: str
   const { run, pooled, tallies, findings, mainMatchupKey } = results.data;
   const main = tallies[0]?.pooled.matchups.find((entry) => entry.key === mainMatchupKey) ?? null;
   const [firstIndex, secondIndex] = main?.matchup ?? [];
-  const tree = main && main.players === 2 ? treeDiagram(run.dice[firstIndex].faces, run.dice[secondIndex].faces, { dicePerPlayer: main.dicePerPlayer }) : null;
+  const tree = main !== null && main.players === 2;
 
   return (
     <article className="mx-auto max-w-[52rem] bg-white p-4 text-ink sm:p-8 print:max-w-none print:p-0">
@@ -79,7 +78,7 @@ export function ClassReportPage({ runId, includeSimulated = true }: { runId: str
           <h2 id="report-tree" className="mb-2 text-xl">
             Prove it: the tree diagram of {main.label}
           </h2>
-          <TreeDiagramFigure tree={tree} first={run.dice[firstIndex].name} second={run.dice[secondIndex].name} look="print" />
+          <MatchupTree first={run.dice[firstIndex]} second={run.dice[secondIndex]} dicePerPlayer={main.dicePerPlayer} look="print" />
         </section>
       )}
 

@@ -1,6 +1,7 @@
 import { tieRuleLabels } from "@shared/schemas/lessons";
 import type { ResultsTally } from "@shared/schemas/results";
 import { modeLabel } from "@/lib/probability-text";
+import { formatCount, formatDate } from "@/lib/format";
 
 /** A probability or frequency as three decimal places ("0.556"); a dash when there is none yet. */
 export function three(value: number | null | undefined): string {
@@ -9,7 +10,7 @@ export function three(value: number | null | undefined): string {
 
 /** A day as teachers write it, e.g. "12 Mar 2026". */
 export function dayText(iso: string): string {
-  return new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
+  return formatDate(iso);
 }
 
 /** The glossary's name of a tie rule ("Re-roll ties"), or the stored text when unknown. */
@@ -24,7 +25,7 @@ export function playersText(players: number): string {
 
 /** "1 roll", "12 rolls". */
 export function plural(count: number, one: string, many = `${one}s`): string {
-  return `${count.toLocaleString("en-GB")} ${count === 1 ? one : many}`;
+  return formatCount(count, one, many);
 }
 
 const tieRulePhrases: Record<string, string> = {

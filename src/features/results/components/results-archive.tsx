@@ -13,6 +13,7 @@ import { dayText, plural, runModeText } from "./figures";
 import { PupilDataNote } from "./pupil-data-note";
 import { SortableTable } from "@/components/ui/sortable-table";
 import { searchableTableFeatures } from "@/lib/table-features";
+import { formatNumber } from "@/lib/format";
 
 const features = searchableTableFeatures;
 
@@ -63,7 +64,7 @@ const columns = helper.columns([
     sortFn: "basic",
     cell: (info) => (
       <span>
-        {info.getValue().toLocaleString("en-GB")}
+        {formatNumber(info.getValue())}
         {info.row.original.simulatedRollCount > 0 && <span className="block text-sm text-ink-soft">{info.row.original.simulatedRollCount} simulated</span>}
       </span>
     ),

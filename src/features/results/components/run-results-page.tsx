@@ -13,6 +13,7 @@ import { GroupTable } from "./group-table";
 import { GuessVotes } from "./guess-votes";
 import { PooledTable } from "./pooled-table";
 import { PupilDataNote } from "./pupil-data-note";
+import { formatNumber } from "@/lib/format";
 
 function Section({ title, children, id }: { title: string; children: ReactNode; id?: string }) {
   return (
@@ -104,10 +105,10 @@ export function RunResultsPage({ runId }: { runId: string }) {
       </label>
 
       <dl className="mb-6 grid grid-cols-2 gap-3 sm:grid-cols-4">
-        <Figure label="Rolls" value={pooled.totals.rolls.toLocaleString("en-GB")} />
+        <Figure label="Rolls" value={formatNumber(pooled.totals.rolls)} />
         <Figure label="Groups with rolls" value={pooled.totals.groups} />
         <Figure label="Matchups" value={pooled.totals.matchups} />
-        <Figure label="Simulated rolls" value={simulated.toLocaleString("en-GB")} />
+        <Figure label="Simulated rolls" value={formatNumber(simulated)} />
       </dl>
 
       <Section title="What the class found" id="findings">

@@ -48,6 +48,11 @@ export function FoundSetCard({ found, rank, onOpen }: { found: FoundSet; rank: n
           </li>
         ))}
       </ul>
+      {(found.variants ?? 0) > 0 && (
+        <p className="text-sm">
+          and {found.variants} {found.variants === 1 ? "variant" : "variants"}: other sets found that play every matchup asked about with the same chances
+        </p>
+      )}
       <dl className="grid gap-x-4 gap-y-1 text-sm sm:grid-cols-2">
         <div>
           <dt className="inline font-bold">Cycle, one die each: </dt>

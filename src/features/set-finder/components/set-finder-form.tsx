@@ -38,6 +38,7 @@ const defaults: SetFinderRequestInput = {
   faceValues: { kind: "range", min: 1, max: 9 },
   property: "one-cycle",
   allowTies: false,
+  refuseAllEqualFaces: true,
   objective: "strongest-cycle",
   maxResults: 10,
   timeBudgetSeconds: FINDER_TIME_BUDGET_DEFAULT,
@@ -94,6 +95,10 @@ export function SetFinderForm({ onSearch, busy, disabled }: { onSearch: (request
         </label>
         {errors.allowTies && <p className="text-sm font-bold text-alarm">{errors.allowTies.message}</p>}
       </div>
+      <label className="flex min-h-11 cursor-pointer items-center gap-3 font-bold">
+        <input type="checkbox" className="h-5 w-5 accent-tide" {...register("refuseAllEqualFaces")} />
+        Leave out dice whose faces all show the same number
+      </label>
       <Controller
         control={control}
         name="objective"
