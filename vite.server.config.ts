@@ -20,7 +20,7 @@ export default defineConfig({
       input: {
         index: "server/index.ts",
         "search-worker": "server/set-finder/search-worker.ts",
-        "pooling-worker": "server/realtime/pooling-worker.ts",
+        "pooling-worker": "server/pooling/pooling-worker.ts",
         migrate: "server/db/migrate-cli.ts",
         seed: "seed/index.ts",
       },

@@ -4,7 +4,7 @@ import { EVENTS } from "@shared/events";
 import type { NewRoll } from "../db/queries/class-runs";
 import { readBoardUpdate, refreshBoardWithRolls, type BoardRollCache } from "../services/class-runs.service";
 import { logger } from "../logger";
-import { forgetBoardRun } from "./pooling-pool";
+import { forgetBoardRun } from "../pooling/pooling-pool";
 
 export const boardRoom = (runId: string) => `board:${runId}`;
 

@@ -45,11 +45,11 @@ import {
 import { verifyGuestToken } from "../services/guest-token";
 import { BoardBroadcaster, boardRoom } from "./board-broadcaster";
 import { RollBatcher } from "./roll-batcher";
-import { codeGuessingWait, countWrongCode, joinWait, rollsPerConnection, runRollCeiling } from "./room-limits";
+import { codeGuessingWait, countWrongCode, joinWait, rollsPerConnection, runRollCeiling } from "../limits/room-limits";
 import { RollAllowance } from "../limits/roll-allowance";
 import { sharedLimiter } from "../limits/shared-limiter";
 import { batcherQueueDepth, connectedPhones, rollAckSeconds, rollBatchFailures, rollsAcknowledged } from "../metrics";
-import { notifyRunChanged, onRunChanged, type RunChange } from "./run-notifier";
+import { notifyRunChanged, onRunChanged, type RunChange } from "../run-notifier";
 
 export const padsRoom = (runId: string) => `pads:${runId}`;
 

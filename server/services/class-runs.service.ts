@@ -54,14 +54,14 @@ import type { ClassRunTally } from "../db/schema/class-runs";
 import { env } from "../env";
 import { HttpError, notFound } from "../http-error";
 import type { TeacherContext } from "../middleware/require-teacher";
-import { notifyRunChanged } from "../realtime/run-notifier";
+import { notifyRunChanged } from "../run-notifier";
 import { logger } from "../logger";
-import { poolRowsJson } from "../realtime/pool-rows-wire";
-import { NeedsResetError, poolBoardOffThread, poolKeptBoardOffThread } from "../realtime/pooling-pool";
+import { poolRowsJson } from "../pooling/pool-rows-wire";
+import { NeedsResetError, poolBoardOffThread, poolKeptBoardOffThread } from "../pooling/pooling-pool";
 import { generateJoinCode, isUniqueViolation } from "./join-code";
 import type { BoardUpdateMessage } from "@shared/events";
 import { GROUP_CAP_DEFAULT } from "@shared/schemas/class-runs";
-import { codeGuessingWait, countWrongCode } from "../realtime/room-limits";
+import { codeGuessingWait, countWrongCode } from "../limits/room-limits";
 
 const JOIN_CODE_ATTEMPTS = 8;
 

@@ -21,7 +21,7 @@ import {
   type NewRoll,
   type RunGroupRow,
 } from "../db/queries/class-runs";
-import { notifyRunChanged, onRunChanged } from "../realtime/run-notifier";
+import { notifyRunChanged, onRunChanged } from "../run-notifier";
 import { talliesOf } from "./class-runs.service";
 import { signGuestToken, verifyGuestToken } from "./guest-token";
 import { isUniqueViolation } from "./join-code";

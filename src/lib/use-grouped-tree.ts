@@ -1,4 +1,4 @@
-import { useEffect, useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import type { GroupedTree } from "@shared/probability/index";
 import type { GroupedTreeRequest } from "./matchup-figures-worker";
 
@@ -27,7 +27,13 @@ function figuresWorker(): Worker {
 export function useGroupedTree(matchup: { first: number[]; second: number[]; dicePerPlayer: number } | null): { tree: GroupedTree | null; error: string | null } {
   const [answer, setAnswer] = useState<{ key: string; tree: GroupedTree | null; error: string | null } | null>(null);
   const key = matchup === null ? "" : `${matchup.dicePerPlayer}|${matchup.first.join(",")}|${matchup.second.join(",")}`;
+  // The key holds everything the request depends on; the matchup itself is read through a ref, the latest one.
+  const latestMatchup = useRef(matchup);
   useEffect(() => {
+    latestMatchup.current = matchup;
+  });
+  useEffect(() => {
+    const matchup = latestMatchup.current;
     if (matchup === null) return;
     const id = nextId++;
     let current = true;
@@ -40,7 +46,6 @@ export function useGroupedTree(matchup: { first: number[]; second: number[]; dic
       current = false;
       waiting.delete(id);
     };
-    // The key holds everything the request depends on.
   }, [key]);
   if (answer === null || answer.key !== key) return { tree: null, error: null };
   return { tree: answer.tree, error: answer.error };

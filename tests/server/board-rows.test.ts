@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { BoardPool } from "@shared/class-results/board-pool";
 import type { NewRoll } from "../../server/db/queries/class-runs";
-import { poolRowsJson, requestRows } from "../../server/realtime/pool-rows-wire";
+import { poolRowsJson, requestRows } from "../../server/pooling/pool-rows-wire";
 
 // Invented dice for these checks.
 const dice = [

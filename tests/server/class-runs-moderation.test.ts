@@ -20,7 +20,7 @@ import { socketOutboxTransport } from "../../src/features/class-runs/delivery/so
 import { db } from "../../server/db/client";
 import { classRun, roll as rollTable, runGroup } from "../../server/db/schema/index";
 import { sweepIdleRuns } from "../../server/realtime/class-run-events";
-import { runRollCeiling } from "../../server/realtime/room-limits";
+import { runRollCeiling } from "../../server/limits/room-limits";
 import { env } from "../../server/env";
 import { createLessonFor, randomRollOf, rollOf, sessionCookie, type TestPupil } from "../helpers/class-run-fixtures";
 import { createDepartment, type DepartmentFixture } from "../helpers/department-fixtures";

@@ -44,7 +44,10 @@ function enumerate(faces: number[][]) {
       const highest = Math.max(...totals);
       const atTop = totals.filter((t) => t === highest).length;
       if (atTop > 1) shared += 1;
-      if (totals[0] === highest) atTop === 1 ? (win += 1) : (tie += 1);
+      if (totals[0] === highest) {
+        if (atTop === 1) win += 1;
+        else tie += 1;
+      }
       return;
     }
     for (const face of faces[seat]) walk(seat + 1, [...totals, face]);

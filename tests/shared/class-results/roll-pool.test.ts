@@ -63,7 +63,10 @@ function directRunningFrequency(rolls: PoolableRoll[], tieRule: TieRule): (numbe
     const highest = Math.max(...entry.totals);
     const atTop = entry.totals.filter((total) => total === highest).length;
     if (atTop === 1) decided += 1;
-    if (entry.totals[0] === highest) atTop === 1 ? (wins += 1) : (ties += 1);
+    if (entry.totals[0] === highest) {
+      if (atTop === 1) wins += 1;
+      else ties += 1;
+    }
     const count = index + 1;
     if (tieRule === "re-roll-ties") return decided === 0 ? null : wins / decided;
     if (tieRule === "ties-score-half") return (wins + ties / 2) / count;
@@ -225,7 +228,7 @@ describe("RollPool.addCounts: win/tie/loss counts with no rolls behind them", ()
           expect(countedSeries).toEqual([]);
           expect(rolledSeries.length).toBeGreaterThan(0);
         }
-        expect(byCounts.groups.map(({ countedRolls, ...group }) => group)).toEqual(byRolls.groups.map(({ countedRolls, ...group }) => group));
+        expect(byCounts.groups.map(({ countedRolls: _counted, ...group }) => group)).toEqual(byRolls.groups.map(({ countedRolls: _counted, ...group }) => group));
       }),
       { numRuns: 60 },
     );

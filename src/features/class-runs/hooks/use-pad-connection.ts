@@ -1,4 +1,4 @@
-import { useEffect, useState, useSyncExternalStore } from "react";
+import { useEffect, useRef, useState, useSyncExternalStore } from "react";
 import { openPadConnection, storedPadState, storedWaitingCount, type PadConnection, type PadSession, type PadSnapshot } from "../delivery/pad-connection";
 
 const noSubscription = () => () => undefined;
@@ -17,10 +17,16 @@ export function usePadConnection(session: PadSession) {
     removed: false,
   }));
 
+  // The connection is opened for a token; the session it was opened with is read through a ref, the latest one.
+  const latestSession = useRef(session);
+  useEffect(() => {
+    latestSession.current = session;
+  });
+
   useEffect(() => {
     let opened: PadConnection | null = null;
     let gone = false;
-    void openPadConnection(session).then((connection) => {
+    void openPadConnection(latestSession.current).then((connection) => {
       if (gone) connection.close();
       else {
         opened = connection;

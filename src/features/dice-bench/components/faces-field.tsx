@@ -1,4 +1,4 @@
-import { useEffect, useId, useState } from "react";
+import { useId, useState } from "react";
 import { FACES_MAX } from "@shared/probability/index";
 
 export type FacesEntry = "list" | "boxes";
@@ -52,10 +52,13 @@ export function FacesField({
 }) {
   const id = useId();
   const [text, setText] = useState(() => facesToText(faces));
-  // Follow the form when it changes from outside (reset, reload, switching entry), never while the text already says the same.
-  useEffect(() => {
+  // Follow the form when it changes from outside (reset, reload, switching entry), never while the text already says the same:
+  // React's "adjust state when a prop changes" pattern, during render rather than in an effect.
+  const [seenFaces, setSeenFaces] = useState(faces);
+  if (seenFaces !== faces) {
+    setSeenFaces(faces);
     if (!sameFaces(facesFromText(text).faces, faces)) setText(facesToText(faces));
-  }, [faces]);
+  }
   const tokens = entry === "list" ? facesFromText(text).tokens : undefined;
   const messages = faceErrorMessages(error, faces, tokens);
   const errorId = messages.length > 0 ? `${id}-error` : undefined;
@@ -139,10 +142,12 @@ export function FacesField({
 function FaceBox({ label, value, invalid, onChange, onBlur }: { label: string; value: number; invalid: boolean; onChange: (value: number) => void; onBlur: () => void }) {
   const id = useId();
   const [text, setText] = useState(Number.isNaN(value) ? "" : String(value));
-  useEffect(() => {
+  const [seenValue, setSeenValue] = useState(value);
+  if (!Object.is(seenValue, value)) {
+    setSeenValue(value);
     const typed = text.trim() === "" ? Number.NaN : Number(text);
     if (!Object.is(typed, value)) setText(Number.isNaN(value) ? "" : String(value));
-  }, [value]);
+  }
   return (
     <div className="flex flex-col">
       <label htmlFor={id} className="text-xs font-bold text-ink-soft">

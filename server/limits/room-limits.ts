@@ -1,6 +1,6 @@
 import { RateLimiterMemory, RateLimiterRes, type RateLimiterAbstract } from "rate-limiter-flexible";
 import { env } from "../env";
-import { sharedLimiter } from "../limits/shared-limiter";
+import { sharedLimiter } from "./shared-limiter";
 
 /**
  * Every abuse limit of a class run, built in this one module. Limits on a run or an address are counted in PostgreSQL
