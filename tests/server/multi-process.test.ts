@@ -38,8 +38,15 @@ describe("several app processes on one database", () => {
   it("holds the sign-in limit for one address across both processes", async () => {
     // A forwarded address (trusted from loopback) of the documentation range, so no other test shares its count.
     const address = { "x-forwarded-for": `203.0.113.${Math.floor(Math.random() * 200) + 20}` };
+    // A new address each time, so only the per-address limit counts (an account's own wrong passwords are limited too).
+    let attempts = 0;
     const attempt = (app: AppProcess) =>
-      new HttpAgent(app.url).request("POST", "/api/auth/sign-in/email", { email: "nobody-here@outroll-tests.test", password: "not-the-password" }, address);
+      new HttpAgent(app.url).request(
+        "POST",
+        "/api/auth/sign-in/email",
+        { email: `nobody-${Date.now()}-${(attempts += 1)}@outroll-tests.test`, password: "not-the-password" },
+        address,
+      );
     const answers: number[] = [];
     for (let index = 0; index < SIGN_IN_LIMIT; index += 1) answers.push((await attempt(index % 2 === 0 ? a : b)).status);
     expect(answers.every((status) => status === 401)).toBe(true);
