@@ -39,12 +39,28 @@ describe("every main screen has no serious or critical accessibility violations 
     await pool.end();
   });
 
+  it("the check itself fails on a page with an unnamed button and an unlabelled field, naming each", async () => {
+    const page = await teacherBrowser.context.newPage();
+    await page.setContent(`<!doctype html><html lang="en"><head><title>Broken</title></head><body><main><h1>Broken</h1>
+      <button id="unnamed"></button><input id="unlabelled" type="text"></main></body></html>`);
+    const failure = await expectNoSeriousViolations(page, "a broken page").then(
+      () => null,
+      (error: Error) => error.message,
+    );
+    expect(failure).toContain("2 serious or critical accessibility violations on a broken page");
+    expect(failure).toMatch(/button-name \(critical\): Buttons must have discernible text at #unnamed/);
+    expect(failure).toMatch(/label \(critical\): Form elements must have labels at #unlabelled/);
+    await page.close();
+  });
+
   it("public pages: landing, sign-in and the privacy notice", async () => {
     const page = await teacherBrowser.context.newPage();
     await page.goto(`${appUrl}/`);
     await check(page, "the landing page", () => page.getByRole("heading", { level: 1 }).waitFor());
     await page.goto(`${appUrl}/sign-in`);
     await check(page, "the sign-in page", () => page.getByLabel("E-mail").waitFor());
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await check(page, "the sign-in page with its field errors", () => page.getByLabel("E-mail").and(page.locator("[aria-invalid=true]")).waitFor());
     await page.goto(`${appUrl}/privacy`);
     await check(page, "the privacy notice", () => page.getByRole("heading", { name: "Privacy notice", level: 1 }).waitFor());
     await page.close();
@@ -60,6 +76,14 @@ describe("every main screen has no serious or critical accessibility violations 
     await setLink.click();
     await page.waitForURL(/\/app\/bench\/[0-9a-f-]{36}$/);
     await check(page, "a dice set on the Dice bench", () => page.getByTestId(/^matchup-matrix-/).first().waitFor());
+    // Each view of the exact analysis is drawn only while its tab is chosen, so each is checked on its own.
+    const views = page.getByRole("tablist", { name: "Views of the analysis" }).getByRole("tab");
+    const viewNames = await views.allTextContents();
+    expect(viewNames.length).toBeGreaterThan(1);
+    for (const [index, viewName] of viewNames.entries()) {
+      await views.nth(index).click();
+      await check(page, `the Dice bench's ${viewName} view`, () => page.getByRole("tabpanel").waitFor());
+    }
 
     await page.goto(`${appUrl}/app/finder`);
     await check(page, "the Set finder", () => page.getByRole("heading", { name: "Set finder", level: 1 }).waitFor());

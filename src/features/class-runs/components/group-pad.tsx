@@ -272,7 +272,7 @@ export function GroupPad({ session, onLeave }: { session: PadSession; onLeave: (
   return (
     <PadFrame status={<DeliveryStatus snapshot={snapshot} />}>
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <p className="text-xl font-bold">{padState?.group.nickname ?? session.nickname}</p>
+        <h1 className="text-xl font-bold">{padState?.group.nickname ?? session.nickname}</h1>
         {padState && (
           <p className="text-base text-ink-soft">
             {padState.run.phase}: {runPhaseHints[padState.run.phase]}
