@@ -61,6 +61,10 @@ describe("every main screen has no serious or critical accessibility violations 
     await check(page, "the sign-in page", () => page.getByLabel("E-mail").waitFor());
     await page.getByRole("button", { name: "Sign in" }).click();
     await check(page, "the sign-in page with its field errors", () => page.getByLabel("E-mail").and(page.locator("[aria-invalid=true]")).waitFor());
+    await screenshot(page, "accessibility-sign-in-laptop");
+    await page.setViewportSize(viewports.phone);
+    await screenshot(page, "accessibility-sign-in-phone");
+    await page.setViewportSize(viewports.laptop);
     await page.goto(`${appUrl}/privacy`);
     await check(page, "the privacy notice", () => page.getByRole("heading", { name: "Privacy notice", level: 1 }).waitFor());
     await page.close();
@@ -150,8 +154,11 @@ describe("every main screen has no serious or critical accessibility violations 
 
     await board.goto(`${appUrl}/app/runs/${runId}`);
     await check(board, "the Run board of a live run", () => board.getByText("Lighthouse Crew").first().waitFor());
+    await screenshot(board, "accessibility-run-board-laptop");
     const wall = await teacherBrowser.context.newPage();
     await wall.goto(`${appUrl}/app/runs/${runId}/wall`);
     await check(wall, "the Wall view", () => wall.getByTestId("join-code").waitFor());
+    await expect(wall.getByTestId("join-code").textContent()).resolves.toBe(`${joinCode.slice(0, 3)} ${joinCode.slice(3)}`);
+    await screenshot(wall, "accessibility-wall-laptop");
   });
 });
