@@ -77,6 +77,12 @@ describe("every main screen has no serious or critical accessibility violations 
     await page.goto(`${appUrl}/app/bench`);
     const setLink = page.getByRole("link", { name: demoDiceSetNames.threeDice }).first();
     await check(page, "the Dice bench list", () => setLink.waitFor());
+    // Deleting asks first, inline, with the focus on the safe answer.
+    await page.getByRole("button", { name: `Delete ${demoDiceSetNames.threeDice}` }).click();
+    const keepIt = page.getByRole("alertdialog").getByRole("button", { name: "Keep it" });
+    await check(page, "the Dice bench asking before it deletes a set", () => keepIt.waitFor());
+    await expect.poll(() => keepIt.evaluate((button) => button === document.activeElement)).toBe(true);
+    await keepIt.click();
     await setLink.click();
     await page.waitForURL(/\/app\/bench\/[0-9a-f-]{36}$/);
     await check(page, "a dice set on the Dice bench", () => page.getByTestId(/^matchup-matrix-/).first().waitFor());
@@ -155,6 +161,18 @@ describe("every main screen has no serious or critical accessibility violations 
     await board.goto(`${appUrl}/app/runs/${runId}`);
     await check(board, "the Run board of a live run", () => board.getByText("Lighthouse Crew").first().waitFor());
     await screenshot(board, "accessibility-run-board-laptop");
+    // Removing a group asks in a modal dialog whose focus starts on Cancel; renaming puts the focus in the new name's field.
+    await board.getByRole("button", { name: "Remove Lighthouse Crew" }).click();
+    const dialog = board.getByRole("dialog", { name: /^Remove .Lighthouse Crew. from the run\?$/ });
+    await check(board, "the Run board asking before it removes a group", () => dialog.waitFor());
+    const cancel = dialog.getByRole("button", { name: "Cancel" });
+    await expect.poll(() => cancel.evaluate((button) => button === document.activeElement)).toBe(true);
+    await cancel.click();
+    await board.getByRole("button", { name: "Rename Lighthouse Crew" }).click();
+    const newName = board.getByLabel("New nickname for Lighthouse Crew");
+    await check(board, "the Run board renaming a group", () => newName.waitFor());
+    await expect.poll(() => newName.evaluate((field) => field === document.activeElement)).toBe(true);
+    await board.getByRole("button", { name: "Cancel" }).click();
     const wall = await teacherBrowser.context.newPage();
     await wall.goto(`${appUrl}/app/runs/${runId}/wall`);
     await check(wall, "the Wall view", () => wall.getByTestId("join-code").waitFor());
