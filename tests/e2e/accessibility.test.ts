@@ -65,12 +65,14 @@ describe("every main screen has no serious or critical accessibility violations 
     await page.setViewportSize(viewports.phone);
     await screenshot(page, "accessibility-sign-in-phone");
     await page.setViewportSize(viewports.laptop);
+    await page.goto(`${appUrl}/sign-up`);
+    await check(page, "the sign-up page", () => page.getByRole("heading", { name: "Create your account", level: 1 }).waitFor());
     await page.goto(`${appUrl}/privacy`);
     await check(page, "the privacy notice", () => page.getByRole("heading", { name: "Privacy notice", level: 1 }).waitFor());
     await page.close();
   });
 
-  it("a teacher's screens: home, Dice bench, Set finder, lessons, results and the class report", async () => {
+  it("a teacher's screens: home, Dice bench, Set finder, lessons, class runs, results and the class report", async () => {
     const page = await signInThroughUi(teacherBrowser.context, appUrl, tomasz.email, demoPassword);
     await check(page, "home", () => page.getByRole("heading", { level: 1 }).waitFor());
 
@@ -95,6 +97,9 @@ describe("every main screen has no serious or critical accessibility violations 
       await check(page, `the Dice bench's ${viewName} view`, () => page.getByRole("tabpanel").waitFor());
     }
 
+    await page.goto(`${appUrl}/app/bench/new`);
+    await check(page, "a new dice set on the Dice bench", () => page.getByLabel("Set name").waitFor());
+
     await page.goto(`${appUrl}/app/finder`);
     await check(page, "the Set finder", () => page.getByRole("heading", { name: "Set finder", level: 1 }).waitFor());
 
@@ -104,6 +109,11 @@ describe("every main screen has no serious or critical accessibility violations 
     await lessonLink.click();
     await page.waitForURL(/\/app\/lessons\/[0-9a-f-]{36}$/);
     await check(page, "the lesson editor", () => page.getByLabel("Title", { exact: true }).waitFor());
+
+    await page.goto(`${appUrl}/app/runs`);
+    await check(page, "the class runs list", () => page.getByRole("link", { name: demoRunLesson.title }).first().waitFor());
+    await page.goto(`${appUrl}/app/results`);
+    await check(page, "the results archive", () => page.getByRole("link", { name: demoRunLesson.title }).first().waitFor());
 
     const runId = await findSeededDemoRun(db, demoRunLesson);
     expect(runId, "the seed's closed demo run").toBeTruthy();
@@ -118,7 +128,7 @@ describe("every main screen has no serious or critical accessibility violations 
     await check(page, "the class report", () => page.getByRole("heading", { name: demoRunLesson.title, level: 1 }).waitFor());
   });
 
-  it("the head's Department shelf and a template", async () => {
+  it("the head's Department shelf, a template and the Department page", async () => {
     const page = await signInThroughUi(headBrowser.context, appUrl, priya.email, demoPassword);
     await page.goto(`${appUrl}/app/shelf`);
     const template = page.getByRole("link", { name: demoTemplates[0].lessonTitle }).first();
@@ -126,6 +136,8 @@ describe("every main screen has no serious or critical accessibility violations 
     await template.click();
     await page.waitForURL(/\/app\/shelf\/templates\//);
     await check(page, "a shelf template", () => page.getByText(demoTemplates[0].changeNote).first().waitFor());
+    await page.goto(`${appUrl}/app/department`);
+    await check(page, "the Department page of the head", () => page.getByRole("heading", { name: "Maths, Harbourside Academy", level: 1 }).waitFor());
   });
 
   it("a live run: the Run board and the Wall view at laptop size, the Roll pad at phone size", async () => {
