@@ -60,7 +60,9 @@ describe("every main screen has no serious or critical accessibility violations 
     await page.goto(`${appUrl}/sign-in`);
     await check(page, "the sign-in page", () => page.getByLabel("E-mail").waitFor());
     await page.getByRole("button", { name: "Sign in" }).click();
-    await check(page, "the sign-in page with its field errors", () => page.getByLabel("E-mail").and(page.locator("[aria-invalid=true]")).waitFor());
+    await check(page, "the sign-in page with its field errors", () =>
+      page.getByLabel("E-mail").and(page.locator("[aria-invalid=true]")).waitFor(),
+    );
     await screenshot(page, "accessibility-sign-in-laptop");
     await page.setViewportSize(viewports.phone);
     await screenshot(page, "accessibility-sign-in-phone");
@@ -87,7 +89,12 @@ describe("every main screen has no serious or critical accessibility violations 
     await keepIt.click();
     await setLink.click();
     await page.waitForURL(/\/app\/bench\/[0-9a-f-]{36}$/);
-    await check(page, "a dice set on the Dice bench", () => page.getByTestId(/^matchup-matrix-/).first().waitFor());
+    await check(page, "a dice set on the Dice bench", () =>
+      page
+        .getByTestId(/^matchup-matrix-/)
+        .first()
+        .waitFor(),
+    );
     // Each view of the exact analysis is drawn only while its tab is chosen, so each is checked on its own.
     const views = page.getByRole("tablist", { name: "Views of the analysis" }).getByRole("tab");
     const viewNames = await views.allTextContents();
@@ -137,7 +144,9 @@ describe("every main screen has no serious or critical accessibility violations 
     await page.waitForURL(/\/app\/shelf\/templates\//);
     await check(page, "a shelf template", () => page.getByText(demoTemplates[0].changeNote).first().waitFor());
     await page.goto(`${appUrl}/app/department`);
-    await check(page, "the Department page of the head", () => page.getByRole("heading", { name: "Maths, Harbourside Academy", level: 1 }).waitFor());
+    await check(page, "the Department page of the head", () =>
+      page.getByRole("heading", { name: "Maths, Harbourside Academy", level: 1 }).waitFor(),
+    );
   });
 
   it("a live run: the Run board and the Wall view at laptop size, the Roll pad at phone size", async () => {
@@ -146,7 +155,13 @@ describe("every main screen has no serious or critical accessibility violations 
     const set = sets.find((entry) => entry.name === demoDiceSetNames.threeDice)!;
     const lesson = await board.request.post(`${appUrl}/api/lessons`, {
       headers,
-      data: { ...emptyLessonInput(), title: `Harbour checks ${Date.now().toString(36)}`, classGroup: "9M", status: "ready", diceSetId: set.id },
+      data: {
+        ...emptyLessonInput(),
+        title: `Harbour checks ${Date.now().toString(36)}`,
+        classGroup: "9M",
+        status: "ready",
+        diceSetId: set.id,
+      },
     });
     expect(lesson.status(), await lesson.text()).toBe(201);
     const run = await board.request.post(`${appUrl}/api/class-runs`, { headers, data: { lessonId: (await lesson.json()).lesson.id } });
@@ -167,7 +182,12 @@ describe("every main screen has no serious or critical accessibility violations 
     const face = phone.getByRole("button", { name: / shows / }).first();
     await face.waitFor();
     await face.click();
-    await check(phone, "the Roll pad recording a roll", () => phone.getByRole("button", { name: / shows / }).first().waitFor());
+    await check(phone, "the Roll pad recording a roll", () =>
+      phone
+        .getByRole("button", { name: / shows / })
+        .first()
+        .waitFor(),
+    );
     await screenshot(phone, "accessibility-roll-pad-phone");
 
     await board.goto(`${appUrl}/app/runs/${runId}`);

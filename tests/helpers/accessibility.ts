@@ -20,6 +20,8 @@ export async function expectNoSeriousViolations(page: Page, name: string) {
       }),
     );
   if (found.length > 0) {
-    throw new Error(`${found.length} serious or critical accessibility violations on ${name}:\n${found.map((line) => `- ${line}`).join("\n")}`);
+    throw new Error(
+      `${found.length} serious or critical accessibility violations on ${name}:\n${found.map((line) => `- ${line}`).join("\n")}`,
+    );
   }
 }
