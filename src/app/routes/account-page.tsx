@@ -6,10 +6,12 @@ import { Logo } from "@/components/ui/logo";
 export function AccountPage({ title, children, footer }: { title: string; children: ReactNode; footer: ReactNode }) {
   return (
     <div className="flex min-h-dvh flex-col items-center bg-sand px-4 py-10">
-      <Link to="/" className="mb-6 flex items-center gap-3 text-2xl font-bold text-ink">
-        <Logo className="h-10 w-10 text-ink" />
-        Outroll
-      </Link>
+      <header className="mb-6">
+        <Link to="/" className="flex items-center gap-3 text-2xl font-bold text-ink">
+          <Logo className="h-10 w-10 text-ink" />
+          Outroll
+        </Link>
+      </header>
       <main className="w-full max-w-md rounded-2xl border-2 border-line bg-shell p-6 shadow-sm sm:p-8">
         <h1 className="mb-6 text-3xl">{title}</h1>
         {children}

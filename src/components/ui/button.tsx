@@ -1,4 +1,4 @@
-import type { ButtonHTMLAttributes } from "react";
+import type { ComponentProps } from "react";
 
 const variants = {
   primary: "bg-tide text-white hover:bg-tide-dark shadow-sm",
@@ -7,7 +7,7 @@ const variants = {
   danger: "bg-alarm text-white hover:bg-alarm/90",
 } as const;
 
-type ButtonProps = ButtonHTMLAttributes<HTMLButtonElement> & { variant?: keyof typeof variants; busy?: boolean };
+type ButtonProps = ComponentProps<"button"> & { variant?: keyof typeof variants; busy?: boolean };
 
 export function Button({ variant = "primary", busy = false, className = "", children, disabled, ...props }: ButtonProps) {
   return (

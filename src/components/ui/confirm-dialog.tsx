@@ -31,6 +31,7 @@ export function ConfirmDialog({
   useEffect(() => {
     const dialog = ref.current;
     if (!dialog) return;
+    // showModal() focuses the first button, Cancel, so Enter never confirms by accident.
     if (open && !dialog.open) dialog.showModal();
     if (!open && dialog.open) dialog.close();
   }, [open]);
@@ -50,7 +51,7 @@ export function ConfirmDialog({
       </h2>
       <div className="mb-6 text-base">{children}</div>
       <div className="flex flex-wrap justify-end gap-2">
-        <Button variant="secondary" onClick={onCancel} autoFocus>
+        <Button variant="secondary" onClick={onCancel}>
           {cancelLabel}
         </Button>
         <Button variant={tone} busy={busy} onClick={onConfirm}>

@@ -18,7 +18,12 @@ export function LinkButton({ variant = "secondary", className = "", ...props }: 
 export function AnchorButton({
   variant = "secondary",
   className = "",
+  children,
   ...props
 }: AnchorHTMLAttributes<HTMLAnchorElement> & { variant?: keyof typeof variants }) {
-  return <a {...props} className={`${base} ${variants[variant]} ${className}`} />;
+  return (
+    <a {...props} className={`${base} ${variants[variant]} ${className}`}>
+      {children}
+    </a>
+  );
 }

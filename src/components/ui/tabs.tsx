@@ -37,7 +37,7 @@ export function Tabs({
 
   return (
     <div>
-      <div role="tablist" aria-label={label} className="flex flex-wrap gap-1 border-b-2 border-line" onKeyDown={move}>
+      <div role="tablist" aria-label={label} className="flex flex-wrap gap-1 border-b-2 border-line">
         {items.map((item) => {
           const active = item.id === current.id;
           return (
@@ -53,6 +53,7 @@ export function Tabs({
               aria-controls={`${baseId}-panel-${item.id}`}
               tabIndex={active ? 0 : -1}
               onClick={() => onSelect(item.id)}
+              onKeyDown={move}
               className={`-mb-0.5 min-h-11 rounded-t-lg border-2 px-3 py-2 font-bold ${
                 active ? "border-line border-b-shell bg-shell text-ink" : "border-transparent text-ink-soft hover:text-ink"
               }`}

@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from "react";
+import { useEffect, useRef, useState, type FormEvent } from "react";
 import { nicknameProblem, type BoardGroup, type ClassRun } from "@shared/schemas/class-runs";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
@@ -31,6 +31,11 @@ export function GroupActions({ run, group }: { run: ClassRun; group: BoardGroup 
   const [nickname, setNickname] = useState(group.nickname);
   const [removing, setRemoving] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
+  const nicknameField = useRef<HTMLInputElement>(null);
+  // The new nickname's field takes the focus when the teacher chooses to rename.
+  useEffect(() => {
+    if (renaming) nicknameField.current?.focus();
+  }, [renaming]);
   if (run.status === "closed") return <span className="text-ink-soft">–</span>;
 
   const submit = (event: FormEvent) => {
@@ -55,7 +60,7 @@ export function GroupActions({ run, group }: { run: ClassRun; group: BoardGroup 
               className="min-h-11 rounded-lg border-2 border-line bg-white px-2 text-base font-normal"
               value={nickname}
               maxLength={40}
-              autoFocus
+              ref={nicknameField}
               onChange={(event) => setNickname(event.target.value)}
             />
           </label>

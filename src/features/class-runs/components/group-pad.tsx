@@ -331,9 +331,9 @@ export function GroupPad({ session, onLeave }: { session: PadSession; onLeave: (
   return (
     <PadFrame status={<DeliveryStatus snapshot={snapshot} />}>
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <p className="text-xl font-bold" data-testid="group-nickname">
+        <h1 className="text-xl font-bold" data-testid="group-nickname">
           {nickname}
-        </p>
+        </h1>
         {padState && (padState.run.phase === "Guess" || ROLL_PHASES.includes(padState.run.phase)) && (
           <p className="text-base text-ink-soft">
             {padState.run.phase}: {phaseText[padState.run.phase]}

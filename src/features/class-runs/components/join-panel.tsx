@@ -27,12 +27,12 @@ export function JoinPanel({ run, size = "board" }: { run: ClassRun; size?: "boar
         </div>
       )}
       <p className={wall ? "text-3xl" : "text-base"}>Join code</p>
-      <p
-        data-testid="join-code"
-        aria-label={`Join code ${run.joinCode.split("").join(" ")}`}
-        className={`font-mono font-bold tracking-[0.15em] ${wall ? "text-[min(11vw,9rem)] leading-none" : "text-5xl"}`}
-      >
-        {spacedCode(run.joinCode)}
+      {/* A screen reader spells the code out character by character (aria-label is not read on a plain paragraph). */}
+      <p className={`font-mono font-bold tracking-[0.15em] ${wall ? "text-[min(11vw,9rem)] leading-none" : "text-5xl"}`}>
+        <span data-testid="join-code" aria-hidden="true">
+          {spacedCode(run.joinCode)}
+        </span>
+        <span className="sr-only">Join code {run.joinCode.split("").join(" ")}</span>
       </p>
       <p className={`break-all text-center ${wall ? "text-3xl" : "text-base"}`}>
         or open <span className="font-bold">{url.replace(/^https?:\/\//, "")}</span>

@@ -203,7 +203,7 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
   }
 
   return (
-    <div className="flex min-h-dvh flex-col gap-6 bg-ink p-8 text-white">
+    <main className="flex min-h-dvh flex-col gap-6 bg-ink p-8 text-white">
       <header className="flex flex-wrap items-start justify-between gap-6">
         <div>
           <p className="text-3xl text-white/85">{[run.title, run.classGroup].filter(Boolean).join(" · ")}</p>
@@ -224,7 +224,7 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
       <Link to={`/app/runs/${run.id}`} className="self-start text-xl text-white/80 underline">
         Back to the Run board
       </Link>
-    </div>
+    </main>
   );
 }
 

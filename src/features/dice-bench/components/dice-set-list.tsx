@@ -1,4 +1,4 @@
-import { useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { useNavigate } from "react-router-dom";
 import type { DiceSet } from "@shared/schemas/dice-sets";
 import { DieSwatch } from "@/components/dice/die-swatch";
@@ -69,6 +69,11 @@ function SetCard({ set }: { set: DiceSet }) {
   const duplicate = useDuplicateDiceSet();
   const remove = useDeleteDiceSet();
   const [confirming, setConfirming] = useState(false);
+  const keepIt = useRef<HTMLButtonElement>(null);
+  // The question takes the focus when it opens, on the safe answer.
+  useEffect(() => {
+    if (confirming) keepIt.current?.focus();
+  }, [confirming]);
   const headingId = `set-${set.id}`;
   return (
     <li className="flex min-w-0 flex-col gap-3 rounded-2xl border-2 border-line bg-shell p-4" aria-labelledby={headingId}>
@@ -116,7 +121,7 @@ function SetCard({ set }: { set: DiceSet }) {
             <Button variant="danger" busy={remove.isPending} onClick={() => remove.mutate(set.id)}>
               Yes, delete it
             </Button>
-            <Button variant="secondary" onClick={() => setConfirming(false)} autoFocus>
+            <Button variant="secondary" ref={keepIt} onClick={() => setConfirming(false)}>
               Keep it
             </Button>
           </div>
