@@ -71,7 +71,14 @@ export default defineConfig(({ mode }) => ({
         manifestTransforms: [
           (entries) => {
             const manifest = JSON.parse(readFileSync(path.join(outDir, ".vite/manifest.json"), "utf8")) as Record<string, ManifestChunk>;
-            const padFiles = new Set([...padEntryFiles(manifest).files, "pad.html", "pad.webmanifest", "pad-icon.svg", "pad-icon-192.png", "pad-icon-512.png"]);
+            const padFiles = new Set([
+              ...padEntryFiles(manifest).files,
+              "pad.html",
+              "pad.webmanifest",
+              "pad-icon.svg",
+              "pad-icon-192.png",
+              "pad-icon-512.png",
+            ]);
             return { manifest: entries.filter((entry) => padFiles.has(entry.url)), warnings: [] };
           },
         ],

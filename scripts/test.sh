@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # npm test: installs what is missing, brings up a throwaway PostgreSQL cluster, then runs every suite:
-# typecheck, client build, vitest (unit, integration against the real app and database, browser tests in chromium).
+# lint (ESLint, Prettier, knip), typecheck, client build, vitest (unit, integration against the real app and database, browser tests in chromium).
 # Ends with one line "N passed, N failed" and exits non-zero on any failure.
 set -uo pipefail
 source "$(dirname "$0")/lib/setup.sh"
@@ -45,6 +45,7 @@ step() {
 
 # With arguments (test files or folders) only those run, for quick local loops; the full run takes none.
 if [ "$#" -eq 0 ]; then
+  step "lint" npm run lint --silent
   step "typecheck" npx tsc --noEmit -p tsconfig.json
 fi
 if [ "$#" -eq 0 ] || printf '%s\n' "$@" | grep -q e2e; then

@@ -4,7 +4,15 @@ import { simulatedMatchupRolls, winnerSeatOf } from "@shared/class-results/virtu
 import { mulberry32, randomBelow } from "@shared/probability/index";
 import { lessonPlanSchema } from "@shared/schemas/lessons";
 import type { Database } from "../server/db/client";
-import { findLessonForRun, findRunOfLesson, insertGroups, insertRolls, listVotes, upsertVote, type NewRoll } from "../server/db/queries/class-runs";
+import {
+  findLessonForRun,
+  findRunOfLesson,
+  insertGroups,
+  insertRolls,
+  listVotes,
+  upsertVote,
+  type NewRoll,
+} from "../server/db/queries/class-runs";
 import { lesson, user } from "../server/db/schema/index";
 import { insertRunWithJoinCode, runValuesFromLesson } from "../server/services/class-runs.service";
 import { demoRunLesson } from "./demo-scenario";
@@ -88,6 +96,8 @@ export async function seedClassRuns(db: Database): Promise<{ runId: string | nul
     await insertRolls(tx, rolls);
   });
   const voteCount = (await listVotes(db, run.id)).length;
-  console.log(`Demo class run "${run.title}" added: ${demoRunGroups.length} groups, ${voteCount} votes, ${demoRunGroups.length * ROLLS_PER_GROUP} rolls.`);
+  console.log(
+    `Demo class run "${run.title}" added: ${demoRunGroups.length} groups, ${voteCount} votes, ${demoRunGroups.length * ROLLS_PER_GROUP} rolls.`,
+  );
   return { runId: run.id };
 }

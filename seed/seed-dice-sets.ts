@@ -16,11 +16,14 @@ export type DemoDiceSet = { ownerEmail: string; input: DiceSetInput; foundWith: 
 export const demoDiceSets: DemoDiceSet[] = [
   {
     ownerEmail: tomasz,
-    // Set finder: 3 dice, 6 faces, values 1 to 18, one cycle, no ties, strongest cycle, 50 results, 20 s, seed 11 (a 7/12 result whose dice each carry three or more values).
-    foundWith: '{"diceCount":3,"facesPerDie":6,"faceValues":{"kind":"range","min":1,"max":18},"property":"one-cycle","allowTies":false,"objective":"strongest-cycle","maxResults":50,"timeBudgetSeconds":20,"seed":11}',
+    // Set finder: 3 dice, 6 faces, values 1 to 18, one cycle, no ties, strongest cycle, 50 results, 20 s, seed 11 (a 7/12 result whose
+    // dice each carry three or more values).
+    foundWith:
+      '{"diceCount":3,"facesPerDie":6,"faceValues":{"kind":"range","min":1,"max":18},"property":"one-cycle","allowTies":false,"objective":"strongest-cycle","maxResults":50,"timeBudgetSeconds":20,"seed":11}',
     input: {
       name: demoDiceSetNames.threeDice,
-      description: "Three six-faced dice in one cycle: Puffin beats Gannet, Gannet beats Skua and Skua beats Puffin, each with probability 7/12. No two dice share a face, so a roll never ties.",
+      description:
+        "Three six-faced dice in one cycle: Puffin beats Gannet, Gannet beats Skua and Skua beats Puffin, each with probability 7/12. No two dice share a face, so a roll never ties.",
       visibility: "department",
       dice: [
         { name: "Puffin", faces: [1, 1, 6, 6, 7, 11], colour: "teal", pattern: "dots" },
@@ -31,11 +34,14 @@ export const demoDiceSets: DemoDiceSet[] = [
   },
   {
     ownerEmail: tomasz,
-    // Set finder: 3 dice, 6 faces, values 1 to 18, reversing cycle, no ties, strongest cycle, 50 results, 30 s, seed 21 (the strongest result whose faces stay at 11 or below).
-    foundWith: '{"diceCount":3,"facesPerDie":6,"faceValues":{"kind":"range","min":1,"max":18},"property":"reversing-cycle","allowTies":false,"objective":"strongest-cycle","maxResults":50,"timeBudgetSeconds":30,"seed":21}',
+    // Set finder: 3 dice, 6 faces, values 1 to 18, reversing cycle, no ties, strongest cycle, 50 results, 30 s, seed 21 (the strongest
+    // result whose faces stay at 11 or below).
+    foundWith:
+      '{"diceCount":3,"facesPerDie":6,"faceValues":{"kind":"range","min":1,"max":18},"property":"reversing-cycle","allowTies":false,"objective":"strongest-cycle","maxResults":50,"timeBudgetSeconds":30,"seed":21}',
     input: {
       name: demoDiceSetNames.reversing,
-      description: "With one die each Fulmar beats Tern, Tern beats Guillemot and Guillemot beats Fulmar. Roll two dice each and add: every one of those matchups turns round.",
+      description:
+        "With one die each Fulmar beats Tern, Tern beats Guillemot and Guillemot beats Fulmar. Roll two dice each and add: every one of those matchups turns round.",
       visibility: "department",
       dice: [
         { name: "Fulmar", faces: [1, 1, 7, 7, 7, 8], colour: "ocean", pattern: "rings" },
@@ -47,7 +53,8 @@ export const demoDiceSets: DemoDiceSet[] = [
   {
     ownerEmail: ada,
     // Set finder: 5 dice, 6 faces, values 1 to 15, two cycles, no ties, strongest cycle, 10 results, 60 s, seed 3 (its first result).
-    foundWith: '{"diceCount":5,"facesPerDie":6,"faceValues":{"kind":"range","min":1,"max":15},"property":"two-cycles","allowTies":false,"objective":"strongest-cycle","maxResults":10,"timeBudgetSeconds":60,"seed":3}',
+    foundWith:
+      '{"diceCount":5,"facesPerDie":6,"faceValues":{"kind":"range","min":1,"max":15},"property":"two-cycles","allowTies":false,"objective":"strongest-cycle","maxResults":10,"timeBudgetSeconds":60,"seed":3}',
     input: {
       name: demoDiceSetNames.fiveDice,
       description:
@@ -66,10 +73,12 @@ export const demoDiceSets: DemoDiceSet[] = [
   {
     ownerEmail: tomasz,
     // Set finder: 3 dice, 4 faces, values 1 to 9, one cycle, no ties, small faces (its first result: nothing above 6).
-    foundWith: '{"diceCount":3,"facesPerDie":4,"faceValues":{"kind":"range","min":1,"max":9},"property":"one-cycle","allowTies":false,"objective":"small-faces"}',
+    foundWith:
+      '{"diceCount":3,"facesPerDie":4,"faceValues":{"kind":"range","min":1,"max":9},"property":"one-cycle","allowTies":false,"objective":"small-faces"}',
     input: {
       name: "Gull starter (four faces)",
-      description: "Tomasz's draft: three four-faced dice with faces no higher than 6, for a quick starter. Gull beats Booby 9/16, Booby beats Noddy 5/8, Noddy beats Gull 5/8.",
+      description:
+        "Tomasz's draft: three four-faced dice with faces no higher than 6, for a quick starter. Gull beats Booby 9/16, Booby beats Noddy 5/8, Noddy beats Gull 5/8.",
       visibility: "private",
       dice: [
         { name: "Gull", faces: [1, 4, 4, 4], colour: "coral", pattern: "triangles" },

@@ -6,7 +6,11 @@ import { diceSet, lesson } from "../server/db/schema/index";
 import { demoDiceSetNames, demoRunLesson, demoTeachers } from "./demo-scenario";
 
 type DemoSetKey = keyof typeof demoDiceSetNames;
-type DemoLesson = { ownerEmail: string; set: DemoSetKey; input: Partial<LessonInput> & Pick<LessonInput, "title" | "classGroup" | "status"> };
+type DemoLesson = {
+  ownerEmail: string;
+  set: DemoSetKey;
+  input: Partial<LessonInput> & Pick<LessonInput, "title" | "classGroup" | "status">;
+};
 
 /** Phase minutes and notes in glossary order; a phase without minutes is left out of the lesson. */
 function phases(entries: Partial<Record<LessonPhaseName, [number, string]>>): LessonInput["phases"] {
@@ -43,9 +47,15 @@ export const demoLessons: DemoLesson[] = [
         Prove: [15, "Draw the 6 × 6 grid for one matchup and count the winning cells."],
         Reflect: [10, "Discuss the prompts, then the exit ticket."],
       }),
-      discussionPrompts: ["If you could choose second, which die would you pick, and why?", "Why did the pooled result look clearer than any one group's?"],
+      discussionPrompts: [
+        "If you could choose second, which die would you pick, and why?",
+        "Why did the pooled result look clearer than any one group's?",
+      ],
       exitTicket: "Your friend picks a die first. Explain how you would choose yours.",
-      differentiation: { support: "Give the grid for the first matchup already drawn.", stretch: "Find the chance the same die wins three rolls in a row." },
+      differentiation: {
+        support: "Give the grid for the first matchup already drawn.",
+        stretch: "Find the chance the same die wins three rolls in a row.",
+      },
     },
   },
   {
@@ -130,7 +140,13 @@ export const demoLessons: DemoLesson[] = [
       groups: 9,
       pupilsPerGroup: 3,
       rollsPerGroup: 30,
-      phases: phases({ Guess: [5, ""], Roll: [20, ""], Pool: [10, ""], Prove: [20, "Tree diagram on mini whiteboards."], Reflect: [5, ""] }),
+      phases: phases({
+        Guess: [5, ""],
+        Roll: [20, ""],
+        Pool: [10, ""],
+        Prove: [20, "Tree diagram on mini whiteboards."],
+        Reflect: [5, ""],
+      }),
       discussionPrompts: ["Is a game with these dice fair if you pick second?"],
       exitTicket: "Is this game fair? Explain with a probability.",
     },
@@ -207,7 +223,12 @@ async function demoSetId(db: Database, name: string, ownerId: string, department
   const rows = await db
     .select({ id: diceSet.id, ownerId: diceSet.ownerId })
     .from(diceSet)
-    .where(and(eq(diceSet.name, name), or(eq(diceSet.ownerId, ownerId), and(eq(diceSet.departmentId, departmentId), eq(diceSet.visibility, "department")))));
+    .where(
+      and(
+        eq(diceSet.name, name),
+        or(eq(diceSet.ownerId, ownerId), and(eq(diceSet.departmentId, departmentId), eq(diceSet.visibility, "department"))),
+      ),
+    );
   return (rows.find((row) => row.ownerId === ownerId) ?? rows[0])?.id ?? null;
 }
 
@@ -223,7 +244,8 @@ export async function seedLessons(db: Database, teachers: { departmentId: string
     const setId = await demoSetId(db, demoDiceSetNames[demo.set], ownerId, teachers.departmentId);
     const existing = await findLessonByOwnerAndTitle(db, ownerId, demo.input.title);
     if (existing) {
-      if (existing.diceSetId === null && setId !== null) await db.update(lesson).set({ diceSetId: setId }).where(eq(lesson.id, existing.id));
+      if (existing.diceSetId === null && setId !== null)
+        await db.update(lesson).set({ diceSetId: setId }).where(eq(lesson.id, existing.id));
       ids.push(existing.id);
       continue;
     }

@@ -25,7 +25,10 @@ function checkNewPassword(password: unknown, personal: unknown[]) {
   // Length first, here rather than in better-auth, so an existing address's sign-up is refused the same way.
   const length = passwordSchema.safeParse(password);
   if (!length.success) throw refuse("invalid_input", length.error.issues[0].message);
-  const weakness = passwordWeakness(password, personal.filter((text): text is string => typeof text === "string"));
+  const weakness = passwordWeakness(
+    password,
+    personal.filter((text): text is string => typeof text === "string"),
+  );
   if (weakness) throw refuse("weak_password", weakness);
 }
 
@@ -49,12 +52,25 @@ const beforeAccountChange = createAuthMiddleware(async (ctx) => {
     await ctx.context.password.hash(body.password);
     const owner = existing.user;
     sendMail(
-      existingAccountMail({ to: owner.email, name: owner.name, signInUrl: `${env.appOrigin}/sign-in`, resetUrl: `${env.appOrigin}/forgot-password` }),
+      existingAccountMail({
+        to: owner.email,
+        name: owner.name,
+        signInUrl: `${env.appOrigin}/sign-in`,
+        resetUrl: `${env.appOrigin}/forgot-password`,
+      }),
     ).catch((error: unknown) => logger.error({ err: error }, "existing-account e-mail not sent"));
     const now = new Date();
     return ctx.json({
       token: null,
-      user: { id: crypto.randomUUID(), email, name: String(body.name).trim(), image: null, emailVerified: false, createdAt: now, updatedAt: now },
+      user: {
+        id: crypto.randomUUID(),
+        email,
+        name: String(body.name).trim(),
+        image: null,
+        emailVerified: false,
+        createdAt: now,
+        updatedAt: now,
+      },
     });
   }
   if (ctx.path === "/update-user" && "name" in body) checkName(body.name);
@@ -97,7 +113,10 @@ export const accountHooks = { before: beforeAccountChange, after: afterAccountCh
  */
 async function inOurErrorShape(response: Response): Promise<Response> {
   if (response.status < 400 || !response.headers.get("content-type")?.includes("json")) return response;
-  const body = (await response.clone().json().catch(() => null)) as { code?: unknown; message?: unknown; error?: unknown } | null;
+  const body = (await response
+    .clone()
+    .json()
+    .catch(() => null)) as { code?: unknown; message?: unknown; error?: unknown } | null;
   if (!body || body.error !== undefined || typeof body.message !== "string") return response;
   const code = typeof body.code === "string" ? body.code.toLowerCase() : "auth_refused";
   const headers = new Headers(response.headers);

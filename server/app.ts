@@ -116,7 +116,9 @@ export function createApp(options: AppOptions = {}) {
   if ((options.serveClient ?? true) && existsSync(clientDir)) {
     const serveClient = clientFiles(clientDir);
     // Source maps and the build's manifests stay beside the build for operators and tests; they are never served.
-    app.get("/{*splat}", (req, res, next) => (req.path.endsWith(".map") || req.path.startsWith("/.vite/") ? notFoundHandler(req, res, next) : next()));
+    app.get("/{*splat}", (req, res, next) =>
+      req.path.endsWith(".map") || req.path.startsWith("/.vite/") ? notFoundHandler(req, res, next) : next(),
+    );
     app.use(serveClient);
     // The Roll pad is a page of its own; every other address is the teachers' app, whose router shows its pages.
     app.get(["/pad", "/pad/{*splat}"], (req, res, next) => {

@@ -44,8 +44,8 @@ export const auth = betterAuth({
     // address, so waiting for the mail server cannot tell an existing account from an unknown one.
     sendResetPassword: async ({ user, token }) => {
       const resetUrl = `${env.appOrigin}/reset-password?token=${encodeURIComponent(token)}`;
-      sendMail(passwordResetMail({ to: user.email, name: user.name, resetUrl, validMinutes: PASSWORD_RESET_MINUTES })).catch((error: unknown) =>
-        logger.error({ err: error }, "password reset e-mail not sent"),
+      sendMail(passwordResetMail({ to: user.email, name: user.name, resetUrl, validMinutes: PASSWORD_RESET_MINUTES })).catch(
+        (error: unknown) => logger.error({ err: error }, "password reset e-mail not sent"),
       );
     },
   },

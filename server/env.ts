@@ -13,9 +13,7 @@ function findProjectRoot(start: string): string {
 
 const projectRoot = findProjectRoot(import.meta.dirname);
 
-const flag = z
-  .enum(["1", "0", "true", "false", "yes", "no"])
-  .transform((value) => value === "1" || value === "true" || value === "yes");
+const flag = z.enum(["1", "0", "true", "false", "yes", "no"]).transform((value) => value === "1" || value === "true" || value === "yes");
 
 const envSchema = z.object({
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
@@ -31,11 +29,17 @@ const envSchema = z.object({
     .string()
     .trim()
     .default("false")
-    .refine((value) => !/^true$/i.test(value), "TRUST_PROXY=true would let any client choose its address; name the proxy instead, e.g. loopback or 10.0.0.5.")
+    .refine(
+      (value) => !/^true$/i.test(value),
+      "TRUST_PROXY=true would let any client choose its address; name the proxy instead, e.g. loopback or 10.0.0.5.",
+    )
     .transform((value): boolean | number | string[] => {
       if (value === "" || /^false$/i.test(value)) return false;
       if (/^\d+$/.test(value)) return Number(value);
-      return value.split(",").map((part) => part.trim()).filter(Boolean);
+      return value
+        .split(",")
+        .map((part) => part.trim())
+        .filter(Boolean);
     }),
   // Wrong passwords one account may take in SIGN_IN_FAILURE_MINUTES before its sign-ins wait (any address).
   SIGN_IN_FAILURES_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
@@ -90,7 +94,6 @@ export type Env = z.infer<typeof envSchema> & {
   /** Express's "trust proxy" value made from TRUST_PROXY. */
   trustProxy: boolean | number | string[];
 };
-
 
 /** A secret generated once per machine and kept under .data/, so sessions survive restarts without any set-up. */
 function localAuthSecret(dataDir: string): string {

@@ -52,7 +52,9 @@ async function shutdown(signal: string) {
   stopProposalDigests();
   startDraining();
   server.close();
-  await drainRolls(io).catch((error: unknown) => logger.warn({ err: error }, "some rolls could not be written; phones keep and resend them"));
+  await drainRolls(io).catch((error: unknown) =>
+    logger.warn({ err: error }, "some rolls could not be written; phones keep and resend them"),
+  );
   // A transport close, unlike io.close()'s "server shutting down" packet, makes socket.io clients reconnect on their own.
   io.engine.close();
   await stopSearchQueue().catch((error: unknown) => logger.warn({ err: error }, "the Set finder queue did not stop cleanly"));

@@ -18,7 +18,10 @@ const strength = new ZxcvbnFactory({
  * Strength Estimation", USENIX Security 2016).
  */
 export function passwordWeakness(password: string, personal: string[]): string | null {
-  const result = strength.check(password, [...personal.flatMap((text) => text.toLowerCase().split(/[\s@.]+/)).filter((word) => word.length > 2), "outroll"]);
+  const result = strength.check(password, [
+    ...personal.flatMap((text) => text.toLowerCase().split(/[\s@.]+/)).filter((word) => word.length > 2),
+    "outroll",
+  ]);
   if (result.score >= MIN_PASSWORD_SCORE) return null;
   const hints = [result.feedback.warning, ...result.feedback.suggestions].filter((hint): hint is string => Boolean(hint));
   return `This password is too easy to guess.${hints.length ? ` ${hints.join(" ")}` : ""} Three or four unrelated words make a strong one.`;

@@ -2,7 +2,15 @@ import { z } from "zod";
 import { faceValueSchema } from "./probability/die";
 import type { SetDie } from "./schemas/dice-sets";
 import type { Ack } from "./event-names";
-import { joinCodeSchema, matchupSchema, nicknameSchema, type BoardSnapshot, type RunPhase, type RunStatus, type RunTally } from "./schemas/class-runs";
+import {
+  joinCodeSchema,
+  matchupSchema,
+  nicknameSchema,
+  type BoardSnapshot,
+  type RunPhase,
+  type RunStatus,
+  type RunTally,
+} from "./schemas/class-runs";
 
 export { EVENTS, eventErrorCodes, RETRYABLE_ERROR_CODES, type Ack, type EventError, type EventErrorCode } from "./event-names";
 
@@ -13,7 +21,11 @@ const uuid = (what: string) => z.uuid({ error: `That is not a ${what} id.` });
  * A join. `attemptId` is a uuid v4 the phone makes per join attempt and sends again on a retry, so a join whose
  * acknowledgement was lost answers the same group and a fresh token instead of `nickname_taken`.
  */
-export const groupJoinPayloadSchema = z.object({ code: joinCodeSchema, nickname: nicknameSchema, attemptId: uuid("join attempt").optional() });
+export const groupJoinPayloadSchema = z.object({
+  code: joinCodeSchema,
+  nickname: nicknameSchema,
+  attemptId: uuid("join attempt").optional(),
+});
 export type GroupJoinPayload = z.input<typeof groupJoinPayloadSchema>;
 
 export const groupResumePayloadSchema = z.object({ token });
@@ -73,7 +85,15 @@ export type PadRun = {
 };
 
 /** A stored roll as the pad lists it. */
-export type PadRoll = { id: string; tally: number; matchup: number[]; faces: number[][]; totals: number[]; winnerSeat: number | null; recordedAt: string };
+export type PadRoll = {
+  id: string;
+  tally: number;
+  matchup: number[];
+  faces: number[][];
+  totals: number[];
+  winnerSeat: number | null;
+  recordedAt: string;
+};
 
 /** What group:join and group:resume answer: everything the Roll pad shows. */
 export type PadState = {

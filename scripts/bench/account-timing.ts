@@ -37,7 +37,11 @@ const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
 const password = "tidal-pool-lantern-42";
 async function post(pathName: string, body: unknown): Promise<number> {
   const started = performance.now();
-  const response = await fetch(`${baseUrl}${pathName}`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+  const response = await fetch(`${baseUrl}${pathName}`, {
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body: JSON.stringify(body),
+  });
   await response.arrayBuffer();
   return performance.now() - started;
 }
@@ -53,11 +57,14 @@ for (let round = 0; round < ROUNDS; round += 1) {
   times["reset, unknown"].push(await post("/api/auth/request-password-reset", { email: fresh(), redirectTo: "/reset-password" }));
 }
 
-const quantile = (values: number[], q: number) => [...values].sort((a, b) => a - b)[Math.min(values.length - 1, Math.floor(q * values.length))];
+const quantile = (values: number[], q: number) =>
+  [...values].sort((a, b) => a - b)[Math.min(values.length - 1, Math.floor(q * values.length))];
 console.log(`\n${ROUNDS} requests each, milliseconds (answers are held to a steady time; the columns should match):`);
 console.log("| request | median | 90th percentile | slowest |\n| --- | --- | --- | --- |");
 for (const [name, values] of Object.entries(times)) {
-  console.log(`| ${name} | ${quantile(values, 0.5).toFixed(1)} | ${quantile(values, 0.9).toFixed(1)} | ${Math.max(...values).toFixed(1)} |`);
+  console.log(
+    `| ${name} | ${quantile(values, 0.5).toFixed(1)} | ${quantile(values, 0.9).toFixed(1)} | ${Math.max(...values).toFixed(1)} |`,
+  );
 }
 io.close();
 server.close();

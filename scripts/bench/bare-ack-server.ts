@@ -7,7 +7,9 @@ const port = Number(process.env.PORT ?? 0);
 const server = createServer();
 const io = new Server(server, { path: "/socket.io", serveClient: false, maxHttpBufferSize: 64 * 1024 });
 io.on("connection", (socket) => {
-  socket.on("group:join", (_payload: unknown, acknowledge: (answer: unknown) => void) => acknowledge({ ok: true, token: "bare", state: null }));
+  socket.on("group:join", (_payload: unknown, acknowledge: (answer: unknown) => void) =>
+    acknowledge({ ok: true, token: "bare", state: null }),
+  );
   socket.on("roll:record", (payload: { roll: { id: string } }, acknowledge: (answer: unknown) => void) =>
     acknowledge({ ok: true, id: payload.roll.id, duplicate: false }),
   );

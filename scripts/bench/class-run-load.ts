@@ -85,10 +85,22 @@ function percentile(sorted: number[], share: number): number {
 }
 
 type Phone = { socket: Socket; token: string; matchup: number[] };
-type Measured = { acked: string[]; failed: number; latencies: number[]; measuredAcks: number; seconds: number; failures: Map<string, number> };
+type Measured = {
+  acked: string[];
+  failed: number;
+  latencies: number[];
+  measuredAcks: number;
+  seconds: number;
+  failures: Map<string, number>;
+};
 
 function openPhoneSocket(baseUrl: string, cookie?: string): Promise<Socket> {
-  const socket = connect(baseUrl, { transports: ["websocket"], forceNew: true, reconnection: false, extraHeaders: cookie ? { cookie } : undefined });
+  const socket = connect(baseUrl, {
+    transports: ["websocket"],
+    forceNew: true,
+    reconnection: false,
+    extraHeaders: cookie ? { cookie } : undefined,
+  });
   return new Promise((resolve, reject) => {
     socket.once("connect", () => resolve(socket));
     socket.once("connect_error", reject);
@@ -148,7 +160,16 @@ async function load(phones: Phone[], paceMs = 0): Promise<Measured> {
   return { acked, failed, latencies, measuredAcks, seconds: SECONDS, failures };
 }
 
-type OutrollCase = { ours: Measured; paced: Measured | null; lost: number; duplicated: number; unacknowledged: number; rows: number; updatesPerRunPerSecond: number; phones: Phone[] };
+type OutrollCase = {
+  ours: Measured;
+  paced: Measured | null;
+  lost: number;
+  duplicated: number;
+  unacknowledged: number;
+  rows: number;
+  updatesPerRunPerSecond: number;
+  phones: Phone[];
+};
 
 async function main() {
   console.log(
@@ -219,7 +240,10 @@ async function main() {
         headers: { "content-type": "application/json", origin: baseUrl },
         body: JSON.stringify({ email: owner.email, password: demoPassword }),
       });
-      const cookie = signIn.headers.getSetCookie().map((entry) => entry.split(";")[0]).join("; ");
+      const cookie = signIn.headers
+        .getSetCookie()
+        .map((entry) => entry.split(";")[0])
+        .join("; ");
       for (const run of runs) {
         const board = await openPhoneSocket(baseUrl, cookie);
         const ack = await board.emitWithAck("board:snapshot", { runId: run.id });
@@ -268,7 +292,10 @@ async function main() {
   const yardstick = async (script: string) => {
     const yardstickPort = await freePort();
     const yardstickUrl = `http://127.0.0.1:${yardstickPort}`;
-    const child = spawn("node", ["--import", "tsx", script], { env: { ...process.env, PORT: String(yardstickPort) }, stdio: ["ignore", "ignore", "inherit"] });
+    const child = spawn("node", ["--import", "tsx", script], {
+      env: { ...process.env, PORT: String(yardstickPort) },
+      stdio: ["ignore", "ignore", "inherit"],
+    });
     await waitFor(yardstickUrl, async () => {
       const probe = await openPhoneSocket(yardstickUrl).catch(() => null);
       probe?.disconnect();
@@ -291,7 +318,9 @@ async function main() {
   const row = (name: string, measured: Measured, lostCount: string, duplicateCount: string) =>
     `| ${name} | ${PHONES} | ${measured.acked.length} | ${rate(measured).toFixed(0)} | ${percentile(measured.latencies, 0.5).toFixed(1)} | ${percentile(measured.latencies, 0.99).toFixed(1)} | ${measured.failed} | ${lostCount} | ${duplicateCount} |`;
   console.log("");
-  console.log("| case | phones | rolls acknowledged | rolls/s (measured window) | p50 ack ms | p99 ack ms | refused or timed out | lost | duplicated |");
+  console.log(
+    "| case | phones | rolls acknowledged | rolls/s (measured window) | p50 ack ms | p99 ack ms | refused or timed out | lost | duplicated |",
+  );
   console.log("| --- | --- | --- | --- | --- | --- | --- | --- | --- |");
   console.log(row("Outroll, phones alone: validation, batching, PostgreSQL", alone.ours, String(alone.lost), String(alone.duplicated)));
   if (watched) {
@@ -299,22 +328,37 @@ async function main() {
     console.log(row(`Outroll, boards watching, paced at ${PACED_RATE} rolls/s in all`, watched.paced!, "(above)", "(above)"));
   }
   if (proxiedOne && proxiedTwo) {
-    console.log(row("Outroll, phones alone, one process behind nginx", proxiedOne.ours, String(proxiedOne.lost), String(proxiedOne.duplicated)));
-    console.log(row("Outroll, phones alone, two processes behind nginx", proxiedTwo.ours, String(proxiedTwo.lost), String(proxiedTwo.duplicated)));
+    console.log(
+      row("Outroll, phones alone, one process behind nginx", proxiedOne.ours, String(proxiedOne.lost), String(proxiedOne.duplicated)),
+    );
+    console.log(
+      row("Outroll, phones alone, two processes behind nginx", proxiedTwo.ours, String(proxiedTwo.lost), String(proxiedTwo.duplicated)),
+    );
   }
   console.log(row("yardstick: socket.io + PostgreSQL insert only", storeOnly, "n/a", "n/a"));
   console.log(row("bare socket.io, acknowledge only", ceiling, "n/a", "n/a"));
   console.log("");
-  const spread = (measured: Measured) => [0.9, 0.95, 0.999].map((share) => `p${share * 100} ${percentile(measured.latencies, share).toFixed(1)} ms`).join(", ");
-  console.log(`Acknowledgement latency, phones alone: ${spread(alone.ours)}, max ${(alone.ours.latencies.at(-1) ?? Number.NaN).toFixed(1)} ms; insert only: ${spread(storeOnly)}; bare: ${spread(ceiling)}.`);
+  const spread = (measured: Measured) =>
+    [0.9, 0.95, 0.999].map((share) => `p${share * 100} ${percentile(measured.latencies, share).toFixed(1)} ms`).join(", ");
+  console.log(
+    `Acknowledgement latency, phones alone: ${spread(alone.ours)}, max ${(alone.ours.latencies.at(-1) ?? Number.NaN).toFixed(1)} ms; insert only: ${spread(storeOnly)}; bare: ${spread(ceiling)}.`,
+  );
   if (watched) console.log(`With boards: ${spread(watched.ours)}; paced: ${spread(watched.paced!)}.`);
-  const share = (measured: Measured) => `${((rate(measured) / rate(ceiling)) * 100).toFixed(0)}% of the bare ceiling and ${((rate(measured) / rate(storeOnly)) * 100).toFixed(0)}% of the insert-only yardstick`;
-  console.log(`Phones alone: Outroll acknowledges ${share(alone.ours)} (aim: at least half the bare ceiling)${watched ? `; with boards, ${share(watched.ours)}` : ""}.`);
-  for (const [name, measured] of [["phones alone", alone], ["with boards", watched]] as const) {
+  const share = (measured: Measured) =>
+    `${((rate(measured) / rate(ceiling)) * 100).toFixed(0)}% of the bare ceiling and ${((rate(measured) / rate(storeOnly)) * 100).toFixed(0)}% of the insert-only yardstick`;
+  console.log(
+    `Phones alone: Outroll acknowledges ${share(alone.ours)} (aim: at least half the bare ceiling)${watched ? `; with boards, ${share(watched.ours)}` : ""}.`,
+  );
+  for (const [name, measured] of [
+    ["phones alone", alone],
+    ["with boards", watched],
+  ] as const) {
     if (!measured) continue;
     const failures = [...measured.ours.failures, ...(measured.paced?.failures ?? [])];
     if (failures.length) console.log(`Refusals, ${name}: ${failures.map(([code, count]) => `${code} ${count}`).join(", ")}`);
-    console.log(`Rows stored ${name}: ${measured.rows}, acknowledged ${measured.rows - measured.unacknowledged}: lost ${measured.lost}, duplicated ${measured.duplicated}, stored without an acknowledgement ${measured.unacknowledged}.`);
+    console.log(
+      `Rows stored ${name}: ${measured.rows}, acknowledged ${measured.rows - measured.unacknowledged}: lost ${measured.lost}, duplicated ${measured.duplicated}, stored without an acknowledgement ${measured.unacknowledged}.`,
+    );
   }
   if (proxiedOne && proxiedTwo) {
     const ratio = (measured: Measured, base: Measured) => (rate(measured) / rate(base)).toFixed(2);
@@ -322,7 +366,10 @@ async function main() {
       `Two processes behind nginx acknowledge ${ratio(proxiedTwo.ours, proxiedOne.ours)}× the rolls/s of one process behind nginx and ${ratio(proxiedTwo.ours, alone.ours)}× those of one process reached directly; p99 ${percentile(proxiedTwo.ours.latencies, 0.99).toFixed(1)} ms against ${percentile(proxiedOne.ours.latencies, 0.99).toFixed(1)} ms. Rows: two processes lost ${proxiedTwo.lost}, duplicated ${proxiedTwo.duplicated}; one behind nginx lost ${proxiedOne.lost}, duplicated ${proxiedOne.duplicated}.`,
     );
   }
-  if (watched) console.log(`Run boards received ${watched.updatesPerRunPerSecond.toFixed(1)} updates per run per second (throttled; never one per roll).`);
+  if (watched)
+    console.log(
+      `Run boards received ${watched.updatesPerRunPerSecond.toFixed(1)} updates per run per second (throttled; never one per roll).`,
+    );
   const ratio = rate(alone.ours) / rate(ceiling);
   const targets = [
     [`${PHONES} connected phones`, PHONES >= 300],
@@ -332,9 +379,18 @@ async function main() {
     ["0 duplicated", alone.duplicated === 0 && (watched?.duplicated ?? 0) === 0],
     ["half the bare ceiling", ratio >= 0.5],
   ] as const;
-  console.log(`Machine load average (1, 5, 15 min) at the end: ${loadavg().map((value) => value.toFixed(1)).join(", ")} on ${cpus().length} cores.`);
-  console.log(`Targets (phones alone; lost and duplicated over every case): ${targets.map(([name, met]) => `${met ? "met" : "NOT met"}: ${name}`).join("; ")}.`);
-  if (watched) console.log(`With a Run board watching each run, p99 is ${percentile(watched.ours.latencies, 0.99) < 100 ? "also" : "NOT"} under 100 ms.`);
+  console.log(
+    `Machine load average (1, 5, 15 min) at the end: ${loadavg()
+      .map((value) => value.toFixed(1))
+      .join(", ")} on ${cpus().length} cores.`,
+  );
+  console.log(
+    `Targets (phones alone; lost and duplicated over every case): ${targets.map(([name, met]) => `${met ? "met" : "NOT met"}: ${name}`).join("; ")}.`,
+  );
+  if (watched)
+    console.log(
+      `With a Run board watching each run, p99 is ${percentile(watched.ours.latencies, 0.99) < 100 ? "also" : "NOT"} under 100 ms.`,
+    );
 }
 
 await main();

@@ -30,7 +30,10 @@ const fiveDieSet = [
 const twentyA = [1, 2, 2, 4, 5, 7, 7, 8, 10, 11, 11, 13, 14, 14, 16, 17, 18, 18, 19, 20];
 const twentyB = [3, 3, 3, 4, 6, 6, 8, 9, 9, 9, 12, 12, 12, 15, 15, 15, 16, 17, 19, 19];
 const pick = [2, 2, 6, 6, 7, 7];
-const opponents = [[1, 5, 5, 5, 9, 9], [3, 3, 4, 4, 8, 8]];
+const opponents = [
+  [1, 5, 5, 5, 9, 9],
+  [3, 3, 4, 4, 8, 8],
+];
 
 const rows: string[][] = [];
 
@@ -40,8 +43,16 @@ const rows: string[][] = [];
   const naive = medianMilliseconds(() => naiveSetAnalysis(fiveDieSet.map((die) => die.faces)), 3, 1);
   const exact = analyzeSet(fiveDieSet);
   const brute = naiveSetAnalysis(fiveDieSet.map((die) => die.faces));
-  const agree = exact.levels.every((level, index) => level.matrix.every((row, i) => row.every((cell, j) => cell === null || cell.win.equals(brute.matrices[index][i][j]))));
-  rows.push(["(a) 5-die set, k = 1, 2, 3, all three-player picks", format(ours), format(naive), `${(naive / ours).toFixed(0)}×`, agree ? "yes" : "NO"]);
+  const agree = exact.levels.every((level, index) =>
+    level.matrix.every((row, i) => row.every((cell, j) => cell === null || cell.win.equals(brute.matrices[index][i][j]))),
+  );
+  rows.push([
+    "(a) 5-die set, k = 1, 2, 3, all three-player picks",
+    format(ours),
+    format(naive),
+    `${(naive / ours).toFixed(0)}×`,
+    agree ? "yes" : "NO",
+  ]);
 }
 
 // (b) Two d20 dice, 6 each: 20^12 joint outcomes, so the naive run gets a time budget.
@@ -66,7 +77,13 @@ const rows: string[][] = [];
   const ours = medianMilliseconds(() => beatAllProbability(pick, opponents, { dicePerPlayer: 3 }), 21, 5);
   const naive = medianMilliseconds(() => naiveBeatAll(pick, opponents, 3), 3, 1);
   const agree = beatAllProbability(pick, opponents, { dicePerPlayer: 3 }).equals(naiveBeatAll(pick, opponents, 3));
-  rows.push(["(c) beat-all, 1 pick vs 2 opponents, 3 dice each", format(ours), format(naive), `${(naive / ours).toFixed(0)}×`, agree ? "yes" : "NO"]);
+  rows.push([
+    "(c) beat-all, 1 pick vs 2 opponents, 3 dice each",
+    format(ours),
+    format(naive),
+    `${(naive / ours).toFixed(0)}×`,
+    agree ? "yes" : "NO",
+  ]);
 }
 
 const header = ["case", "engine median (ms)", "naive median (ms)", "speed-up", "same answer"];

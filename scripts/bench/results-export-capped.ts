@@ -10,7 +10,11 @@ const Papa = (await import("papaparse")).default;
 const { rollsCsvDownload, workbookDownload } = await import("../../server/services/results-export.service");
 
 const runId = process.env.RUN_ID!;
-const teacher = { user: { id: process.env.OWNER_ID!, name: "Bench Teacher", email: "bench@outroll-bench.test" }, department: null, role: null };
+const teacher = {
+  user: { id: process.env.OWNER_ID!, name: "Bench Teacher", email: "bench@outroll-bench.test" },
+  department: null,
+  role: null,
+};
 let bytes = 0;
 const sink = new Writable({
   write(chunk: Buffer, _encoding, done) {
@@ -25,7 +29,9 @@ if (task === "rolls.csv" || task === "results.xlsx") {
   await download.write(sink);
 } else {
   const all = await db.select().from(roll).where(eq(roll.runId, runId));
-  bytes = Papa.unparse(all.map((entry) => ({ ...entry, faces: JSON.stringify(entry.faces), matchup: JSON.stringify(entry.matchup) }))).length;
+  bytes = Papa.unparse(
+    all.map((entry) => ({ ...entry, faces: JSON.stringify(entry.faces), matchup: JSON.stringify(entry.matchup) })),
+  ).length;
 }
 await pool.end();
 console.log(`${task}: ${bytes} bytes`);

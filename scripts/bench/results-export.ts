@@ -72,7 +72,13 @@ async function insertRun(size: number): Promise<{ runId: string; insertSeconds: 
     .returning({ id: classRun.id });
   const groups = await db
     .insert(runGroup)
-    .values(Array.from({ length: GROUPS }, (_, index) => ({ runId: run.id, nickname: `Bench group ${index + 1}`, matchup: [index % 3, (index + 1) % 3] })))
+    .values(
+      Array.from({ length: GROUPS }, (_, index) => ({
+        runId: run.id,
+        nickname: `Bench group ${index + 1}`,
+        matchup: [index % 3, (index + 1) % 3],
+      })),
+    )
     .returning({ id: runGroup.id, matchup: runGroup.matchup });
   const insertStart = performance.now();
   const random = mulberry32(size);
@@ -171,7 +177,13 @@ function probeHeld(held: unknown[]) {
 
 const rows: string[][] = [];
 const record = (name: string, measured: Measured, output: string) =>
-  rows.push([name, measured.seconds.toFixed(2), measured.heapGrowth === null ? "—" : mebibytes(measured.heapGrowth), mebibytes(measured.rssGrowth), output]);
+  rows.push([
+    name,
+    measured.seconds.toFixed(2),
+    measured.heapGrowth === null ? "—" : mebibytes(measured.heapGrowth),
+    mebibytes(measured.rssGrowth),
+    output,
+  ]);
 
 const folder = await mkdtemp(path.join(tmpdir(), "outroll-bench-xlsx-"));
 
@@ -236,7 +248,9 @@ const floor = process.memoryUsage().heapUsed;
   let lines = 0;
   const measured = await measure(async () => {
     const all = await db.select().from(roll).where(eq(roll.runId, run.id));
-    const text = Papa.unparse(all.map((entry) => ({ ...entry, faces: entry.faces.map((list) => list.join("+")).join(" "), matchup: entry.matchup.join(" v ") })));
+    const text = Papa.unparse(
+      all.map((entry) => ({ ...entry, faces: entry.faces.map((list) => list.join("+")).join(" "), matchup: entry.matchup.join(" v ") })),
+    );
     lines = text.split("\r\n").length - 1;
     probeHeld([all, text]);
   }, false);
@@ -250,7 +264,16 @@ const floor = process.memoryUsage().heapUsed;
     const all = await db.select().from(roll).where(eq(roll.runId, run.id));
     const workbook = new ExcelJS.Workbook();
     const sheet = workbook.addWorksheet("Rolls");
-    for (const entry of all) sheet.addRow([entry.recordedAt, entry.groupId, entry.matchup.join(" v "), entry.faces[0].join("+"), entry.faces[1].join("+"), entry.winnerSeat, entry.source]);
+    for (const entry of all)
+      sheet.addRow([
+        entry.recordedAt,
+        entry.groupId,
+        entry.matchup.join(" v "),
+        entry.faces[0].join("+"),
+        entry.faces[1].join("+"),
+        entry.winnerSeat,
+        entry.source,
+      ]);
     const buffer = await workbook.xlsx.writeBuffer();
     bytes = buffer.byteLength;
     probeHeld([all, workbook, buffer]);
@@ -269,7 +292,10 @@ for (const task of ["rolls.csv", "results.xlsx", "baseline"]) {
       { env: { ...process.env, RUN_ID: run.id, OWNER_ID: teacherId, TASK: task }, maxBuffer: 1024 * 1024 },
       (error, stdout, stderr) => {
         if (!error) resolve(`finished (${stdout.trim()})`);
-        else resolve(/heap out of memory|Allocation failed/i.test(stderr) ? "ran out of memory" : `failed: ${stderr.trim().split("\n").pop()}`);
+        else
+          resolve(
+            /heap out of memory|Allocation failed/i.test(stderr) ? "ran out of memory" : `failed: ${stderr.trim().split("\n").pop()}`,
+          );
       },
     );
   });
@@ -283,7 +309,9 @@ await cleanup.connect();
 await cleanup.query(`drop database if exists ${databaseName} with (force)`);
 await cleanup.end();
 
-console.log(`Results exports of runs of 10,000 and ${ROLLS.toLocaleString("en-GB")} rolls (${GROUPS} groups; inserting the large run took ${large.insertSeconds.toFixed(1)} s)${gc ? "" : " — run with --expose-gc for live-heap figures"}`);
+console.log(
+  `Results exports of runs of 10,000 and ${ROLLS.toLocaleString("en-GB")} rolls (${GROUPS} groups; inserting the large run took ${large.insertSeconds.toFixed(1)} s)${gc ? "" : " — run with --expose-gc for live-heap figures"}`,
+);
 const header = ["case", "time (s)", "peak live heap growth (MiB)", "peak RSS growth (MiB)", "output"];
 const widths = header.map((title, index) => Math.max(title.length, ...rows.map((row) => row[index].length)));
 const line = (cells: string[]) => `| ${cells.map((cell, index) => cell.padEnd(widths[index])).join(" | ")} |`;

@@ -38,7 +38,14 @@ async function phone(url: string, profile: typeof throttled | null): Promise<{ f
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     headless: true,
     viewport: { width: 390, height: 844 },
-    args: ["--headless", "--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking", "--disable-component-update"],
+    args: [
+      "--headless",
+      "--no-sandbox",
+      "--disable-gpu",
+      "--no-first-run",
+      "--disable-background-networking",
+      "--disable-component-update",
+    ],
   });
   try {
     const visit = async (): Promise<Visit> => {
@@ -46,7 +53,12 @@ async function phone(url: string, profile: typeof throttled | null): Promise<{ f
       const cdp = await context.newCDPSession(page);
       await cdp.send("Network.enable");
       if (profile) {
-        await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: profile.latency, downloadThroughput: profile.downloadThroughput, uploadThroughput: profile.uploadThroughput });
+        await cdp.send("Network.emulateNetworkConditions", {
+          offline: false,
+          latency: profile.latency,
+          downloadThroughput: profile.downloadThroughput,
+          uploadThroughput: profile.uploadThroughput,
+        });
         await cdp.send("Emulation.setCPUThrottlingRate", { rate: profile.cpuRate });
       }
       const kinds = new Map<string, string>();
@@ -90,7 +102,10 @@ const seconds = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
 async function main() {
   const clientDir = mkdtempSync(path.join(tmpdir(), "outroll-pad-client-"));
   console.log("building the client…");
-  execFileSync("npx", ["vite", "build", "--logLevel", "error", "--outDir", clientDir, "--emptyOutDir"], { stdio: "inherit", env: { ...process.env, NODE_ENV: "production" } });
+  execFileSync("npx", ["vite", "build", "--logLevel", "error", "--outDir", clientDir, "--emptyOutDir"], {
+    stdio: "inherit",
+    env: { ...process.env, NODE_ENV: "production" },
+  });
 
   const name = "outroll_bench_pad";
   const admin = new pg.Client({ connectionString: baseUrl });
@@ -132,8 +147,30 @@ async function main() {
     ] as const) {
       const visits: { first: Visit; second: Visit }[] = [];
       for (let round = 0; round < ROUNDS; round += 1) visits.push(await phone(url, profile));
-      rows.push([label, "first visit", range(visits.map((v) => v.first.bytes), kb), range(visits.map((v) => v.first.ms), seconds)]);
-      rows.push([label, "second visit (cached)", range(visits.map((v) => v.second.bytes), kb), range(visits.map((v) => v.second.ms), seconds)]);
+      rows.push([
+        label,
+        "first visit",
+        range(
+          visits.map((v) => v.first.bytes),
+          kb,
+        ),
+        range(
+          visits.map((v) => v.first.ms),
+          seconds,
+        ),
+      ]);
+      rows.push([
+        label,
+        "second visit (cached)",
+        range(
+          visits.map((v) => v.second.bytes),
+          kb,
+        ),
+        range(
+          visits.map((v) => v.second.ms),
+          seconds,
+        ),
+      ]);
     }
     await run.teacher.dispose();
     console.log(`\nRoll pad at 390 × 844, ${ROUNDS} fresh phones per profile (before this change: 641–680 KB, 5.4–6.6 s throttled)`);

@@ -10,15 +10,39 @@ const SAMPLED_CYCLES = 20_000;
 const cases: { label: string; request: SetFinderRequestInput }[] = [
   {
     label: "3 dice × 6 faces, values 1–9, one cycle, ties allowed",
-    request: { diceCount: 3, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 9 }, property: "one-cycle", allowTies: true, objective: "strongest-cycle", timeBudgetSeconds: 120 },
+    request: {
+      diceCount: 3,
+      facesPerDie: 6,
+      faceValues: { kind: "range", min: 1, max: 9 },
+      property: "one-cycle",
+      allowTies: true,
+      objective: "strongest-cycle",
+      timeBudgetSeconds: 120,
+    },
   },
   {
     label: "3 dice × 6 faces, values 1–9, one cycle, no ties",
-    request: { diceCount: 3, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 9 }, property: "one-cycle", allowTies: false, objective: "strongest-cycle", timeBudgetSeconds: 120 },
+    request: {
+      diceCount: 3,
+      facesPerDie: 6,
+      faceValues: { kind: "range", min: 1, max: 9 },
+      property: "one-cycle",
+      allowTies: false,
+      objective: "strongest-cycle",
+      timeBudgetSeconds: 120,
+    },
   },
   {
     label: "3 dice × 6 faces, values 1–9, reversing cycle, no ties",
-    request: { diceCount: 3, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 9 }, property: "reversing-cycle", allowTies: false, objective: "strongest-cycle", timeBudgetSeconds: 120 },
+    request: {
+      diceCount: 3,
+      facesPerDie: 6,
+      faceValues: { kind: "range", min: 1, max: 9 },
+      property: "reversing-cycle",
+      allowTies: false,
+      objective: "strongest-cycle",
+      timeBudgetSeconds: 120,
+    },
   },
 ];
 

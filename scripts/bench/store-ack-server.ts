@@ -26,7 +26,9 @@ const batcher = new RollBatcher<BareRoll>(
 const server = createServer();
 const io = new Server(server, { path: "/socket.io", serveClient: false, maxHttpBufferSize: 64 * 1024 });
 io.on("connection", (socket) => {
-  socket.on("group:join", (_payload: unknown, acknowledge: (answer: unknown) => void) => acknowledge({ ok: true, token: "store", state: null }));
+  socket.on("group:join", (_payload: unknown, acknowledge: (answer: unknown) => void) =>
+    acknowledge({ ok: true, token: "store", state: null }),
+  );
   socket.on("roll:record", (payload: { roll: { id: string } }, acknowledge: (answer: unknown) => void) => {
     batcher.submit({ id: payload.roll.id, body: JSON.stringify(payload.roll) }).then(
       () => acknowledge({ ok: true, id: payload.roll.id, duplicate: false }),

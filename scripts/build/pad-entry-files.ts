@@ -1,5 +1,13 @@
 /** One chunk as Vite's build manifest (`.vite/manifest.json`) lists it. */
-export type ManifestChunk = { file: string; src?: string; isEntry?: boolean; imports?: string[]; dynamicImports?: string[]; css?: string[]; assets?: string[] };
+export type ManifestChunk = {
+  file: string;
+  src?: string;
+  isEntry?: boolean;
+  imports?: string[];
+  dynamicImports?: string[];
+  css?: string[];
+  assets?: string[];
+};
 
 /** The Roll pad's page, as Vite's manifest names it. */
 export const PAD_ENTRY = "pad.html";

@@ -10,14 +10,19 @@ import * as schema from "./schema/index";
  * opens a fresh connection. Without these handlers node exits on "Unhandled 'error' event".
  */
 export function guardPool(pool: pg.Pool, name: string): pg.Pool {
-  pool.on("error", (error) => logger.warn({ err: error, pool: name }, "an idle database connection failed; it is replaced on the next query"));
+  pool.on("error", (error) =>
+    logger.warn({ err: error, pool: name }, "an idle database connection failed; it is replaced on the next query"),
+  );
   pool.on("connect", (client) => {
     client.on("error", (error) => logger.warn({ err: error, pool: name }, "a database connection in use failed"));
   });
   return pool;
 }
 
-export const pool = guardPool(new pg.Pool({ connectionString: env.DATABASE_URL, max: env.DATABASE_POOL_SIZE, connectionTimeoutMillis: 5_000 }), "app");
+export const pool = guardPool(
+  new pg.Pool({ connectionString: env.DATABASE_URL, max: env.DATABASE_POOL_SIZE, connectionTimeoutMillis: 5_000 }),
+  "app",
+);
 
 export const db = drizzle(pool, { schema, casing: "snake_case" });
 

@@ -30,10 +30,12 @@ export function committedMigrationCount(): number {
 
 /** Whether the database has every committed migration applied; rejects when the database cannot be reached. */
 export async function migrationsApplied(pool: pg.Pool): Promise<boolean> {
-  const result = await pool.query<{ count: string }>("select count(*)::text as count from drizzle.__drizzle_migrations").catch((error: { code?: string }) => {
-    // 42P01: the table is not there yet (a fresh database before its first migration).
-    if (error.code === "42P01" || error.code === "3F000") return { rows: [{ count: "0" }] };
-    throw error;
-  });
+  const result = await pool
+    .query<{ count: string }>("select count(*)::text as count from drizzle.__drizzle_migrations")
+    .catch((error: { code?: string }) => {
+      // 42P01: the table is not there yet (a fresh database before its first migration).
+      if (error.code === "42P01" || error.code === "3F000") return { rows: [{ count: "0" }] };
+      throw error;
+    });
   return Number(result.rows[0].count) >= committedMigrationCount();
 }

@@ -45,7 +45,10 @@ export class RollAllowance {
     }
     if (this.leases.size > 10_000) this.forgetIdle();
     const request = this.requestLease(groupId);
-    this.pending.set(groupId, request.then(() => undefined));
+    this.pending.set(
+      groupId,
+      request.then(() => undefined),
+    );
     try {
       return await request;
     } finally {

@@ -5,19 +5,27 @@ import { sharedLimiter } from "./shared-limiter";
 /**
  * Every abuse limit of a class run, built in this one module. Limits on a run or an address are counted in PostgreSQL
  * (sharedLimiter), so every app process behind the proxy counts the same joins and guesses; limits on one socket
- * connection stay in the memory of the process that holds the connection. The figures are in docs/operations.md: a class of 30 groups behind one school address never reaches them.
+ * connection stay in the memory of the process that holds the connection. The figures are in docs/operations.md: a class of 30
+ * groups behind one school address never reaches them.
  */
 const MINUTE = 60;
 
 /** Joins (successful or not) from one socket connection, per minute. */
-const joinsPerConnection = new RateLimiterMemory({ keyPrefix: "join-connection", points: env.JOINS_PER_CONNECTION_PER_MINUTE, duration: MINUTE });
+const joinsPerConnection = new RateLimiterMemory({
+  keyPrefix: "join-connection",
+  points: env.JOINS_PER_CONNECTION_PER_MINUTE,
+  duration: MINUTE,
+});
 /** Joins into one run, per minute: the 60-groups-in-a-second flood stops here even across many connections. */
 const joinsPerRun = sharedLimiter({ keyPrefix: "join-run", points: env.JOINS_PER_RUN_PER_MINUTE, duration: MINUTE });
 /** Wrong join codes from one connection, per minute; past it every join from the connection waits. */
-const guessesPerConnection = new RateLimiterMemory({ keyPrefix: "guess-connection", points: env.CODE_GUESSES_PER_CONNECTION_PER_MINUTE, duration: MINUTE });
+const guessesPerConnection = new RateLimiterMemory({
+  keyPrefix: "guess-connection",
+  points: env.CODE_GUESSES_PER_CONNECTION_PER_MINUTE,
+  duration: MINUTE,
+});
 /** Wrong join codes from one address (a whole school shares one), per minute, over sockets and GET /api/pad/:code. */
 const guessesPerAddress = sharedLimiter({ keyPrefix: "guess-address", points: env.CODE_GUESSES_PER_ADDRESS_PER_MINUTE, duration: MINUTE });
-
 
 /** How many milliseconds a key of a limiter must wait when it has used all its points this minute, else null. */
 async function exhausted(limiter: RateLimiterAbstract, key: string): Promise<number | null> {
@@ -41,7 +49,10 @@ async function take(limiter: RateLimiterAbstract, key: string): Promise<number |
  * wrong codes this minute (then even the right code waits, so persisting gains a guesser nothing), else null.
  */
 export async function codeGuessingWait(address: string, connectionId: string | null): Promise<number | null> {
-  const waits = await Promise.all([exhausted(guessesPerAddress, address), connectionId ? exhausted(guessesPerConnection, connectionId) : null]);
+  const waits = await Promise.all([
+    exhausted(guessesPerAddress, address),
+    connectionId ? exhausted(guessesPerConnection, connectionId) : null,
+  ]);
   const wait = Math.max(0, ...waits.map((entry) => entry ?? 0));
   return wait > 0 ? wait : null;
 }
@@ -82,7 +93,8 @@ export class GroupRateLimiter {
   }
 
   private forgetFull(now: number) {
-    for (const [key, bucket] of this.buckets) if (bucket.tokens + ((now - bucket.at) / 1000) * this.perSecond >= this.burst) this.buckets.delete(key);
+    for (const [key, bucket] of this.buckets)
+      if (bucket.tokens + ((now - bucket.at) / 1000) * this.perSecond >= this.burst) this.buckets.delete(key);
   }
 }
 

@@ -16,6 +16,8 @@ export async function parseMessage(raw: Buffer | string): Promise<ParsedMessage>
   const mail = await simpleParser(raw, { skipImageLinks: true, skipTextLinks: true, skipHtmlToText: true });
   const text = (mail.text ?? "").replace(/\r\n/g, "\n").replace(/\n$/, "");
   const html = typeof mail.html === "string" ? mail.html.replace(/\r\n/g, "\n") : "";
-  const from = (mail.from?.value ?? []).map((address) => (address.name ? `${address.name} <${address.address}>` : address.address ?? "")).join(", ");
+  const from = (mail.from?.value ?? [])
+    .map((address) => (address.name ? `${address.name} <${address.address}>` : (address.address ?? "")))
+    .join(", ");
   return { from, subject: mail.subject ?? "", text, html, links: linksIn(text, html) };
 }

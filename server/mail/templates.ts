@@ -73,10 +73,7 @@ export function passwordResetMail(input: { to: string; name: string; resetUrl: s
     "Choose a new password",
     [`Hello ${escapeHtml(input.name)},`, `Someone asked to reset the password of the Outroll account for ${escapeHtml(input.to)}.`],
     { label: "Choose a new password", url: input.resetUrl },
-    [
-      `The link works once, for ${input.validMinutes} minutes.`,
-      `If it was not you, ignore this e-mail: your password stays as it is.`,
-    ],
+    [`The link works once, for ${input.validMinutes} minutes.`, `If it was not you, ignore this e-mail: your password stays as it is.`],
   );
   return { to: input.to, subject, text, html };
 }
@@ -99,7 +96,11 @@ export function proposalDigestMail(input: {
   const waiting = count === 1 ? "1 proposal waits" : `${count} proposals wait`;
   const subject = `${waiting} for your decision on the ${input.departmentName} shelf`;
   const summary =
-    fresh === 0 ? "None is new since the last digest." : fresh === count ? "All of them are new since the last digest." : `${fresh} new since the last digest.`;
+    fresh === 0
+      ? "None is new since the last digest."
+      : fresh === count
+        ? "All of them are new since the last digest."
+        : `${fresh} new since the last digest.`;
   const line = (proposal: DigestProposal) =>
     `${proposal.lessonTitle ?? "A lesson that was since deleted"}, proposed by ${proposal.proposedByName} on ${dayFormat.format(proposal.createdAt)}${proposal.isNew ? " (new)" : ""}`;
   const text = [

@@ -46,7 +46,9 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
     return;
   }
   if (error?.type === "charset.unsupported" || error?.type === "encoding.unsupported") {
-    res.status(400).json({ error: { code: "invalid_input", message: "What was sent is in a text encoding Outroll does not read; send it as UTF-8." } });
+    res
+      .status(400)
+      .json({ error: { code: "invalid_input", message: "What was sent is in a text encoding Outroll does not read; send it as UTF-8." } });
     return;
   }
   if (status < 500) {

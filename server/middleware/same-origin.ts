@@ -20,7 +20,10 @@ const firstHeader = (value: string | string[] | undefined) => (Array.isArray(val
  */
 export function crossOriginProblem(headers: IncomingHttpHeaders): string | null {
   const site = firstHeader(headers["sec-fetch-site"])?.toLowerCase();
-  if (site !== undefined) return site === "same-origin" || site === "none" ? null : `the request came from ${site === "same-site" ? "another page on this machine or domain" : "another website"}`;
+  if (site !== undefined)
+    return site === "same-origin" || site === "none"
+      ? null
+      : `the request came from ${site === "same-site" ? "another page on this machine or domain" : "another website"}`;
   const origin = firstHeader(headers.origin);
   if (origin === undefined) return null;
   if (trustedOrigins.includes(origin)) return null;
@@ -34,7 +37,11 @@ export function crossOriginProblem(headers: IncomingHttpHeaders): string | null 
 }
 
 const refusal = (problem: string) =>
-  new HttpError(403, "cross_origin", `Outroll refused this change because ${problem}, not from Outroll's own pages. Open Outroll at its own address and try again.`);
+  new HttpError(
+    403,
+    "cross_origin",
+    `Outroll refused this change because ${problem}, not from Outroll's own pages. Open Outroll at its own address and try again.`,
+  );
 
 /** 403 `cross_origin` for a state-changing request (anything but GET, HEAD, OPTIONS) sent from another origin. */
 export const requireSameOrigin: RequestHandler = (req, _res, next) => {
@@ -44,7 +51,10 @@ export const requireSameOrigin: RequestHandler = (req, _res, next) => {
 };
 
 /** socket.io's `allowRequest`: the handshake of a board or a phone from another origin is refused before it connects. */
-export function allowSocketHandshake(request: { headers: IncomingHttpHeaders }, answer: (error: string | null | undefined, success: boolean) => void) {
+export function allowSocketHandshake(
+  request: { headers: IncomingHttpHeaders },
+  answer: (error: string | null | undefined, success: boolean) => void,
+) {
   const problem = crossOriginProblem(request.headers);
   answer(problem ? `cross_origin: Outroll refused this connection because ${problem}.` : null, problem === null);
 }

@@ -10,7 +10,6 @@ import { requestRows } from "./pool-rows-wire";
 /** One board's rolls to pool at once: the rows, or a `poolRowsJson` string of them (quicker to post than many objects). */
 export type BoardPoolRequest = BoardPoolSettings & { nicknames: Record<string, string>; rows: PoolRow[] | string };
 
-
 /**
  * One refresh of a watched run: the worker holds the run's running pool between refreshes. `reset` sends every kept
  * roll, otherwise `rows` are only the new ones, added (once each) to what the worker holds for that `generation`.
@@ -46,7 +45,10 @@ function startWorker(): Worker | null {
   try {
     // The worker is TypeScript like the server; Node 20 workers ignore --import tsx, so a two-line bootstrap registers it.
     const started = import.meta.url.endsWith(".ts")
-      ? new Worker(`import("tsx/esm/api").then(({ register }) => { register(); return import(${JSON.stringify(new URL("./pooling-worker.ts", import.meta.url).href)}); });`, { eval: true })
+      ? new Worker(
+          `import("tsx/esm/api").then(({ register }) => { register(); return import(${JSON.stringify(new URL("./pooling-worker.ts", import.meta.url).href)}); });`,
+          { eval: true },
+        )
       : // The built server (npm run build) has the worker as an entry of its own.
         new Worker(path.join(env.projectRoot, "dist/server/pooling-worker.js"));
     worker = started;

@@ -28,8 +28,13 @@ export function attachRealtime(server: HttpServer): Server {
     // Boards and phones alike: a page of another origin may neither read a Run board nor record rolls.
     allowRequest: allowSocketHandshake,
   });
-  const adapterPool = guardPool(new pg.Pool({ connectionString: env.DATABASE_URL, max: 3, connectionTimeoutMillis: 5_000 }), "socket.io adapter");
-  io.adapter(createAdapter(adapterPool, { errorHandler: (error) => logger.warn({ err: error }, "socket.io adapter could not reach the database") }));
+  const adapterPool = guardPool(
+    new pg.Pool({ connectionString: env.DATABASE_URL, max: 3, connectionTimeoutMillis: 5_000 }),
+    "socket.io adapter",
+  );
+  io.adapter(
+    createAdapter(adapterPool, { errorHandler: (error) => logger.warn({ err: error }, "socket.io adapter could not reach the database") }),
+  );
   // The adapter publishes its goodbye while io.close() runs, so its pool ends only after that.
   const closeIo = io.close.bind(io);
   io.close = (done?: (error?: Error) => void) =>

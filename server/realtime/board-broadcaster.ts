@@ -38,7 +38,11 @@ export class BoardBroadcaster {
     const now = Date.now();
     if (now - this.loopSample.at >= 1_000) {
       const utilization = performance.eventLoopUtilization();
-      this.loopSample = { at: now, busy: performance.eventLoopUtilization(utilization, this.loopSample.utilization).utilization > 0.9, utilization };
+      this.loopSample = {
+        at: now,
+        busy: performance.eventLoopUtilization(utilization, this.loopSample.utilization).utilization > 0.9,
+        utilization,
+      };
     }
     return this.loopSample.busy;
   }
@@ -77,7 +81,10 @@ export class BoardBroadcaster {
     // so is every board while the event loop is nearly always busy: pupils' acknowledgements come first.
     const interval = Math.max(this.intervalMs * (this.loopBusy() ? 2 : 1), 8 * (this.lastCost.get(runId) ?? 0));
     const wait = Math.max(0, (this.lastSent.get(runId) ?? 0) + interval - Date.now());
-    this.timers.set(runId, setTimeout(() => void this.send(runId), wait));
+    this.timers.set(
+      runId,
+      setTimeout(() => void this.send(runId), wait),
+    );
   }
 
   private async send(runId: string) {

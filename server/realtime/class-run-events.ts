@@ -21,7 +21,16 @@ import {
 } from "@shared/events";
 import { hasNulCharacter, NUL_CHARACTER_MESSAGE } from "@shared/schemas/nul-character";
 import { auth } from "../auth";
-import { closeIdleRuns, countPhoneRolls, findClassRun, markGroupFlooded, markRollCeilingReached, writeRollBatch, type NewRoll, type RollWriteOutcome } from "../db/queries/class-runs";
+import {
+  closeIdleRuns,
+  countPhoneRolls,
+  findClassRun,
+  markGroupFlooded,
+  markRollCeilingReached,
+  writeRollBatch,
+  type NewRoll,
+  type RollWriteOutcome,
+} from "../db/queries/class-runs";
 import { db } from "../db/client";
 import { findMembershipForUser } from "../db/queries/memberships";
 import { env } from "../env";
@@ -209,7 +218,11 @@ export function registerClassRunEvents(io: Server) {
   // ROLL_BURST_PER_GROUP rolls per window of burst / rate seconds, leased a twelfth of the burst at a time (5 of the
   // default 60; see roll-allowance.ts), so at most one roll in five waits for the database.
   const allowance = new RollAllowance(
-    sharedLimiter({ keyPrefix: "group-rolls", points: env.ROLL_BURST_PER_GROUP, duration: Math.max(1, Math.round(env.ROLL_BURST_PER_GROUP / env.ROLL_RATE_PER_GROUP)) }),
+    sharedLimiter({
+      keyPrefix: "group-rolls",
+      points: env.ROLL_BURST_PER_GROUP,
+      duration: Math.max(1, Math.round(env.ROLL_BURST_PER_GROUP / env.ROLL_RATE_PER_GROUP)),
+    }),
     Math.max(1, Math.ceil(env.ROLL_BURST_PER_GROUP / 12)),
   );
   const broadcaster = new BoardBroadcaster(io, env.BOARD_UPDATE_MS);
@@ -234,7 +247,10 @@ export function registerClassRunEvents(io: Server) {
     retryDelayMs: 500,
     onWriteFailed: (error, attempt, rolls) => {
       rollBatchFailures.inc();
-      logger.warn({ err: error, attempt, runIds: [...new Set(rolls.map((entry) => entry.runId))] }, attempt === 1 ? "a roll batch failed; trying it once more" : "a roll batch failed twice; phones will send its rolls again");
+      logger.warn(
+        { err: error, attempt, runIds: [...new Set(rolls.map((entry) => entry.runId))] },
+        attempt === 1 ? "a roll batch failed; trying it once more" : "a roll batch failed twice; phones will send its rolls again",
+      );
     },
     onWritten: (rolls, outcomes) => {
       const stored = new Map<string, NewRoll[]>();
@@ -301,7 +317,13 @@ export function registerClassRunEvents(io: Server) {
       const message: RunStatusBroadcast = { runId: run.id, status: run.status };
       io.to([padsRoom(run.id), boardRoom(run.id)]).emit(EVENTS.runStatus, message);
     } else {
-      const message: RunPhaseBroadcast = { runId: run.id, phase: run.phase as RunPhaseBroadcast["phase"], tally: run.currentTally, dicePerPlayer: run.dicePerPlayer, players: run.players };
+      const message: RunPhaseBroadcast = {
+        runId: run.id,
+        phase: run.phase as RunPhaseBroadcast["phase"],
+        tally: run.currentTally,
+        dicePerPlayer: run.dicePerPlayer,
+        players: run.players,
+      };
       io.to([padsRoom(run.id), boardRoom(run.id)]).emit(EVENTS.runPhase, message);
     }
   });
@@ -346,7 +368,11 @@ export function registerClassRunEvents(io: Server) {
           throw error;
         });
         const busy = await joinWait(socket.id, run.id);
-        if (busy) throw waitRefusal(busy.waitMs, busy.busy === "connection" ? "This phone is joining too often." : "Groups are joining this run very fast.");
+        if (busy)
+          throw waitRefusal(
+            busy.waitMs,
+            busy.busy === "connection" ? "This phone is joining too often." : "Groups are joining this run very fast.",
+          );
         const joined = await joinRun(run.id, nickname, attemptId);
         joinPads(joined.state.run.id);
         return joined;
@@ -386,7 +412,11 @@ export function registerClassRunEvents(io: Server) {
         const claims = verifyGuestToken(token);
         const refuse = (retryAfterMs: number): never => {
           if (claims) flagFlood(claims.runId, claims.groupId);
-          throw new PadError("rate_limited", "Rolls are coming in faster than a group can play. Wait a moment; the phone sends them again.", retryAfterMs);
+          throw new PadError(
+            "rate_limited",
+            "Rolls are coming in faster than a group can play. Wait a moment; the phone sends them again.",
+            retryAfterMs,
+          );
         };
         const record = () => {
           // Only a group's first roll (or one after a change to its run) waits for the database before the batcher.
@@ -412,7 +442,10 @@ export function registerClassRunEvents(io: Server) {
       }),
     );
 
-    socket.on(EVENTS.rollUndo, handle(rollUndoPayloadSchema, async ({ token, rollId }) => ({ id: (await undoRoll(token, rollId)).id })));
+    socket.on(
+      EVENTS.rollUndo,
+      handle(rollUndoPayloadSchema, async ({ token, rollId }) => ({ id: (await undoRoll(token, rollId)).id })),
+    );
 
     socket.on(
       EVENTS.boardSnapshot,

@@ -27,14 +27,18 @@ diceSetsRouter.post("/", async (req, res) => {
 });
 
 // The file arrives either as JSON or as its raw text (any other content type), so a file that is not JSON still gets a list of problems.
-diceSetsRouter.post("/import", express.text({ type: (req) => !String(req.headers["content-type"] ?? "").includes("json"), limit: "200kb" }), async (req, res) => {
-  try {
-    res.status(201).json(await importDiceSet(currentTeacher(req), typeof req.body === "string" ? parseFileText(req.body) : req.body));
-  } catch (error) {
-    if (!(error instanceof ImportError)) throw error;
-    res.status(400).json({ error: { code: error.code, message: error.message, fields: error.fields, issues: error.issues } });
-  }
-});
+diceSetsRouter.post(
+  "/import",
+  express.text({ type: (req) => !String(req.headers["content-type"] ?? "").includes("json"), limit: "200kb" }),
+  async (req, res) => {
+    try {
+      res.status(201).json(await importDiceSet(currentTeacher(req), typeof req.body === "string" ? parseFileText(req.body) : req.body));
+    } catch (error) {
+      if (!(error instanceof ImportError)) throw error;
+      res.status(400).json({ error: { code: error.code, message: error.message, fields: error.fields, issues: error.issues } });
+    }
+  },
+);
 
 diceSetsRouter.get("/:id", async (req, res) => {
   const { id } = parseParams(diceSetIdParamsSchema, req);
@@ -60,7 +64,10 @@ diceSetsRouter.delete("/:id", async (req, res) => {
 diceSetsRouter.get("/:id/file", async (req, res) => {
   const { id } = parseParams(diceSetIdParamsSchema, req);
   const { file, fileName } = await exportDiceSet(currentTeacher(req), id);
-  res.attachment(fileName).type("application/json").send(JSON.stringify(file, null, 2));
+  res
+    .attachment(fileName)
+    .type("application/json")
+    .send(JSON.stringify(file, null, 2));
 });
 
 /** Text that is not JSON becomes a refused import with the parser's complaint, not a 500. */

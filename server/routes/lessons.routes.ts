@@ -43,11 +43,18 @@ const receiveFile: RequestHandler = (req, res, next) => {
   upload.single("file")(req, res, (error: unknown) => {
     if (!error) return next();
     if (error instanceof multer.MulterError) {
-      if (error.code === "LIMIT_FILE_SIZE") return next(new HttpError(413, "too_large", "That file is larger than 10 MB; attach a smaller one."));
-      return next(new HttpError(400, "invalid_upload", "Send one file in the form field \"file\"."));
+      if (error.code === "LIMIT_FILE_SIZE")
+        return next(new HttpError(413, "too_large", "That file is larger than 10 MB; attach a smaller one."));
+      return next(new HttpError(400, "invalid_upload", 'Send one file in the form field "file".'));
     }
     // busboy's own complaints (a form cut off half-way, a broken part header) are the upload's fault, not the server's.
-    next(new HttpError(400, "invalid_input", "The upload was cut off or damaged before it finished, so nothing was stored. Choose the file and attach it again."));
+    next(
+      new HttpError(
+        400,
+        "invalid_input",
+        "The upload was cut off or damaged before it finished, so nothing was stored. Choose the file and attach it again.",
+      ),
+    );
   });
 };
 

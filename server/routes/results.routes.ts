@@ -16,7 +16,14 @@ import { parseBody, parseParams, parseQuery } from "../middleware/validate";
 import { commitPaperImport, commitTallyGridRolls, previewPaperImport, type PaperUpload } from "../services/paper-import.service";
 import { getTallyGrid, saveTallyCounts } from "../services/tally-grid.service";
 import { rollsCsvDownload, summaryCsvDownload, workbookDownload, type ResultsDownload } from "../services/results-export.service";
-import { createPaperRun, deleteResultsRun, getRunResults, listPaperRunLessons, listResultsRuns, pooledAcrossRuns } from "../services/results.service";
+import {
+  createPaperRun,
+  deleteResultsRun,
+  getRunResults,
+  listPaperRunLessons,
+  listResultsRuns,
+  pooledAcrossRuns,
+} from "../services/results.service";
 
 export const resultsRouter = Router();
 
@@ -29,7 +36,13 @@ const receiveCsv: RequestHandler = (req, res, next) => {
   upload.single("file")(req, res, (error: unknown) => {
     if (error instanceof multer.MulterError) {
       if (error.code === "LIMIT_FILE_SIZE") {
-        next(new HttpError(413, "too_large", `The file is larger than ${PAPER_IMPORT_MAX_BYTES / 1024} KB; split the rolls into several files.`));
+        next(
+          new HttpError(
+            413,
+            "too_large",
+            `The file is larger than ${PAPER_IMPORT_MAX_BYTES / 1024} KB; split the rolls into several files.`,
+          ),
+        );
       } else {
         next(new HttpError(400, "invalid_upload", "Send one CSV file in the field named file."));
       }
@@ -37,7 +50,13 @@ const receiveCsv: RequestHandler = (req, res, next) => {
     }
     // busboy's own complaints (a form cut off half-way, a broken part header) are the upload's fault, not the server's.
     if (error) {
-      next(new HttpError(400, "invalid_input", "The upload was cut off or damaged before it finished, so nothing was read. Choose the file and upload it again."));
+      next(
+        new HttpError(
+          400,
+          "invalid_input",
+          "The upload was cut off or damaged before it finished, so nothing was read. Choose the file and upload it again.",
+        ),
+      );
       return;
     }
     next();
@@ -54,7 +73,10 @@ function uploadedCsv(file: Express.Multer.File | undefined): PaperUpload {
 
 async function sendDownload(res: Response, download: ResultsDownload) {
   res.setHeader("content-type", download.contentType);
-  res.setHeader("content-disposition", `attachment; filename="${download.fileName}"; filename*=UTF-8''${encodeURIComponent(download.fileName)}`);
+  res.setHeader(
+    "content-disposition",
+    `attachment; filename="${download.fileName}"; filename*=UTF-8''${encodeURIComponent(download.fileName)}`,
+  );
   res.setHeader("cache-control", "no-store");
   try {
     await download.write(res);

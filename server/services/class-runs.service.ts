@@ -127,7 +127,12 @@ export function boardGroupView(group: RunGroupRow, rolls: number, vote: number |
  * A run the teacher may see ("view": its owner, or the head of its department) or change ("manage": its owner only).
  * Runs of another department answer 404, so their existence is not revealed.
  */
-export async function runForTeacher(teacher: TeacherContext, runId: string, access: "view" | "manage", executor: Executor = db): Promise<ClassRunRecord> {
+export async function runForTeacher(
+  teacher: TeacherContext,
+  runId: string,
+  access: "view" | "manage",
+  executor: Executor = db,
+): Promise<ClassRunRecord> {
   const run = await findClassRun(executor, runId);
   if (!run) throw notFound("The class run");
   if (run.ownerId === teacher.user.id) return run;
@@ -145,7 +150,8 @@ function planProblem(lesson: LessonForRun): { plan: LessonPlan | null; problem: 
   const parsed = lessonPlanSchema.safeParse(lesson.plan);
   if (!parsed.success) return { plan: null, problem: "The lesson plan does not check: open it in Lessons and save it again." };
   if (!lesson.diceSet) return { plan: parsed.data, problem: "Choose a dice set for the lesson first." };
-  if (parsed.data.mode.players > lesson.diceSet.dice.length) return { plan: parsed.data, problem: "The lesson has more players than its set has dice." };
+  if (parsed.data.mode.players > lesson.diceSet.dice.length)
+    return { plan: parsed.data, problem: "The lesson has more players than its set has dice." };
   return { plan: parsed.data, problem: null };
 }
 
@@ -186,7 +192,9 @@ function includedPhases(plan: LessonPlan): RunPhase[] {
 export function runValuesFromLesson(lesson: LessonForRun, plan: LessonPlan, ownerId: string, departmentId: string | null) {
   const diceSet = lesson.diceSet!;
   const phases = includedPhases(plan);
-  const tallies: ClassRunTally[] = [{ tally: 1, dicePerPlayer: plan.mode.dicePerPlayer, players: plan.mode.players, startedAt: new Date().toISOString() }];
+  const tallies: ClassRunTally[] = [
+    { tally: 1, dicePerPlayer: plan.mode.dicePerPlayer, players: plan.mode.players, startedAt: new Date().toISOString() },
+  ];
   return {
     ownerId,
     departmentId,
@@ -211,7 +219,10 @@ export function runValuesFromLesson(lesson: LessonForRun, plan: LessonPlan, owne
 }
 
 /** Inserts a run with a fresh join code, drawing again when the code is taken by another run that is not closed. */
-export async function insertRunWithJoinCode(executor: Executor, values: Omit<Parameters<typeof insertClassRun>[1], "joinCode">): Promise<ClassRunRow> {
+export async function insertRunWithJoinCode(
+  executor: Executor,
+  values: Omit<Parameters<typeof insertClassRun>[1], "joinCode">,
+): Promise<ClassRunRow> {
   for (let attempt = 1; ; attempt += 1) {
     try {
       return await executor.transaction((tx) => insertClassRun(tx, { ...values, joinCode: generateJoinCode() }));
@@ -227,14 +238,21 @@ export async function openClassRun(teacher: TeacherContext, lessonId: string, gr
   if (!lesson) throw notFound("The lesson");
   if (lesson.ownerId !== teacher.user.id) {
     if (lesson.departmentId && lesson.departmentId === teacher.department?.id) {
-      throw new HttpError(403, "forbidden", "Only the teacher who owns a lesson can open a class run of it. Duplicate the lesson to run it yourself.");
+      throw new HttpError(
+        403,
+        "forbidden",
+        "Only the teacher who owns a lesson can open a class run of it. Duplicate the lesson to run it yourself.",
+      );
     }
     throw notFound("The lesson");
   }
   if (lesson.archivedAt) throw new HttpError(409, "lesson_archived", "The lesson is archived: restore it in Lessons before running it.");
   const { plan, problem } = planProblem(lesson);
   if (!plan || problem) throw new HttpError(422, "lesson_not_ready", problem ?? "The lesson cannot be run yet.");
-  const row = await insertRunWithJoinCode(db, { ...runValuesFromLesson(lesson, plan, teacher.user.id, teacher.department?.id ?? null), groupCap });
+  const row = await insertRunWithJoinCode(db, {
+    ...runValuesFromLesson(lesson, plan, teacher.user.id, teacher.department?.id ?? null),
+    groupCap,
+  });
   return classRunView({ ...row, ownerName: teacher.user.name }, teacher.user.id);
 }
 
@@ -265,10 +283,12 @@ function twistTally(run: ClassRunRow, change: RunPhaseChange): ClassRunTally {
   const twist = change.twist ?? (base.dicePerPlayer === 1 ? "two-dice-each" : "three-players");
   if (twist === "three-players") {
     if (run.dice.length < 3) throw new HttpError(422, "twist_not_possible", "Three players need a set of at least three dice.");
-    if (base.players === 3) throw new HttpError(422, "twist_not_possible", "This run already plays with three players; choose two dice each.");
+    if (base.players === 3)
+      throw new HttpError(422, "twist_not_possible", "This run already plays with three players; choose two dice each.");
     return { tally: run.currentTally + 1, dicePerPlayer: base.dicePerPlayer, players: 3, startedAt: new Date().toISOString() };
   }
-  if (base.dicePerPlayer === 2) throw new HttpError(422, "twist_not_possible", "This run already plays two dice each; choose three players.");
+  if (base.dicePerPlayer === 2)
+    throw new HttpError(422, "twist_not_possible", "This run already plays two dice each; choose three players.");
   return { tally: run.currentTally + 1, dicePerPlayer: 2, players: base.players, startedAt: new Date().toISOString() };
 }
 
@@ -292,7 +312,10 @@ export async function changeRunPhase(teacher: TeacherContext, runId: string, cha
         tx,
         groups.map((group, index) => ({
           groupId: group.id,
-          matchup: locked.matchupChoice === "assigned" || group.source !== "phone" ? assignedMatchup(locked.dice.length, tally.players, index) : null,
+          matchup:
+            locked.matchupChoice === "assigned" || group.source !== "phone"
+              ? assignedMatchup(locked.dice.length, tally.players, index)
+              : null,
         })),
       );
       return {
@@ -356,7 +379,11 @@ export async function renameRunGroup(teacher: TeacherContext, runId: string, gro
       return renamed;
     } catch (error) {
       if (isUniqueViolation(error, "run_group_run_nickname_idx") || isUniqueViolation(error, "run_group_run_nickname_key_idx")) {
-        throw new HttpError(409, "nickname_taken", `Another group in this run is already called “${nickname}” or something that looks just like it.`);
+        throw new HttpError(
+          409,
+          "nickname_taken",
+          `Another group in this run is already called “${nickname}” or something that looks just like it.`,
+        );
       }
       throw error;
     }
@@ -537,7 +564,11 @@ function withPools<Tallies>(boardVersion: number, parts: BoardParts, pools: Boar
 export async function readBoardSnapshot(runId: string, viewerId: string | null): Promise<BoardSnapshot | null> {
   const state = await readBoardState(runId, viewerId);
   if (!state) return null;
-  return withPools(state.boardVersion, state.parts, await poolBoardOffThread({ ...state.settings, nicknames: state.nicknames, rows: state.rows }));
+  return withPools(
+    state.boardVersion,
+    state.parts,
+    await poolBoardOffThread({ ...state.settings, nicknames: state.nicknames, rows: state.rows }),
+  );
 }
 
 /**
@@ -564,12 +595,21 @@ export async function readBoardUpdate(runId: string, cache: BoardRollCache): Pro
  * other change bumps board_version, and the broadcaster answers those with `readBoardUpdate`). Null when nothing is
  * kept for the run (no earlier full read, or the worker lost it): the caller reads in full.
  */
-export async function refreshBoardWithRolls(runId: string, rolls: readonly NewRoll[], cache: BoardRollCache): Promise<BoardUpdateMessage | null> {
+export async function refreshBoardWithRolls(
+  runId: string,
+  rolls: readonly NewRoll[],
+  cache: BoardRollCache,
+): Promise<BoardUpdateMessage | null> {
   const state = cache.get(runId);
   if (!state) return null;
   let pools: BoardPools<Uint8Array>;
   try {
-    pools = await poolKeptBoardOffThread({ ...state.settings, nicknames: state.nicknames, rows: poolRowsJson(rolls), keep: { runId, generation: state.generation, reset: false } });
+    pools = await poolKeptBoardOffThread({
+      ...state.settings,
+      nicknames: state.nicknames,
+      rows: poolRowsJson(rolls),
+      keep: { runId, generation: state.generation, reset: false },
+    });
   } catch (error) {
     cache.delete(runId);
     if (!(error instanceof NeedsResetError)) logger.warn({ err: error }, "board pooling failed; the refresh reads the run in full");
@@ -594,12 +634,23 @@ export async function getBoardSnapshot(teacher: TeacherContext, runId: string): 
 export async function previewRunByCode(code: string, address: string): Promise<PadRunPreview> {
   const wait = await codeGuessingWait(address, null);
   if (wait !== null) {
-    throw new HttpError(429, "rate_limited", `Too many wrong join codes from here. Wait ${Math.max(1, Math.ceil(wait / 1000))} seconds and try again.`);
+    throw new HttpError(
+      429,
+      "rate_limited",
+      `Too many wrong join codes from here. Wait ${Math.max(1, Math.ceil(wait / 1000))} seconds and try again.`,
+    );
   }
   const run = await findRunByJoinCode(db, code);
   if (!run) {
     await countWrongCode(address, null);
     throw new HttpError(404, "unknown_code", "No open class run has that code. Check the code on the board and try again.");
   }
-  return { runId: run.id, title: run.title, classGroup: run.classGroup, status: run.status, phase: run.phase as RunPhase, joinCode: run.joinCode };
+  return {
+    runId: run.id,
+    title: run.title,
+    classGroup: run.classGroup,
+    status: run.status,
+    phase: run.phase as RunPhase,
+    joinCode: run.joinCode,
+  };
 }

@@ -7,7 +7,12 @@ import { listDepartmentMembers, renameDepartment } from "../db/queries/departmen
 import type { TeacherContext } from "../middleware/require-teacher";
 
 function slugFor(name: string): string {
-  const base = name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 40) || "department";
+  const base =
+    name
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "")
+      .slice(0, 40) || "department";
   return `${base}-${crypto.randomUUID().slice(0, 8)}`;
 }
 

@@ -52,7 +52,11 @@ async function readable(teacher: TeacherContext, id: string): Promise<DiceSetRow
 
 function requireOwner(row: DiceSetRow, teacher: TeacherContext, doing: string) {
   if (row.ownerId !== teacher.user.id) {
-    throw new HttpError(403, "not_owner", `Only ${row.ownerName}, who owns this dice set, may ${doing} it. Duplicate it to make a copy of your own.`);
+    throw new HttpError(
+      403,
+      "not_owner",
+      `Only ${row.ownerName}, who owns this dice set, may ${doing} it. Duplicate it to make a copy of your own.`,
+    );
   }
 }
 
@@ -68,11 +72,23 @@ export async function getDiceSet(teacher: TeacherContext, id: string): Promise<D
 }
 
 /** Stores a new set owned by the teacher. */
-export async function createDiceSet(teacher: TeacherContext, input: DiceSetInput, duplicatedFromId: string | null = null): Promise<DiceSet> {
+export async function createDiceSet(
+  teacher: TeacherContext,
+  input: DiceSetInput,
+  duplicatedFromId: string | null = null,
+): Promise<DiceSet> {
   const departmentId = departmentFor(teacher, input.visibility);
   const id = await db.transaction(async (tx) =>
     insertDiceSet(
-      { ownerId: teacher.user.id, name: input.name, description: input.description, visibility: input.visibility, dice: input.dice, departmentId, duplicatedFromId },
+      {
+        ownerId: teacher.user.id,
+        name: input.name,
+        description: input.description,
+        visibility: input.visibility,
+        dice: input.dice,
+        departmentId,
+        duplicatedFromId,
+      },
       tx,
     ),
   );
@@ -155,7 +171,10 @@ export async function importDiceSet(teacher: TeacherContext, content: unknown): 
   const checked = checkDiceSetFile(content);
   if (!checked.ok) {
     const count = checked.issues.length;
-    throw new ImportError(`The file is not a dice set Outroll can read (${count} ${count === 1 ? "problem" : "problems"}); nothing was saved.`, checked.issues);
+    throw new ImportError(
+      `The file is not a dice set Outroll can read (${count} ${count === 1 ? "problem" : "problems"}); nothing was saved.`,
+      checked.issues,
+    );
   }
   return createDiceSet(teacher, diceSetInputFromFile(checked.file));
 }

@@ -80,9 +80,7 @@ function fromAuthError(error: unknown, email: string): never {
 /** Sends the invitation e-mail over SMTP; a failed delivery keeps the invitation (it can be resent) and says so. */
 async function deliver(row: InvitationRow, departmentName: string, inviterName: string) {
   try {
-    await sendMail(
-      invitationMail({ to: row.email, departmentName, inviterName, joinUrl: joinUrlFor(row.id), expiresAt: row.expiresAt }),
-    );
+    await sendMail(invitationMail({ to: row.email, departmentName, inviterName, joinUrl: joinUrlFor(row.id), expiresAt: row.expiresAt }));
   } catch (error) {
     logger.error({ err: error }, "invitation e-mail not sent");
     throw new HttpError(
@@ -138,7 +136,11 @@ async function departmentInvitation(teacher: TeacherContext, invitationId: strin
 }
 
 /** Sends the invitation again: a waiting one keeps its link and gets 7 more days; an expired one is replaced by a new link. */
-export async function resendInvitation(teacher: TeacherContext, invitationId: string, headers: IncomingHttpHeaders): Promise<SentInvitation> {
+export async function resendInvitation(
+  teacher: TeacherContext,
+  invitationId: string,
+  headers: IncomingHttpHeaders,
+): Promise<SentInvitation> {
   const department = departmentOf(teacher);
   const found = await departmentInvitation(teacher, invitationId);
   const authHeaders = fromNodeHeaders(headers);
@@ -206,7 +208,9 @@ export async function acceptInvitation(
     throw new HttpError(
       409,
       same ? "already_member" : "already_in_department",
-      same ? `You are already a member of ${teacher.department.name}.` : `You already belong to ${teacher.department.name}; Outroll keeps one department per teacher.`,
+      same
+        ? `You are already a member of ${teacher.department.name}.`
+        : `You already belong to ${teacher.department.name}; Outroll keeps one department per teacher.`,
     );
   }
   try {

@@ -132,7 +132,12 @@ export async function updateLesson(teacher: TeacherContext, id: string, update: 
     if (update.diceSetId !== current.diceSetId) await assertDiceSetUsable(tx, teacher, update.diceSetId);
     const { version, ...input } = update;
     const row = await updateLessonIfVersion(tx, id, version, input);
-    if (!row) throw new HttpError(409, "stale_version", "This lesson was saved elsewhere since you opened it. Reload it, then make your change again.");
+    if (!row)
+      throw new HttpError(
+        409,
+        "stale_version",
+        "This lesson was saved elsewhere since you opened it. Reload it, then make your change again.",
+      );
     return lessonFromRecord(await recordOrThrow(tx, id), teacher.user.id);
   });
 }
@@ -192,8 +197,10 @@ const extensionOf: Record<AttachmentType, string> = { "application/pdf": "pdf", 
 
 /** A file name safe to store and send back: no folders, no control characters, at most 200 characters. */
 function cleanFileName(name: string, type: AttachmentType): string {
-  // eslint-disable-next-line no-control-regex -- control characters are exactly what is taken out of the name
-  const base = path.basename(name.replace(/\\/g, "/")).replace(/[\u0000-\u001f\u007f"]/g, "").trim();
+  // Control characters are exactly what is taken out of the name.
+  // eslint-disable-next-line no-control-regex
+  const unsafe = /[\u0000-\u001f\u007f"]/g;
+  const base = path.basename(name.replace(/\\/g, "/")).replace(unsafe, "").trim();
   return (base || `attachment.${extensionOf[type]}`).slice(0, 200);
 }
 
@@ -207,7 +214,8 @@ export type UploadedFile = { originalName: string; bytes: Buffer };
 export async function addAttachment(teacher: TeacherContext, id: string, file: UploadedFile | undefined): Promise<LessonAttachment> {
   if (!file) throw new HttpError(400, "no_file", "Choose a file to attach (PDF, PNG or JPEG, up to 10 MB).");
   if (file.bytes.length === 0) throw new HttpError(400, "unsupported_file_type", "That file is empty. Attach a PDF, PNG or JPEG.");
-  if (file.bytes.length > ATTACHMENT_BYTES_MAX) throw new HttpError(413, "too_large", "That file is larger than 10 MB; attach a smaller one.");
+  if (file.bytes.length > ATTACHMENT_BYTES_MAX)
+    throw new HttpError(413, "too_large", "That file is larger than 10 MB; attach a smaller one.");
   const detected = await fileTypeFromBuffer(file.bytes);
   const type = ATTACHMENT_TYPES.find((allowed) => allowed === detected?.mime);
   if (!type) {

@@ -3,12 +3,24 @@ import { fileTypeFromBuffer } from "file-type";
 import Papa from "papaparse";
 import { v5 as uuidv5 } from "uuid";
 import { unescapeFormulaCell } from "@shared/results/csv-text";
-import { checkPaperImportHeader, checkPaperImportRows, type CheckedPaperRoll, type PaperImportRecord } from "@shared/results/paper-import-check";
+import {
+  checkPaperImportHeader,
+  checkPaperImportRows,
+  type CheckedPaperRoll,
+  type PaperImportRecord,
+} from "@shared/results/paper-import-check";
 import { paperImportColumns, type PaperImportColumn } from "@shared/schemas/paper-import";
 import type { TallyGridRollsInput } from "@shared/schemas/tally-grid";
 import { PAPER_IMPORT_MAX_ROWS, type PaperImportOptions, type PaperImportResult, type ResultsTally } from "@shared/schemas/results";
 import { db } from "../db/client";
-import { findPaperImportByHash, findRollsByIds, insertPaperImport, listRunGroups, type NewPaperRoll, type ResultsRunListRecord } from "../db/queries/results";
+import {
+  findPaperImportByHash,
+  findRollsByIds,
+  insertPaperImport,
+  listRunGroups,
+  type NewPaperRoll,
+  type ResultsRunListRecord,
+} from "../db/queries/results";
 import { HttpError } from "../http-error";
 import type { TeacherContext } from "../middleware/require-teacher";
 import { assertOwnsRun, runTallies, visibleRun } from "./results.service";
@@ -22,7 +34,8 @@ export function paperRollId(runId: string, tally: number, nickname: string, roll
 }
 
 function isUniqueViolation(error: unknown): boolean {
-  const codeOf = (value: unknown) => (typeof value === "object" && value !== null && "code" in value ? (value as { code: unknown }).code : undefined);
+  const codeOf = (value: unknown) =>
+    typeof value === "object" && value !== null && "code" in value ? (value as { code: unknown }).code : undefined;
   return codeOf(error) === "23505" || codeOf((error as { cause?: unknown } | null)?.cause) === "23505";
 }
 
@@ -39,13 +52,19 @@ function textEncodingOf(bytes: Buffer): { encoding: "utf-8" | "utf-16le" | "utf-
   if (bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf) return { encoding: "utf-8", bomLength: 3 };
   if (bytes[0] === 0xff && bytes[1] === 0xfe) return { encoding: "utf-16le", bomLength: 2 };
   if (bytes[0] === 0xfe && bytes[1] === 0xff) return { encoding: "utf-16be", bomLength: 2 };
-  if (bytes.length >= 4 && bytes[0] !== 0 && bytes[1] === 0 && bytes[2] !== 0 && bytes[3] === 0) return { encoding: "utf-16le", bomLength: 0 };
-  if (bytes.length >= 4 && bytes[0] === 0 && bytes[1] !== 0 && bytes[2] === 0 && bytes[3] !== 0) return { encoding: "utf-16be", bomLength: 0 };
+  if (bytes.length >= 4 && bytes[0] !== 0 && bytes[1] === 0 && bytes[2] !== 0 && bytes[3] === 0)
+    return { encoding: "utf-16le", bomLength: 0 };
+  if (bytes.length >= 4 && bytes[0] === 0 && bytes[1] !== 0 && bytes[2] === 0 && bytes[3] !== 0)
+    return { encoding: "utf-16be", bomLength: 0 };
   return { encoding: "utf-8", bomLength: 0 };
 }
 
 const unreadableText = () =>
-  new HttpError(400, "invalid_input", "The file's text could not be read: it is not saved as UTF-8 or UTF-16. In your spreadsheet choose “Save as” → “CSV UTF-8” and upload again.");
+  new HttpError(
+    400,
+    "invalid_input",
+    "The file's text could not be read: it is not saved as UTF-8 or UTF-16. In your spreadsheet choose “Save as” → “CSV UTF-8” and upload again.",
+  );
 
 /** Reads the upload as CSV text (UTF-8 with or without a byte order mark, or UTF-16); refuses binary files (a workbook, a PDF, a photo). */
 async function csvText(upload: PaperUpload): Promise<string> {
@@ -80,17 +99,24 @@ function parseCsv(text: string, players: number): { records: PaperImportRecord[]
     errors.set(row, [...(errors.get(row) ?? []), `The CSV is malformed here: ${problem.message}.`]);
   }
   const [header, ...lines] = parsed.data;
-  if (!header || header.every((cell) => cell.trim() === "")) throw invalidFile(`The first row must name the columns: ${paperImportColumns.join(", ")}.`);
+  if (!header || header.every((cell) => cell.trim() === ""))
+    throw invalidFile(`The first row must name the columns: ${paperImportColumns.join(", ")}.`);
   const { positions, messages } = checkPaperImportHeader(header, players);
   if (messages.length > 0) throw invalidFile(messages.join(" "));
   const records: PaperImportRecord[] = [];
   lines.forEach((cells, index) => {
     if (cells.every((cell) => cell.trim() === "")) return;
-    const entries = (Object.entries(positions) as [PaperImportColumn, number][]).map(([column, position]) => [column, unescapeFormulaCell(cells[position] ?? "")]);
+    const entries = (Object.entries(positions) as [PaperImportColumn, number][]).map(([column, position]) => [
+      column,
+      unescapeFormulaCell(cells[position] ?? ""),
+    ]);
     records.push({ row: index + 2, cells: Object.fromEntries(entries) });
   });
   if (records.length === 0) throw invalidFile("The file has a header row but no rolls under it.");
-  if (records.length > PAPER_IMPORT_MAX_ROWS) throw invalidFile(`The file has ${records.length} rolls; one upload takes at most ${PAPER_IMPORT_MAX_ROWS}. Split it into several files.`);
+  if (records.length > PAPER_IMPORT_MAX_ROWS)
+    throw invalidFile(
+      `The file has ${records.length} rolls; one upload takes at most ${PAPER_IMPORT_MAX_ROWS}. Split it into several files.`,
+    );
   return { records, errors: [...errors.entries()].map(([row, list]) => ({ row, messages: list })) };
 }
 
@@ -107,7 +133,12 @@ async function runAndMode(teacher: TeacherContext, runId: string, tally: number)
   const run = await visibleRun(teacher, runId);
   assertOwnsRun(teacher, run, "import rolls into it");
   const mode = runTallies(run).find((entry) => entry.tally === tally);
-  if (!mode) throw invalidFile(`This run has no tally ${tally}; its rolls belong to tally ${runTallies(run).map((entry) => entry.tally).join(" or ")}.`);
+  if (!mode)
+    throw invalidFile(
+      `This run has no tally ${tally}; its rolls belong to tally ${runTallies(run)
+        .map((entry) => entry.tally)
+        .join(" or ")}.`,
+    );
   return { run, mode };
 }
 
@@ -133,9 +164,13 @@ async function prepareRecords(
   const runId = run.id;
   // Removed groups too: a sheet naming one files its rolls under it (set aside like the rest), not under a clashing new group.
   const groups = await listRunGroups(db, runId, { withRemoved: true });
-  const check = checkPaperImportRows({ dice: run.dice, dicePerPlayer: mode.dicePerPlayer, players: mode.players, groups, createGroups: options.createGroups }, records);
+  const check = checkPaperImportRows(
+    { dice: run.dice, dicePerPlayer: mode.dicePerPlayer, players: mode.players, groups, createGroups: options.createGroups },
+    records,
+  );
   const errorsByRow = new Map<number, string[]>();
-  for (const entry of [...parseErrors, ...check.errors]) errorsByRow.set(entry.row, [...(errorsByRow.get(entry.row) ?? []), ...entry.messages]);
+  for (const entry of [...parseErrors, ...check.errors])
+    errorsByRow.set(entry.row, [...(errorsByRow.get(entry.row) ?? []), ...entry.messages]);
   const errors = [...errorsByRow.entries()].sort(([a], [b]) => a - b).map(([row, messages]) => ({ row, messages }));
 
   const ids = check.rolls.map((entry) => paperRollId(run.id, mode.tally, entry.group, entry.rollNumber));
@@ -146,7 +181,10 @@ async function prepareRecords(
   let duplicateRows = 0;
   const rows = check.rolls.map((entry, index) => {
     const existing = stored.get(ids[index]);
-    const same = existing !== undefined && JSON.stringify(existing.matchup) === JSON.stringify(entry.matchup) && JSON.stringify(existing.faces) === JSON.stringify(entry.faces);
+    const same =
+      existing !== undefined &&
+      JSON.stringify(existing.matchup) === JSON.stringify(entry.matchup) &&
+      JSON.stringify(existing.faces) === JSON.stringify(entry.faces);
     const status = existing === undefined ? ("new" as const) : same ? ("present" as const) : ("present-but-different" as const);
     if (status === "new") newRows += 1;
     else duplicateRows += 1;
@@ -182,7 +220,12 @@ async function prepareRecords(
 }
 
 /** The Paper import preview: every row checked, errors by row number, and how many rows are new or already stored. */
-export async function previewPaperImport(teacher: TeacherContext, runId: string, upload: PaperUpload, options: PaperImportOptions): Promise<PaperImportResult> {
+export async function previewPaperImport(
+  teacher: TeacherContext,
+  runId: string,
+  upload: PaperUpload,
+  options: PaperImportOptions,
+): Promise<PaperImportResult> {
   return (await prepare(teacher, runId, upload, options)).result;
 }
 
@@ -190,7 +233,12 @@ export async function previewPaperImport(teacher: TeacherContext, runId: string,
  * Imports every row in one transaction, or none: a file with any bad row is refused whole (422, each row's problems
  * in `fields` under "row N"); the same file again, or rows already stored, add nothing.
  */
-export async function commitPaperImport(teacher: TeacherContext, runId: string, upload: PaperUpload, options: PaperImportOptions): Promise<PaperImportResult> {
+export async function commitPaperImport(
+  teacher: TeacherContext,
+  runId: string,
+  upload: PaperUpload,
+  options: PaperImportOptions,
+): Promise<PaperImportResult> {
   return commitPrepared(teacher, await prepare(teacher, runId, upload, options), upload.originalName);
 }
 
@@ -201,13 +249,21 @@ export async function commitPaperImport(teacher: TeacherContext, runId: string, 
 export async function commitTallyGridRolls(teacher: TeacherContext, runId: string, input: TallyGridRollsInput): Promise<PaperImportResult> {
   const { run, mode } = await runAndMode(teacher, runId, input.tally);
   // Rows are numbered as the grid shows them: by the roll's line number, or its place in the list when that is not a number.
-  const records: PaperImportRecord[] = input.rows.map((cells, index) => ({ row: /^\d+$/.test(cells.roll.trim()) ? Number(cells.roll) : index + 1, cells }));
+  const records: PaperImportRecord[] = input.rows.map((cells, index) => ({
+    row: /^\d+$/.test(cells.roll.trim()) ? Number(cells.roll) : index + 1,
+    cells,
+  }));
   const fileHash = createHash("sha256").update(JSON.stringify(input.rows)).digest("hex");
   const prepared = await prepareRecords(run, mode, records, [], { fileHash, fileName: "tally grid", createGroups: input.createGroups });
   return commitPrepared(teacher, prepared, "tally grid", "save again");
 }
 
-async function commitPrepared(teacher: TeacherContext, prepared: PreparedImport, fileName: string, again = "upload the file again"): Promise<PaperImportResult> {
+async function commitPrepared(
+  teacher: TeacherContext,
+  prepared: PreparedImport,
+  fileName: string,
+  again = "upload the file again",
+): Promise<PaperImportResult> {
   const { result, run, mode } = prepared;
   if (result.errors.length > 0) {
     const count = result.errors.length;
@@ -246,7 +302,11 @@ async function commitPrepared(teacher: TeacherContext, prepared: PreparedImport,
     throw error;
   });
   if (outcome === "conflict") {
-    throw new HttpError(409, "import_conflict", "The run's groups changed while this file was imported, so nothing was stored. Check the file again.");
+    throw new HttpError(
+      409,
+      "import_conflict",
+      "The run's groups changed while this file was imported, so nothing was stored. Check the file again.",
+    );
   }
   if (outcome.duplicateFile) return { ...result, alreadyImportedAt: new Date().toISOString() };
   return { ...result, newRows: outcome.inserted, duplicateRows: prepared.rolls.length - outcome.inserted, imported: true };

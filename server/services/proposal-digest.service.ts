@@ -1,10 +1,5 @@
 import { db } from "../db/client";
-import {
-  claimDigestDay,
-  lastDigestSentAt,
-  listHeadsWithWaitingProposals,
-  listWaitingProposals,
-} from "../db/queries/proposal-digests";
+import { claimDigestDay, lastDigestSentAt, listHeadsWithWaitingProposals, listWaitingProposals } from "../db/queries/proposal-digests";
 import { env } from "../env";
 import { logger } from "../logger";
 import { sendMail } from "../mail/mailer";

@@ -26,7 +26,11 @@ function slug(text: string): string {
 }
 
 /** "no-best-die-the-kittiwake-trio_8K_2026-03-12_rolls.csv": the lesson, the class and the day the run was taught. */
-export function exportFileName(run: { title: string; classGroup: string; createdAt: Date }, kind: "rolls" | "summary" | "results", extension: "csv" | "xlsx"): string {
+export function exportFileName(
+  run: { title: string; classGroup: string; createdAt: Date },
+  kind: "rolls" | "summary" | "results",
+  extension: "csv" | "xlsx",
+): string {
   const day = run.createdAt.toISOString().slice(0, 10);
   const parts = [slug(run.title), run.classGroup ? slug(run.classGroup) : "no-class", day, kind];
   return `${parts.join("_")}.${extension}`;
@@ -99,7 +103,8 @@ function enteredAs(rolls: number, countedRolls: number): string {
   return countedRolls === rolls ? "counts" : "rolls and counts";
 }
 
-const round = (value: number | null | undefined, places = 4) => (value === null || value === undefined ? null : Number(value.toFixed(places)));
+const round = (value: number | null | undefined, places = 4) =>
+  value === null || value === undefined ? null : Number(value.toFixed(places));
 
 /** The summary export: one row per matchup, then one per group and matchup, all from poolRolls. */
 export function summaryRows(pooled: PooledResults): SummaryExportRow[] {
@@ -176,7 +181,12 @@ async function runContext(teacher: TeacherContext, runId: string) {
 }
 
 /** The rolls CSV: one row per roll that counts, streamed from a cursor in batches (RFC 4180, UTF-8, header row). */
-export async function rollsCsvDownload(teacher: TeacherContext, runId: string, includeSimulated: boolean, includeLeftOut = false): Promise<ResultsDownload> {
+export async function rollsCsvDownload(
+  teacher: TeacherContext,
+  runId: string,
+  includeSimulated: boolean,
+  includeLeftOut = false,
+): Promise<ResultsDownload> {
   const { run, names, nicknames } = await runContext(teacher, runId);
   return {
     fileName: exportFileName(run, "rolls", "csv"),
@@ -184,21 +194,38 @@ export async function rollsCsvDownload(teacher: TeacherContext, runId: string, i
     write: async (out) => {
       await writeChunk(out, BYTE_ORDER_MARK + csvLines(rollsExportColumns, [], { header: true }));
       for await (const batch of streamRunRolls(run.id, { includeSimulated, includeLeftOut })) {
-        await writeChunk(out, csvLines(rollsExportColumns, batch.map((stored) => rollsRow(stored, names, nicknames)), { header: false }));
+        await writeChunk(
+          out,
+          csvLines(
+            rollsExportColumns,
+            batch.map((stored) => rollsRow(stored, names, nicknames)),
+            { header: false },
+          ),
+        );
       }
     },
   };
 }
 
 /** Pools a run's rolls from the cursor for the summary, keeping no roll and no convergence series: memory stays flat. */
-async function pooledForSummary(run: ResultsRunListRecord, nicknames: Map<string, string>, includeSimulated: boolean, includeLeftOut: boolean): Promise<PooledResults> {
+async function pooledForSummary(
+  run: ResultsRunListRecord,
+  nicknames: Map<string, string>,
+  includeSimulated: boolean,
+  includeLeftOut: boolean,
+): Promise<PooledResults> {
   const pool = new RollPool(run.dice, run.tieRule as TieRule, { series: false });
   await poolRunRolls(run.id, [pool], { includeSimulated, includeLeftOut, nicknames });
   return pool.result();
 }
 
 /** The summary CSV: per matchup and per group, counts, relative frequency, exact fraction and decimal, Wilson 95% interval. */
-export async function summaryCsvDownload(teacher: TeacherContext, runId: string, includeSimulated: boolean, includeLeftOut = false): Promise<ResultsDownload> {
+export async function summaryCsvDownload(
+  teacher: TeacherContext,
+  runId: string,
+  includeSimulated: boolean,
+  includeLeftOut = false,
+): Promise<ResultsDownload> {
   const { run, nicknames } = await runContext(teacher, runId);
   return {
     fileName: exportFileName(run, "summary", "csv"),
@@ -215,7 +242,12 @@ export async function summaryCsvDownload(teacher: TeacherContext, runId: string,
  * The workbook: a Rolls sheet streamed row by row through exceljs's streaming WorkbookWriter, each roll counted on the
  * way into a RollPool (without a convergence series, so memory stays flat), then the Summary sheet from that pool.
  */
-export async function workbookDownload(teacher: TeacherContext, runId: string, includeSimulated: boolean, includeLeftOut = false): Promise<ResultsDownload> {
+export async function workbookDownload(
+  teacher: TeacherContext,
+  runId: string,
+  includeSimulated: boolean,
+  includeLeftOut = false,
+): Promise<ResultsDownload> {
   const { run, names, nicknames } = await runContext(teacher, runId);
   return {
     fileName: exportFileName(run, "results", "xlsx"),
@@ -226,7 +258,11 @@ export async function workbookDownload(teacher: TeacherContext, runId: string, i
       workbook.creator = "Outroll";
       workbook.created = new Date();
       const rollsSheet = workbook.addWorksheet("Rolls", { views: [{ state: "frozen", ySplit: 1 }] });
-      rollsSheet.columns = rollsExportColumns.map((key) => ({ header: key, key, width: key === "roll_id" ? 38 : key === "roll_time" ? 26 : 14 }));
+      rollsSheet.columns = rollsExportColumns.map((key) => ({
+        header: key,
+        key,
+        width: key === "roll_id" ? 38 : key === "roll_time" ? 26 : 14,
+      }));
       rollsSheet.getRow(1).commit();
       const pool = new RollPool(run.dice, run.tieRule as TieRule, { series: false });
       for await (const batch of streamRunRolls(run.id, { includeSimulated, includeLeftOut })) {

@@ -127,7 +127,11 @@ export async function visibleRun(teacher: TeacherContext, runId: string): Promis
 }
 
 /** A streamed roll as a RollPool takes it; `mapMatchup` re-indexes dice for pooling across runs. */
-export function poolableRoll(stored: StreamedRoll, nicknames: Map<string, string>, mapMatchup?: (matchup: number[]) => number[]): PoolableRoll {
+export function poolableRoll(
+  stored: StreamedRoll,
+  nicknames: Map<string, string>,
+  mapMatchup?: (matchup: number[]) => number[],
+): PoolableRoll {
   return {
     groupId: stored.groupId,
     groupNickname: nicknames.get(stored.groupId),
@@ -181,7 +185,12 @@ export async function poolRunRolls(
 export async function poolRunCounts(
   runId: string,
   pools: RollPool[],
-  options: { nicknames: Map<string, string>; includeLeftOut?: boolean; dicePerPlayer?: number; mapMatchup?: (matchup: number[]) => number[] },
+  options: {
+    nicknames: Map<string, string>;
+    includeLeftOut?: boolean;
+    dicePerPlayer?: number;
+    mapMatchup?: (matchup: number[]) => number[];
+  },
   perGroup = new Map<string, number>(),
 ): Promise<Map<string, number>> {
   for (const row of await listPaperCounts(db, runId, { includeLeftOut: options.includeLeftOut })) {
@@ -204,7 +213,12 @@ export async function poolRunCounts(
 }
 
 /** A run's results page: pooled figures, convergence, per-group table, Guess votes and findings, from stored rolls. */
-export async function getRunResults(teacher: TeacherContext, runId: string, includeSimulated: boolean, includeLeftOut = false): Promise<RunResults> {
+export async function getRunResults(
+  teacher: TeacherContext,
+  runId: string,
+  includeSimulated: boolean,
+  includeLeftOut = false,
+): Promise<RunResults> {
   const run = await visibleRun(teacher, runId);
   const groups = await listRunGroups(db, runId);
   const nicknames = new Map(groups.map((group) => [group.id, group.nickname]));
@@ -231,7 +245,11 @@ export async function getRunResults(teacher: TeacherContext, runId: string, incl
       rolls: rollsPerGroup.get(group.id) ?? 0,
       leftOut: group.leftOutAt !== null,
     })),
-    guessVotes: dieNames.map((dieName, dieIndex) => ({ dieIndex, dieName, votes: votes.find((vote) => vote.dieIndex === dieIndex)?.votes ?? 0 })),
+    guessVotes: dieNames.map((dieName, dieIndex) => ({
+      dieIndex,
+      dieName,
+      votes: votes.find((vote) => vote.dieIndex === dieIndex)?.votes ?? 0,
+    })),
     findings: classFindings(mainPooled, dieNames),
   };
 }
@@ -253,7 +271,10 @@ export async function deleteResultsRun(teacher: TeacherContext, runId: string): 
  * the same number of players and tie rule, keeping rolls with `dicePerPlayer` dice each. Each run's die indexes are
  * mapped onto the oldest run's dice; a teacher pools their own runs, the head any run of the department.
  */
-export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQuery & { includeSimulated: boolean }): Promise<PooledAcrossRuns> {
+export async function pooledAcrossRuns(
+  teacher: TeacherContext,
+  query: PooledQuery & { includeSimulated: boolean },
+): Promise<PooledAcrossRuns> {
   const viewer = archiveViewer(teacher, query.scope);
   const visible = await listClosedRuns(db, viewer, resultsListQuerySchema.parse({ sort: "date", order: "asc" }));
   let chosen: ResultsRunListRecord[];
@@ -275,9 +296,14 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
   const [reference] = chosen;
   const setKey = diceSetKey(reference.dice);
   for (const run of chosen) {
-    if (query.setKey && diceSetKey(run.dice) !== query.setKey) throw new HttpError(400, "not_same_set", `“${run.title}” (${run.classGroup || "no class"}) used a different set.`);
+    if (query.setKey && diceSetKey(run.dice) !== query.setKey)
+      throw new HttpError(400, "not_same_set", `“${run.title}” (${run.classGroup || "no class"}) used a different set.`);
     if (diceSetKey(run.dice) !== setKey) {
-      throw new HttpError(400, "not_same_set", `“${run.title}” (${run.classGroup || "no class"}) used different dice from “${reference.title}”; only runs of the same set can be pooled.`);
+      throw new HttpError(
+        400,
+        "not_same_set",
+        `“${run.title}” (${run.classGroup || "no class"}) used different dice from “${reference.title}”; only runs of the same set can be pooled.`,
+      );
     }
     if (mainMode(run).players !== mainMode(reference).players) {
       throw new HttpError(
@@ -287,7 +313,11 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
       );
     }
     if (run.tieRule !== reference.tieRule) {
-      throw new HttpError(400, "not_same_tie_rule", `“${run.title}” and “${reference.title}” used different tie rules; pool runs with the same tie rule.`);
+      throw new HttpError(
+        400,
+        "not_same_tie_rule",
+        `“${run.title}” and “${reference.title}” used different tie rules; pool runs with the same tie rule.`,
+      );
     }
   }
   const referencePositions = canonicalDiePositions(reference.dice);
@@ -320,7 +350,10 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
     });
   }
   const candidates = visible
-    .filter((run) => diceSetKey(run.dice) === setKey && mainMode(run).players === mainMode(reference).players && run.tieRule === reference.tieRule)
+    .filter(
+      (run) =>
+        diceSetKey(run.dice) === setKey && mainMode(run).players === mainMode(reference).players && run.tieRule === reference.tieRule,
+    )
     .map((run) => runSummary(run, teacher.user.id));
   return {
     setKey,
@@ -337,7 +370,8 @@ export async function pooledAcrossRuns(teacher: TeacherContext, query: PooledQue
 /** Why a lesson cannot start a paper run, or null when it can. */
 function paperRunProblem(lesson: { plan: unknown; dice: unknown }): string | null {
   if (lesson.dice === null) return "The lesson has no dice set yet; choose one in Lessons first.";
-  if (!setDiceSchema.safeParse(lesson.dice).success) return "The lesson's dice set is not valid; open it on the Dice bench and save it again.";
+  if (!setDiceSchema.safeParse(lesson.dice).success)
+    return "The lesson's dice set is not valid; open it on the Dice bench and save it again.";
   if (!lessonPlanSchema.safeParse(lesson.plan).success) return "The lesson plan is incomplete; open it in Lessons and save it again.";
   return null;
 }
@@ -348,7 +382,14 @@ export async function listPaperRunLessons(teacher: TeacherContext): Promise<{ le
   return {
     lessons: lessons.map((lesson) => {
       const reason = paperRunProblem(lesson);
-      return { id: lesson.id, title: lesson.title, classGroup: lesson.classGroup, diceSetName: lesson.diceSetName, ready: reason === null, reason };
+      return {
+        id: lesson.id,
+        title: lesson.title,
+        classGroup: lesson.classGroup,
+        diceSetName: lesson.diceSetName,
+        ready: reason === null,
+        reason,
+      };
     }),
   };
 }

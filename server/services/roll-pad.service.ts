@@ -42,7 +42,9 @@ export class PadError extends Error {
     this.name = "PadError";
   }
   toEventError(): EventError {
-    return this.retryAfterMs === undefined ? { code: this.code, message: this.message } : { code: this.code, message: this.message, retryAfterMs: this.retryAfterMs };
+    return this.retryAfterMs === undefined
+      ? { code: this.code, message: this.message }
+      : { code: this.code, message: this.message, retryAfterMs: this.retryAfterMs };
   }
 }
 
@@ -135,7 +137,13 @@ function padRun(run: ClassRunRow): PadRun {
 async function padState(run: ClassRunRow, group: RunGroupRow): Promise<PadState> {
   const [vote, rolls] = await Promise.all([findVote(db, group.id), groupRollsInTally(db, group.id, run.currentTally, RECENT_ROLLS)]);
   const recentRolls: PadRoll[] = rolls.recent.map((entry) => ({ ...entry, recordedAt: entry.recordedAt.toISOString() }));
-  return { run: padRun(run), group: { id: group.id, nickname: group.nickname, matchup: group.matchup }, vote, savedRolls: rolls.saved, recentRolls };
+  return {
+    run: padRun(run),
+    group: { id: group.id, nickname: group.nickname, matchup: group.matchup },
+    vote,
+    savedRolls: rolls.saved,
+    recentRolls,
+  };
 }
 
 function refuseClosed(run: ClassRunRow) {
@@ -158,16 +166,24 @@ export async function joinRun(runId: string, nickname: string, attemptId?: strin
   const { group, created } = await db.transaction(async (tx) => {
     // Locking the run keeps the group count (and so the cap and the next assigned matchup) right when groups join at once.
     const run = await lockClassRun(tx, runId);
-    if (!run || run.status === "closed") throw new PadError("unknown_code", "No open class run has that code. Check the code on the board and try again.");
+    if (!run || run.status === "closed")
+      throw new PadError("unknown_code", "No open class run has that code. Check the code on the board and try again.");
     if (attemptId) {
       const earlier = await findGroupByJoinAttempt(tx, run.id, attemptId);
       if (earlier?.removedAt) throw groupRemoved();
       if (earlier) return { group: earlier, created: false };
     }
-    if (run.joiningLocked) throw new PadError("joining_locked", "Your teacher has closed joining for this run. Ask your teacher, or join another group's phone.");
+    if (run.joiningLocked)
+      throw new PadError(
+        "joining_locked",
+        "Your teacher has closed joining for this run. Ask your teacher, or join another group's phone.",
+      );
     const groups = await countGroups(tx, run.id);
     if (groups.phones >= run.groupCap) {
-      throw new PadError("run_full", `This run already has ${run.groupCap} groups, the most your teacher allowed. Join another group's phone.`);
+      throw new PadError(
+        "run_full",
+        `This run already has ${run.groupCap} groups, the most your teacher allowed. Join another group's phone.`,
+      );
     }
     const matchup = run.matchupChoice === "assigned" ? assignedMatchup(run.dice.length, run.players, groups.present) : null;
     try {
@@ -179,7 +195,10 @@ export async function joinRun(runId: string, nickname: string, attemptId?: strin
         throw new PadError("nickname_taken", `Another group in this run is already called “${nickname}”. Choose another nickname.`);
       }
       if (isUniqueViolation(error, "run_group_run_nickname_key_idx")) {
-        throw new PadError("nickname_taken", `“${nickname}” looks just like another group's nickname on the board. Choose one that looks different.`);
+        throw new PadError(
+          "nickname_taken",
+          `“${nickname}” looks just like another group's nickname on the board. Choose one that looks different.`,
+        );
       }
       throw error;
     }
@@ -194,7 +213,8 @@ export async function resumeGroup(token: string): Promise<PadState> {
   const claims = verifyGuestToken(token);
   if (!claims) throw new PadError("bad_token", "This phone's group pass is not valid. Join the run again with the code on the board.");
   const [run, group] = await Promise.all([findClassRun(db, claims.runId), findGroup(db, claims.groupId)]);
-  if (!run || !group || group.runId !== run.id) throw new PadError("bad_token", "This phone's group pass does not belong to a class run any more. Join again.");
+  if (!run || !group || group.runId !== run.id)
+    throw new PadError("bad_token", "This phone's group pass does not belong to a class run any more. Join again.");
   if (group.removedAt) throw groupRemoved();
   return padState(run, group);
 }
@@ -218,8 +238,10 @@ export async function chooseMatchup(token: string, matchup: number[]): Promise<{
   const { run, group } = await tokenOwner(token);
   refuseClosed(run);
   if (run.matchupChoice !== "group-choice") throw new PadError("matchup_assigned", "Your teacher assigns the matchups in this run.");
-  if (matchup.length !== run.players) throw new PadError("wrong_mode", `Choose ${run.players} dice: this part of the run is played by ${run.players} players.`);
-  if (matchup.some((index) => index >= run.dice.length)) throw new PadError("invalid_input", `Choose among the ${run.dice.length} dice in the set.`);
+  if (matchup.length !== run.players)
+    throw new PadError("wrong_mode", `Choose ${run.players} dice: this part of the run is played by ${run.players} players.`);
+  if (matchup.some((index) => index >= run.dice.length))
+    throw new PadError("invalid_input", `Choose among the ${run.dice.length} dice in the set.`);
   await db.transaction(async (tx) => {
     await setGroupMatchup(tx, group.id, matchup);
     await bumpBoardVersion(tx, run.id);
@@ -253,10 +275,18 @@ export const ROLL_PHASES: readonly RunPhase[] = ["Roll", "Twist"];
 function rowForRoll({ run, group }: TokenOwner, roll: RollPayload): NewRoll {
   refuseClosed(run);
   if (run.status === "paused") {
-    throw new PadError("run_paused", "Your teacher has paused the run. This roll is kept on the phone and sent when the run goes on.", 3_000);
+    throw new PadError(
+      "run_paused",
+      "Your teacher has paused the run. This roll is kept on the phone and sent when the run goes on.",
+      3_000,
+    );
   }
   if (!ROLL_PHASES.includes(run.phase as RunPhase) || roll.tally !== run.currentTally) {
-    throw new PadError("not_roll_phase", `The class is in the ${run.phase} phase, which takes no rolls for this game. The roll waits on the phone.`, 3_000);
+    throw new PadError(
+      "not_roll_phase",
+      `The class is in the ${run.phase} phase, which takes no rolls for this game. The roll waits on the phone.`,
+      3_000,
+    );
   }
   if (run.rollCeilingReachedAt) throw rollCeilingReached();
   const tally = talliesOf(run).find((entry) => entry.tally === roll.tally);
@@ -264,9 +294,11 @@ function rowForRoll({ run, group }: TokenOwner, roll: RollPayload): NewRoll {
   if (roll.matchup.length !== tally.players || roll.faces.length !== tally.players) {
     throw new PadError("wrong_mode", `This part of the run is played by ${tally.players} players; the roll has ${roll.faces.length}.`);
   }
-  if (roll.matchup.some((index) => index >= run.dice.length)) throw new PadError("bad_faces", `The set has ${run.dice.length} dice; this roll names another.`);
+  if (roll.matchup.some((index) => index >= run.dice.length))
+    throw new PadError("bad_faces", `The set has ${run.dice.length} dice; this roll names another.`);
   if (roll.tally === run.currentTally) {
-    if (!group.matchup) throw new PadError("no_matchup", "Your group has no matchup yet: choose one, or wait for your teacher to give you one.");
+    if (!group.matchup)
+      throw new PadError("no_matchup", "Your group has no matchup yet: choose one, or wait for your teacher to give you one.");
     if (group.matchup.length !== roll.matchup.length || group.matchup.some((dieIndex, seat) => dieIndex !== roll.matchup[seat])) {
       const names = group.matchup.map((index) => run.dice[index].name).join(" v ");
       throw new PadError("wrong_matchup", `Your group's matchup is ${names} now; this roll was for another. Record it again.`);
@@ -275,10 +307,14 @@ function rowForRoll({ run, group }: TokenOwner, roll: RollPayload): NewRoll {
   roll.faces.forEach((seatFaces, seat) => {
     const die = run.dice[roll.matchup[seat]];
     if (seatFaces.length !== tally.dicePerPlayer) {
-      throw new PadError("wrong_mode", `Each player rolls ${tally.dicePerPlayer === 1 ? "one die" : "two dice"} here; ${die.name}'s player sent ${seatFaces.length}.`);
+      throw new PadError(
+        "wrong_mode",
+        `Each player rolls ${tally.dicePerPlayer === 1 ? "one die" : "two dice"} here; ${die.name}'s player sent ${seatFaces.length}.`,
+      );
     }
     const missing = seatFaces.find((face) => !die.faces.includes(face));
-    if (missing !== undefined) throw new PadError("bad_faces", `${missing} is not a face of ${die.name}: its faces are ${dieList(die.faces)}.`);
+    if (missing !== undefined)
+      throw new PadError("bad_faces", `${missing} is not a face of ${die.name}: its faces are ${dieList(die.faces)}.`);
   });
   const totals = roll.faces.map((seatFaces) => seatFaces.reduce((sum, face) => sum + face, 0));
   const now = Date.now();
@@ -303,14 +339,22 @@ function rowForRoll({ run, group }: TokenOwner, roll: RollPayload): NewRoll {
 
 /** The refusal once a run has taken its roll ceiling of phone rolls. */
 export function rollCeilingReached(): PadError {
-  return new PadError("run_roll_ceiling", "This run has taken all the rolls it can. Your teacher can see this on the board; thank you for playing!");
+  return new PadError(
+    "run_roll_ceiling",
+    "This run has taken all the rolls it can. Your teacher can see this on the board; thank you for playing!",
+  );
 }
 
 /** Undoes one of the group's rolls: the row stays with undone_at, so a late resend of the same id stays undone. */
 export async function undoRoll(token: string, rollId: string): Promise<{ runId: string; id: string }> {
   const { run, group } = await tokenOwner(token);
   refuseClosed(run);
-  if (run.status === "paused") throw new PadError("run_paused", "Your teacher has paused the run. The undo is kept on the phone and sent when the run goes on.", 3_000);
+  if (run.status === "paused")
+    throw new PadError(
+      "run_paused",
+      "Your teacher has paused the run. The undo is kept on the phone and sent when the run goes on.",
+      3_000,
+    );
   const undone = await db.transaction(async (tx) => {
     const row = await markRollUndone(tx, group.id, rollId);
     if (row) await bumpBoardVersion(tx, run.id);

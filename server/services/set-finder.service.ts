@@ -46,13 +46,22 @@ export async function startSearch(teacher: TeacherContext, request: SetFinderReq
   try {
     await startsPerHour.consume(teacher.user.id);
   } catch (error) {
-    if (isLimitRefusal(error)) throw new HttpError(429, "too_many_searches", `You have started ${STARTS_PER_HOUR} searches this hour; wait a while before starting another.`);
+    if (isLimitRefusal(error))
+      throw new HttpError(
+        429,
+        "too_many_searches",
+        `You have started ${STARTS_PER_HOUR} searches this hour; wait a while before starting another.`,
+      );
     throw error;
   }
   await db.transaction(async (tx) => {
     await lockTeacherSearches(tx, teacher.user.id);
     if ((await countActiveSearches(tx, teacher.user.id)) >= ACTIVE_PER_TEACHER) {
-      throw new HttpError(429, "too_many_searches", `You already have ${ACTIVE_PER_TEACHER} searches running; wait for one to finish or cancel it.`);
+      throw new HttpError(
+        429,
+        "too_many_searches",
+        `You already have ${ACTIVE_PER_TEACHER} searches running; wait for one to finish or cancel it.`,
+      );
     }
     await insertSearch(tx, { id, ownerId: teacher.user.id, request, progress: emptyProgress, message: "Waiting for a free search slot…" });
     await forgetOldSearches(tx, teacher.user.id, KEPT_PER_TEACHER);

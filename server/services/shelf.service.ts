@@ -49,7 +49,11 @@ function departmentOf(teacher: TeacherContext) {
 function readSnapshot(value: unknown): LessonSnapshot {
   const parsed = lessonSnapshotSchema.safeParse(value);
   if (!parsed.success) {
-    throw new HttpError(500, "template_unreadable", "This template version cannot be read; ask your head of department to publish it again.");
+    throw new HttpError(
+      500,
+      "template_unreadable",
+      "This template version cannot be read; ask your head of department to publish it again.",
+    );
   }
   return parsed.data;
 }
@@ -172,7 +176,14 @@ async function createTemplate(
     sourceLessonId: lessonId,
     createdById: teacher.user.id,
   });
-  await insertTemplateVersion(tx, { templateId: template.id, version: 1, changeNote, snapshot, publishedById: teacher.user.id, proposedById });
+  await insertTemplateVersion(tx, {
+    templateId: template.id,
+    version: 1,
+    changeNote,
+    snapshot,
+    publishedById: teacher.user.id,
+    proposedById,
+  });
   return template.id;
 }
 

@@ -39,7 +39,14 @@ export async function getTallyGrid(teacher: TeacherContext, runId: string): Prom
   const names = run.dice.map((die) => die.name);
   const lesson = run.lessonId ? await findLessonById(db, run.lessonId) : null;
   return {
-    run: { id: run.id, title: run.title, classGroup: run.classGroup, dieNames: names, tallies: runTallies(run), isOwner: run.ownerId === teacher.user.id },
+    run: {
+      id: run.id,
+      title: run.title,
+      classGroup: run.classGroup,
+      dieNames: names,
+      tallies: runTallies(run),
+      isOwner: run.ownerId === teacher.user.id,
+    },
     groups: groups.map((group) => ({ id: group.id, nickname: group.nickname, source: group.source })),
     counts: (await listPaperCounts(db, runId)).map((row) => storedCount(row, names, nicknames)),
     plannedRolls: lesson ? plannedRollsOf(lesson.plan) : null,
@@ -47,7 +54,8 @@ export async function getTallyGrid(teacher: TeacherContext, runId: string): Prom
 }
 
 function isUniqueViolation(error: unknown): boolean {
-  const codeOf = (value: unknown) => (typeof value === "object" && value !== null && "code" in value ? (value as { code: unknown }).code : undefined);
+  const codeOf = (value: unknown) =>
+    typeof value === "object" && value !== null && "code" in value ? (value as { code: unknown }).code : undefined;
   return codeOf(error) === "23505" || codeOf((error as { cause?: unknown } | null)?.cause) === "23505";
 }
 
@@ -60,9 +68,20 @@ export async function saveTallyCounts(teacher: TeacherContext, runId: string, in
   const run = await visibleRun(teacher, runId);
   assertOwnsRun(teacher, run, "enter results for it");
   const mode: ResultsTally | undefined = runTallies(run).find((entry) => entry.tally === input.tally);
-  if (!mode) throw new HttpError(422, "invalid_tally", `This run has no tally ${input.tally}; its tallies are ${runTallies(run).map((entry) => entry.tally).join(" and ")}.`);
+  if (!mode)
+    throw new HttpError(
+      422,
+      "invalid_tally",
+      `This run has no tally ${input.tally}; its tallies are ${runTallies(run)
+        .map((entry) => entry.tally)
+        .join(" and ")}.`,
+    );
   if (mode.players !== 2) {
-    throw new HttpError(422, "counts_need_two_players", "Counts work for two-player matchups only; enter three-player rolls one by one in the rolls grid.");
+    throw new HttpError(
+      422,
+      "counts_need_two_players",
+      "Counts work for two-player matchups only; enter three-player rolls one by one in the rolls grid.",
+    );
   }
   const groups = await listRunGroups(db, runId);
   const groupByNickname = new Map(groups.map((group) => [group.nickname.trim().toLowerCase(), group]));
@@ -75,7 +94,8 @@ export async function saveTallyCounts(teacher: TeacherContext, runId: string, in
   const tieChances = new Map<string, boolean>();
   const canTie = (first: number, second: number) => {
     const key = `${first}-${second}`;
-    if (!tieChances.has(key)) tieChances.set(key, !compareDice(run.dice[first].faces, run.dice[second].faces, { dicePerPlayer: mode.dicePerPlayer }).tie.equals(0));
+    if (!tieChances.has(key))
+      tieChances.set(key, !compareDice(run.dice[first].faces, run.dice[second].faces, { dicePerPlayer: mode.dicePerPlayer }).tie.equals(0));
     return tieChances.get(key)!;
   };
   input.counts.forEach((entry, index) => {
@@ -83,7 +103,8 @@ export async function saveTallyCounts(teacher: TeacherContext, runId: string, in
     const messages: string[] = [];
     const indexes = entry.dice.map((name) => dieIndexByName.get(name.trim().toLowerCase()));
     indexes.forEach((dieIndex, seat) => {
-      if (dieIndex === undefined) messages.push(`${seat === 0 ? "First" : "Second"} die: "${entry.dice[seat]}" is not a die of this run's set (${setDieNames}).`);
+      if (dieIndex === undefined)
+        messages.push(`${seat === 0 ? "First" : "Second"} die: "${entry.dice[seat]}" is not a die of this run's set (${setDieNames}).`);
     });
     if (indexes[0] !== undefined && indexes[0] === indexes[1]) messages.push("A matchup needs two different dice.");
     const groupKey = entry.group.toLowerCase();
@@ -92,7 +113,9 @@ export async function saveTallyCounts(teacher: TeacherContext, runId: string, in
       if (input.createGroups) newGroups.set(groupKey, entry.group);
       else {
         const knownNames = groups.map((group) => group.nickname).join(", ");
-        messages.push(`This run has no group "${entry.group}"${knownNames ? ` (its groups: ${knownNames})` : " yet"}. Correct the nickname, or tick "Create groups that are new".`);
+        messages.push(
+          `This run has no group "${entry.group}"${knownNames ? ` (its groups: ${knownNames})` : " yet"}. Correct the nickname, or tick "Create groups that are new".`,
+        );
       }
     }
     if (messages.length === 0) {
@@ -100,10 +123,13 @@ export async function saveTallyCounts(teacher: TeacherContext, runId: string, in
       const swapped = first > second;
       const key = `${groupKey}\u0000${Math.min(first, second)}-${Math.max(first, second)}`;
       if (entry.ties > 0 && !canTie(first, second)) {
-        messages.push(`${run.dice[first].name} and ${run.dice[second].name} cannot tie ${mode.dicePerPlayer === 1 ? "with one die each" : `with ${mode.dicePerPlayer} dice each`}, so ties must be 0.`);
+        messages.push(
+          `${run.dice[first].name} and ${run.dice[second].name} cannot tie ${mode.dicePerPlayer === 1 ? "with one die each" : `with ${mode.dicePerPlayer} dice each`}, so ties must be 0.`,
+        );
       }
       const earlier = seen.get(key);
-      if (earlier !== undefined) messages.push(`Group ${entry.group} has this matchup twice (rows ${earlier} and ${rowNumber}); add the counts into one row.`);
+      if (earlier !== undefined)
+        messages.push(`Group ${entry.group} has this matchup twice (rows ${earlier} and ${rowNumber}); add the counts into one row.`);
       else seen.set(key, rowNumber);
       // An empty row (all zero) stores nothing.
       if (messages.length === 0 && entry.firstWins + entry.ties + entry.secondWins > 0) {
@@ -129,11 +155,18 @@ export async function saveTallyCounts(teacher: TeacherContext, runId: string, in
       Object.fromEntries(errors),
     );
   }
-  const outcome = await replacePaperCounts(db, { runId, tally: input.tally, enteredById: teacher.user.id, newGroups: [...newGroups.values()], rows }).catch((error: unknown) => {
+  const outcome = await replacePaperCounts(db, {
+    runId,
+    tally: input.tally,
+    enteredById: teacher.user.id,
+    newGroups: [...newGroups.values()],
+    rows,
+  }).catch((error: unknown) => {
     if (isUniqueViolation(error)) return "conflict" as const;
     throw error;
   });
-  if (outcome === "conflict") throw new HttpError(409, "save_conflict", "The run's groups changed while the counts were saved, so nothing was stored. Save again.");
+  if (outcome === "conflict")
+    throw new HttpError(409, "save_conflict", "The run's groups changed while the counts were saved, so nothing was stored. Save again.");
   const grid = await getTallyGrid(teacher, runId);
   return { saved: outcome.saved, removed: outcome.removed, newGroups: [...newGroups.values()], counts: grid.counts };
 }

@@ -32,7 +32,9 @@ const local = new Map<string, LocalSearch>();
 
 /** The search worker's entry: TypeScript through tsx in development and tests, the built file in production. */
 function searchWorkerUrl(): URL {
-  return import.meta.url.endsWith(".ts") ? new URL("./start-search-worker.mjs", import.meta.url) : pathToFileURL(path.join(env.projectRoot, "dist/server/search-worker.js"));
+  return import.meta.url.endsWith(".ts")
+    ? new URL("./start-search-worker.mjs", import.meta.url)
+    : pathToFileURL(path.join(env.projectRoot, "dist/server/search-worker.js"));
 }
 
 /**
@@ -49,13 +51,16 @@ export function startSearchQueue(): Promise<PgBoss> {
     try {
       await lock.query("select pg_advisory_lock($1)", [QUEUE_SETUP_LOCK_KEY]);
       await queue.start();
-      if (!(await queue.getQueue(SEARCH_QUEUE))) await queue.createQueue(SEARCH_QUEUE, { name: SEARCH_QUEUE, retryLimit: 3, retryDelay: 1 });
+      if (!(await queue.getQueue(SEARCH_QUEUE)))
+        await queue.createQueue(SEARCH_QUEUE, { name: SEARCH_QUEUE, retryLimit: 3, retryDelay: 1 });
     } finally {
       await lock.query("select pg_advisory_unlock($1)", [QUEUE_SETUP_LOCK_KEY]).catch(() => undefined);
       lock.release();
     }
     for (let slot = 0; slot < env.SET_FINDER_SEARCHES_PER_PROCESS; slot += 1) {
-      await queue.work<SearchJobData>(SEARCH_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => runSearch(job.data.searchId));
+      await queue.work<SearchJobData>(SEARCH_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) =>
+        runSearch(job.data.searchId),
+      );
     }
     return queue;
   })().catch((error: unknown) => {
@@ -68,7 +73,11 @@ export function startSearchQueue(): Promise<PgBoss> {
 /** Queues a search that is already in the set_finder_search table. */
 export async function enqueueSearch(searchId: string, request: SetFinderRequest): Promise<void> {
   const queue = await startSearchQueue();
-  await queue.send(SEARCH_QUEUE, { searchId } satisfies SearchJobData, { expireInSeconds: request.timeBudgetSeconds + EXPIRY_MARGIN_SECONDS, retryLimit: 3, retryDelay: 1 });
+  await queue.send(SEARCH_QUEUE, { searchId } satisfies SearchJobData, {
+    expireInSeconds: request.timeBudgetSeconds + EXPIRY_MARGIN_SECONDS,
+    retryLimit: 3,
+    retryDelay: 1,
+  });
 }
 
 /**
@@ -127,9 +136,12 @@ async function runSearch(searchId: string): Promise<void> {
   const writer = setInterval(() => {
     const update = latest;
     if (update === written || update === null) {
-      void findSearch(db, searchId).then((current) => {
-        if (current?.cancelRequested) requestStop();
-      }, () => undefined);
+      void findSearch(db, searchId).then(
+        (current) => {
+          if (current?.cancelRequested) requestStop();
+        },
+        () => undefined,
+      );
       return;
     }
     written = update;
@@ -155,7 +167,10 @@ async function runSearch(searchId: string): Promise<void> {
     // A search stopped past its grace period hands back what its last progress report held.
     const final: SetFinderUpdate | null = outcome.kind === "done" ? outcome.update : latest;
     if (final === null) {
-      await endSearch(db, searchId, "cancelled", { progress: { ...(lastRunning ?? emptyProgress), etaSeconds: null }, message: "Cancelled. No set had turned up yet." });
+      await endSearch(db, searchId, "cancelled", {
+        progress: { ...(lastRunning ?? emptyProgress), etaSeconds: null },
+        message: "Cancelled. No set had turned up yet.",
+      });
       return;
     }
     if (stopped) {
@@ -170,7 +185,13 @@ async function runSearch(searchId: string): Promise<void> {
       });
       return;
     }
-    await endSearch(db, searchId, "finished", { mode: final.mode, results: final.results, complete: final.complete, progress: final.progress, message: final.message });
+    await endSearch(db, searchId, "finished", {
+      mode: final.mode,
+      results: final.results,
+      complete: final.complete,
+      progress: final.progress,
+      message: final.message,
+    });
   } finally {
     clearInterval(writer);
     clearTimeout(graceTimer);

@@ -3,7 +3,8 @@
  * the one after), wrapping round, so the groups together play every step of a cycle A → B → C → A.
  */
 export function cycleMatchups(diceCount: number, players: number): number[][] {
-  if (!Number.isInteger(diceCount) || diceCount < players) throw new RangeError(`${players} players need at least ${players} dice in the set.`);
+  if (!Number.isInteger(diceCount) || diceCount < players)
+    throw new RangeError(`${players} players need at least ${players} dice in the set.`);
   const seen = new Set<string>();
   const matchups: number[][] = [];
   for (let first = 0; first < diceCount; first += 1) {

@@ -46,12 +46,16 @@ export class BoardPool {
 
   /** A pool for these rolls: with a class-only pool exactly when some of them are simulated. */
   static of(settings: BoardPoolSettings, rolls: PoolableRoll[]): BoardPool {
-    return new BoardPool(settings, rolls.some((entry) => entry.source === "simulated")).add(rolls);
+    return new BoardPool(
+      settings,
+      rolls.some((entry) => entry.source === "simulated"),
+    ).add(rolls);
   }
 
   add(rolls: Iterable<PoolableRoll>): this {
     for (const roll of rolls) {
-      if (roll.source === "simulated" && !this.withSimulated) throw new SimulatedRollError("a simulated roll came to a pool kept without them");
+      if (roll.source === "simulated" && !this.withSimulated)
+        throw new SimulatedRollError("a simulated roll came to a pool kept without them");
       this.rollsByGroup[roll.groupId] = (this.rollsByGroup[roll.groupId] ?? 0) + 1;
       this.kept += 1;
       // A roll of a tally the run no longer lists is counted for its group but pooled nowhere.

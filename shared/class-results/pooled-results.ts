@@ -120,7 +120,10 @@ export interface PooledMatchup {
   exact: MatchupExact;
   /** Wilson 95% score interval around `frequencyUnderTieRule`; null when no roll counts yet. */
   interval: ProportionInterval | null;
-  /** Running frequency after each roll recorded one by one (counts have no order), in recordedAt order, evenly downsampled to at most CONVERGENCE_POINTS_MAX points (the last roll always kept). */
+  /**
+   * Running frequency after each roll recorded one by one (counts have no order), in recordedAt order, evenly downsampled to at most
+   * CONVERGENCE_POINTS_MAX points (the last roll always kept).
+   */
   convergence: ConvergencePoint[];
 }
 
@@ -307,7 +310,12 @@ function runningFrequency(wins: number, ties: number, rolls: number, decided: nu
 }
 
 /** Any seat's relative frequency under the tie rule from its counts (the same rules as the first seat's); null when no roll counts yet. */
-export function seatFrequencyUnderTieRule(seat: Pick<SeatCounts, "wins" | "ties">, rolls: number, decidedRolls: number, tieRule: TieRule): number | null {
+export function seatFrequencyUnderTieRule(
+  seat: Pick<SeatCounts, "wins" | "ties">,
+  rolls: number,
+  decidedRolls: number,
+  tieRule: TieRule,
+): number | null {
   return runningFrequency(seat.wins, seat.ties, rolls, decidedRolls, tieRule);
 }
 
@@ -431,7 +439,9 @@ export class RollPool {
       if (recordedMatchup.some((index) => !Number.isInteger(index) || index < 0 || index >= this.dice.length)) {
         throw new RangeError(`A roll names a die that is not in the set (the set has ${this.dice.length} dice).`);
       }
-      const seats = recordedMatchup.map((dieIndex, seat) => ({ dieIndex, seat })).sort((x, y) => x.dieIndex - y.dieIndex || x.seat - y.seat);
+      const seats = recordedMatchup
+        .map((dieIndex, seat) => ({ dieIndex, seat }))
+        .sort((x, y) => x.dieIndex - y.dieIndex || x.seat - y.seat);
       const matchup = seats.map((entry) => entry.dieIndex);
       known = { key: `${dicePerPlayer}:${matchup.join("-")}`, seats: seats.map((entry) => entry.seat), matchup };
       this.orderKeys.set(recorded, known);
@@ -448,7 +458,10 @@ export class RollPool {
     return ofMatchup;
   }
 
-  private groupTally(known: { key: string; matchup: number[] }, entry: { groupId: string; groupNickname?: string; dicePerPlayer: number; source: RollSource }): GroupTally {
+  private groupTally(
+    known: { key: string; matchup: number[] },
+    entry: { groupId: string; groupNickname?: string; dicePerPlayer: number; source: RollSource },
+  ): GroupTally {
     const groupKey = `${entry.groupId} ${known.key}`;
     let ofGroup = this.groups.get(groupKey);
     if (!ofGroup) {
@@ -485,7 +498,8 @@ export class RollPool {
 
   addOne(roll: PoolableRoll): void {
     const known = this.orderOf(roll.dicePerPlayer, roll.matchup);
-    if (roll.totals.length !== known.seats.length) throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
+    if (roll.totals.length !== known.seats.length)
+      throw new RangeError("Each roll needs one total per seat of its matchup, and at least two seats.");
     const totals = known.seats.map((seat) => roll.totals[seat]);
 
     const ofMatchup = this.matchupTally(known, roll.dicePerPlayer);
@@ -508,9 +522,13 @@ export class RollPool {
   /** The pooled figures of every roll added so far; `nicknames` (group id → nickname) overrides those the rolls carried. */
   result(nicknames?: Record<string, string>): PooledResults {
     const matchups = [...this.matchups.values()].map((tally) => this.matchupResult(tally));
-    matchups.sort((x, y) => x.dicePerPlayer - y.dicePerPlayer || x.players - y.players || x.key.localeCompare(y.key, "en", { numeric: true }));
+    matchups.sort(
+      (x, y) => x.dicePerPlayer - y.dicePerPlayer || x.players - y.players || x.key.localeCompare(y.key, "en", { numeric: true }),
+    );
     const groups = [...this.groups.values()].map((tally) => this.groupResult(tally, nicknames?.[tally.groupId] ?? tally.nickname));
-    groups.sort((x, y) => (x.groupNickname ?? x.groupId).localeCompare(y.groupNickname ?? y.groupId) || x.matchupKey.localeCompare(y.matchupKey));
+    groups.sort(
+      (x, y) => (x.groupNickname ?? x.groupId).localeCompare(y.groupNickname ?? y.groupId) || x.matchupKey.localeCompare(y.matchupKey),
+    );
     return {
       tieRule: this.tieRule,
       matchups,
@@ -527,18 +545,35 @@ export class RollPool {
   }
 
   private emptyTally(known: { key: string; matchup: number[] }, dicePerPlayer: number): SeatTally {
-    return { key: known.key, matchup: known.matchup, dicePerPlayer, seats: emptySeats(known.matchup, this.names), decided: 0, rolls: 0, counted: 0 };
+    return {
+      key: known.key,
+      matchup: known.matchup,
+      dicePerPlayer,
+      seats: emptySeats(known.matchup, this.names),
+      decided: 0,
+      rolls: 0,
+      counted: 0,
+    };
   }
 
   private exactFor(key: string, matchup: number[], dicePerPlayer: number): ExactFractions {
     let exact = this.exactCache.get(key);
-    if (!exact) this.exactCache.set(key, (exact = exactFractions(matchup.map((index) => this.dice[index].faces), dicePerPlayer)));
+    if (!exact)
+      this.exactCache.set(
+        key,
+        (exact = exactFractions(
+          matchup.map((index) => this.dice[index].faces),
+          dicePerPlayer,
+        )),
+      );
     return exact;
   }
 
   /** Puts a matchup's series back in recorded order (ties in arrival order) after a roll arrived out of order. */
   private sortSeries(tally: MatchupTally) {
-    const order = tally.times.map((_, index) => index).sort((x, y) => tally.times[x] - tally.times[y] || tally.arrivals[x] - tally.arrivals[y]);
+    const order = tally.times
+      .map((_, index) => index)
+      .sort((x, y) => tally.times[x] - tally.times[y] || tally.arrivals[x] - tally.arrivals[y]);
     tally.times = order.map((index) => tally.times[index]);
     tally.arrivals = order.map((index) => tally.arrivals[index]);
     tally.codes = order.map((index) => tally.codes[index]);
@@ -664,6 +699,10 @@ export class RollPool {
  * Callers choose the rolls (one tally, with or without simulated rolls); undone rolls must be left out.
  * The same as adding every roll to a RollPool and reading its result.
  */
-export function poolRolls(input: { dice: { name: string; faces: number[] }[]; tieRule: TieRule; rolls: Iterable<PoolableRoll> }): PooledResults {
+export function poolRolls(input: {
+  dice: { name: string; faces: number[] }[];
+  tieRule: TieRule;
+  rolls: Iterable<PoolableRoll>;
+}): PooledResults {
   return new RollPool(input.dice, input.tieRule).add(input.rolls).result();
 }

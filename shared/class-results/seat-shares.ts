@@ -23,8 +23,13 @@ export interface SeatShare {
  * The order a matchup's dice are played in on the pads: the order most groups were given or chose (their matchups), else
  * the order the teacher's assignment cycle hands it out, else ascending die index. Answers die indexes.
  */
-export function padDieOrder(matchup: readonly number[], playedMatchups: readonly (readonly number[] | null)[], diceCount: number): number[] {
-  const sameDice = (order: readonly number[]) => order.length === matchup.length && [...order].sort((x, y) => x - y).join("-") === [...matchup].sort((x, y) => x - y).join("-");
+export function padDieOrder(
+  matchup: readonly number[],
+  playedMatchups: readonly (readonly number[] | null)[],
+  diceCount: number,
+): number[] {
+  const sameDice = (order: readonly number[]) =>
+    order.length === matchup.length && [...order].sort((x, y) => x - y).join("-") === [...matchup].sort((x, y) => x - y).join("-");
   const counts = new Map<string, { order: number[]; groups: number }>();
   for (const played of playedMatchups) {
     if (!played || !sameDice(played)) continue;

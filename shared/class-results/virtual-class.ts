@@ -10,7 +10,12 @@ export type SimulatedMatchupRoll = { faces: number[][]; totals: number[] };
  * Seeded rolls of a matchup for the virtual class: two players through the engine's matchupSimulation, three players
  * with the engine's mulberry32 generator and rejection sampling (randomBelow); the same seed gives the same rolls.
  */
-export function simulatedMatchupRolls(input: { dice: number[][]; dicePerPlayer: number; rolls: number; seed: number }): SimulatedMatchupRoll[] {
+export function simulatedMatchupRolls(input: {
+  dice: number[][];
+  dicePerPlayer: number;
+  rolls: number;
+  seed: number;
+}): SimulatedMatchupRoll[] {
   const { dice, dicePerPlayer, rolls, seed } = input;
   if (dice.length === 2) {
     return matchupSimulation(dice[0], dice[1], { rolls, seed, dicePerPlayer }).rolls.map((entry) => ({

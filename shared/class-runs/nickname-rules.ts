@@ -9,7 +9,17 @@ export { NICKNAME_MAX, NICKNAME_MIN };
 export const VIRTUAL_GROUP_PREFIX = "Virtual group";
 
 // Innocent place names that hold a rude word inside, which the word filter's English list would otherwise refuse.
-const innocentPlaceNames = ["penistone", "cumnock", "cumbernauld", "scunthorpe", "clitheroe", "shitterton", "twatt", "wankie", "bitchfield"];
+const innocentPlaceNames = [
+  "penistone",
+  "cumnock",
+  "cumbernauld",
+  "scunthorpe",
+  "clitheroe",
+  "shitterton",
+  "twatt",
+  "wankie",
+  "bitchfield",
+];
 
 const rudeWords = new RegExpMatcher({
   ...new DataSet<{ originalWord?: string }>()

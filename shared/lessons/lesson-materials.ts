@@ -155,7 +155,12 @@ function assignedGames(games: number[][], groups: number): number[][] {
 }
 
 /** How many groups' worth of rolls a main matchup receives: a group counts 1 if its game has both dice. */
-function coverageOf(pair: [number, number], games: number[][], groups: number, matchupChoice: LessonMaterialsFields["matchupChoice"]): number {
+function coverageOf(
+  pair: [number, number],
+  games: number[][],
+  groups: number,
+  matchupChoice: LessonMaterialsFields["matchupChoice"],
+): number {
   const contains = (game: number[]) => game.includes(pair[0]) && game.includes(pair[1]);
   if (games.length === 0) return 0;
   if (matchupChoice === "group-choice") {
@@ -194,14 +199,25 @@ export function lessonMaterials(plan: LessonMaterialsFields, dice: MaterialsDie[
     rowsPerSheet,
   };
   const exitTicketSlips = reflectIncluded && plan.exitTicket.trim() !== "" ? plan.groups * plan.pupilsPerGroup : 0;
-  notes.push(`Recording sheets: ${sheetsPerGroup === 2 ? "two per group (the Roll round and the Twist round)" : "one per group"}, each with room for ${rowsPerSheet} rolls, plus ${spares} spare.`);
+  notes.push(
+    `Recording sheets: ${sheetsPerGroup === 2 ? "two per group (the Roll round and the Twist round)" : "one per group"}, each with room for ${rowsPerSheet} rolls, plus ${spares} spare.`,
+  );
   if (rowsPerSheet < plan.rollsPerGroup && budget !== null) {
-    notes.push(`The plan asks for ${plan.rollsPerGroup} rolls per group, but at ${paceText(budget)} a group makes about ${budget.rollsPerGroup} in the ${budget.minutes}-minute Roll phase, so the sheets have ${rowsPerSheet} rows.`);
+    notes.push(
+      `The plan asks for ${plan.rollsPerGroup} rolls per group, but at ${paceText(budget)} a group makes about ${budget.rollsPerGroup} in the ${budget.minutes}-minute Roll phase, so the sheets have ${rowsPerSheet} rows.`,
+    );
   }
 
   if (dice === null || dice.length === 0) {
     return {
-      materials: { copiesPerPlayer, dice: [], totalDice: 0, recordingSheets, exitTicketSlips, notes: ["Choose a dice set to count the dice.", ...notes] },
+      materials: {
+        copiesPerPlayer,
+        dice: [],
+        totalDice: 0,
+        recordingSheets,
+        exitTicketSlips,
+        notes: ["Choose a dice set to count the dice.", ...notes],
+      },
       verdict: {
         status: "no-set",
         pooledRolls,
@@ -234,7 +250,8 @@ export function lessonMaterials(plan: LessonMaterialsFields, dice: MaterialsDie[
     for (const game of assignedGames(games, plan.groups)) for (const index of game) forGroups[index] += copiesPerPlayer;
     notes.unshift(`The teacher assigns the games in turn round the set, and each group gets ${copiesPerPlayer} of each die in its game.`);
   }
-  if (copiesPerPlayer === 2 && plan.mode.dicePerPlayer === 1) notes.push("The Twist round plays two dice each, so every die comes in pairs.");
+  if (copiesPerPlayer === 2 && plan.mode.dicePerPlayer === 1)
+    notes.push("The Twist round plays two dice each, so every die comes in pairs.");
   const diceMaterials = dice.map((die, index) => {
     const used = forGroups[index] > 0;
     const dieSpares = used ? spares * copiesPerPlayer : 0;
@@ -260,7 +277,10 @@ export function lessonMaterials(plan: LessonMaterialsFields, dice: MaterialsDie[
  * needed are scaled up by 1 / P(no tie); ties score half treats the mean score like a win rate (Bernoulli variance is the
  * largest a score in [0, 1] can have, so this errs towards more rolls).
  */
-function rollsNeededUnderTieRule(result: MatchupResult, rule: TieRule): { testedChance: Fraction; neededRolls: number | null; decidedShare: number } {
+function rollsNeededUnderTieRule(
+  result: MatchupResult,
+  rule: TieRule,
+): { testedChance: Fraction; neededRolls: number | null; decidedShare: number } {
   if (rule === "ties-score-half") {
     const testedChance = winProbabilityUnderTieRule(result, rule)!;
     return { testedChance, neededRolls: rollsNeededToExcludeHalf(testedChance, VERDICT_CONFIDENCE), decidedShare: 1 };
@@ -273,7 +293,14 @@ function rollsNeededUnderTieRule(result: MatchupResult, rule: TieRule): { tested
 }
 
 /** The smallest number of groups (up to the lesson limit) whose rolls in the Roll phase give `pair` its needed rolls; null when none does. */
-function groupsReaching(pair: [number, number], games: number[][], fromGroups: number, matchupChoice: LessonMaterialsFields["matchupChoice"], rollsEach: number, needed: number): number | null {
+function groupsReaching(
+  pair: [number, number],
+  games: number[][],
+  fromGroups: number,
+  matchupChoice: LessonMaterialsFields["matchupChoice"],
+  rollsEach: number,
+  needed: number,
+): number | null {
   for (let groups = fromGroups; groups <= LESSON_LIMITS.groupsMax; groups += 1) {
     if (Math.floor(coverageOf(pair, games, groups, matchupChoice) * rollsEach) >= needed) return groups;
   }
@@ -291,21 +318,47 @@ function strongestMatchupOf(plan: LessonMaterialsFields, dice: MaterialsDie[], r
       if (winChance === null || winChance.compare(new Fraction(1, 2)) <= 0) return;
       const { neededRolls } = rollsNeededUnderTieRule(result, plan.tieRule);
       if (neededRolls === null || (best !== null && neededRolls >= best.neededRolls)) return;
-      best = { winner: first.name, loser: second.name, winChance, neededRolls, groupsInTime: rollsEach === null ? null : Math.ceil(neededRolls / rollsEach) };
+      best = {
+        winner: first.name,
+        loser: second.name,
+        winChance,
+        neededRolls,
+        groupsInTime: rollsEach === null ? null : Math.ceil(neededRolls / rollsEach),
+      };
     }),
   );
   return best;
 }
 
-function rollsVerdict(plan: LessonMaterialsFields, dice: MaterialsDie[], main: MainMatchups, games: number[][], pooledRolls: number): RollsVerdict {
+function rollsVerdict(
+  plan: LessonMaterialsFields,
+  dice: MaterialsDie[],
+  main: MainMatchups,
+  games: number[][],
+  pooledRolls: number,
+): RollsVerdict {
   const budget = rollPhaseBudget(rollPhaseMinutes(plan.phases), plan.mode);
   const fitsTime = budget === null || plan.rollsPerGroup <= budget.rollsPerGroup;
   // Only rolls that fit in the Roll phase count: a plan cannot promise more than a group can make.
   const rollsEach = budget === null ? plan.rollsPerGroup : Math.min(plan.rollsPerGroup, budget.rollsPerGroup);
   const cap = budget === null ? LESSON_LIMITS.rollsPerGroupMax : budget.rollsPerGroup;
-  const base = { pooledRolls, budget, fitsTime, suggestedRollsPerGroup: null, suggestedGroups: null, virtualTopUp: null, tooClose: [], strongestMatchup: null };
+  const base = {
+    pooledRolls,
+    budget,
+    fitsTime,
+    suggestedRollsPerGroup: null,
+    suggestedGroups: null,
+    virtualTopUp: null,
+    tooClose: [],
+    strongestMatchup: null,
+  };
   if (main.pairs.length === 0) {
-    return { ...base, status: "no-winner", matchups: [], message: "Every matchup of this set is even, so no number of rolls can show a winner." };
+    return {
+      ...base,
+      status: "no-winner",
+      matchups: [],
+      message: "Every matchup of this set is even, so no number of rolls can show a winner.",
+    };
   }
   const timeNote =
     budget === null || fitsTime
@@ -323,8 +376,19 @@ function rollsVerdict(plan: LessonMaterialsFields, dice: MaterialsDie[], main: M
     const plannedRolls = Math.floor(coverageOf(pair, games, plan.groups, plan.matchupChoice) * rollsEach);
     const enough = neededRolls !== null && plannedRolls >= neededRolls;
     const effectiveRolls = plannedRolls * decidedShare;
-    const expectedInterval = effectiveRolls > 0 ? wilsonIntervalFromProportion(fractionToNumber(testedChance), effectiveRolls, VERDICT_CONFIDENCE) : null;
-    matchups.push({ winner: dice[pair[0]].name, loser: dice[pair[1]].name, winChance, tieChance: result.tie, testedChance, plannedRolls, neededRolls, enough, expectedInterval });
+    const expectedInterval =
+      effectiveRolls > 0 ? wilsonIntervalFromProportion(fractionToNumber(testedChance), effectiveRolls, VERDICT_CONFIDENCE) : null;
+    matchups.push({
+      winner: dice[pair[0]].name,
+      loser: dice[pair[1]].name,
+      winChance,
+      tieChance: result.tie,
+      testedChance,
+      plannedRolls,
+      neededRolls,
+      enough,
+      expectedInterval,
+    });
     pairs.push(pair);
   }
   if (matchups.length === 0) {
@@ -345,7 +409,8 @@ function rollsVerdict(plan: LessonMaterialsFields, dice: MaterialsDie[], main: M
   const tooClose: string[] = [];
   matchups.forEach((entry, index) => {
     if (entry.enough) return;
-    const reaching = entry.neededRolls === null ? null : groupsReaching(pairs[index], games, neededGroups, plan.matchupChoice, cap, entry.neededRolls);
+    const reaching =
+      entry.neededRolls === null ? null : groupsReaching(pairs[index], games, neededGroups, plan.matchupChoice, cap, entry.neededRolls);
     if (reaching === null) tooClose.push(`${entry.winner} over ${entry.loser}`);
     else groups = Math.max(groups, reaching);
   });
@@ -363,7 +428,11 @@ function rollsVerdict(plan: LessonMaterialsFields, dice: MaterialsDie[], main: M
   const suggestedRolls = rollsPerGroup > plan.rollsPerGroup || !fitsTime ? rollsPerGroup : null;
   const short = matchups.filter((entry) => !entry.enough).length;
   const parts = [
-    ...(suggestedGroups === null ? [] : [`${suggestedGroups} groups${suggestedGroups === neededGroups && neededGroups > plan.groups ? ", so every main matchup is played" : ""}`]),
+    ...(suggestedGroups === null
+      ? []
+      : [
+          `${suggestedGroups} groups${suggestedGroups === neededGroups && neededGroups > plan.groups ? ", so every main matchup is played" : ""}`,
+        ]),
     ...(suggestedRolls === null ? [] : [`${suggestedRolls} rolls per group`]),
   ];
   const topUp = tooClose.length > 0 && virtualTopUp > 0 ? virtualTopUp : null;
@@ -372,12 +441,20 @@ function rollsVerdict(plan: LessonMaterialsFields, dice: MaterialsDie[], main: M
   if (parts.length > 0) sentences.push(`Try ${parts.join(" and ")}.`);
   if (tooClose.length > 0) {
     const limit = budget === null ? "" : ` in the ${budget.minutes}-minute Roll phase`;
-    sentences.push(`${tooClose.join(", ")} ${tooClose.length === 1 ? "is" : "are"} too close to show in one lesson: even ${LESSON_LIMITS.groupsMax} groups cannot make the rolls needed${limit}.`);
-    if (topUp !== null) sentences.push(`A Virtual class could top the class up with about ${topUp} simulated rolls of each short matchup (marked simulated).`);
+    sentences.push(
+      `${tooClose.join(", ")} ${tooClose.length === 1 ? "is" : "are"} too close to show in one lesson: even ${LESSON_LIMITS.groupsMax} groups cannot make the rolls needed${limit}.`,
+    );
+    if (topUp !== null)
+      sentences.push(
+        `A Virtual class could top the class up with about ${topUp} simulated rolls of each short matchup (marked simulated).`,
+      );
     if (strongest !== null) {
       const s = strongest as StrongestMatchup;
-      const groupsText = s.groupsInTime === null ? "" : `, about ${s.groupsInTime} ${s.groupsInTime === 1 ? "group's" : "groups'"} Roll phase`;
-      sentences.push(`The set's strongest matchup, ${s.winner} over ${s.loser} (wins ${fractionToString(s.winChance)}), needs about ${s.neededRolls} rolls${groupsText}.`);
+      const groupsText =
+        s.groupsInTime === null ? "" : `, about ${s.groupsInTime} ${s.groupsInTime === 1 ? "group's" : "groups'"} Roll phase`;
+      sentences.push(
+        `The set's strongest matchup, ${s.winner} over ${s.loser} (wins ${fractionToString(s.winChance)}), needs about ${s.neededRolls} rolls${groupsText}.`,
+      );
     }
   }
   return {

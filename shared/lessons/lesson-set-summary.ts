@@ -17,10 +17,12 @@ function joinSentence(parts: string[]): string {
 }
 
 function cycleSentenceOf(level: SetLevelAnalysis): string | null {
-  const cycle = level.strongestHamiltonianCycle ?? level.cycles.reduce<SetLevelAnalysis["cycles"][number] | null>(
-    (longest, entry) => (longest === null || entry.indices.length > longest.indices.length ? entry : longest),
-    null,
-  );
+  const cycle =
+    level.strongestHamiltonianCycle ??
+    level.cycles.reduce<SetLevelAnalysis["cycles"][number] | null>(
+      (longest, entry) => (longest === null || entry.indices.length > longest.indices.length ? entry : longest),
+      null,
+    );
   if (!cycle) return null;
   const names = cycle.dice;
   const parts = cycle.indices.map((index, position) => {
@@ -39,12 +41,23 @@ export function lessonSetSummary(dice: { name: string; faces: number[] }[], dice
   const level = analysis.levels.find((entry) => entry.dicePerPlayer === dicePerPlayer)!;
   const matchups = level.beats.map((edge) => {
     const entry = level.matrix[edge.winnerIndex][edge.loserIndex]!;
-    return { winner: edge.winner, loser: edge.loser, win: fractionToString(entry.win), tie: fractionToString(entry.tie), loss: fractionToString(entry.loss) };
+    return {
+      winner: edge.winner,
+      loser: edge.loser,
+      win: fractionToString(entry.win),
+      tie: fractionToString(entry.tie),
+      loss: fractionToString(entry.loss),
+    };
   });
   const twoDiceChanges = analysis.reversals
     .filter((reversal) => reversal.toDicePerPlayer === 2)
     .map((reversal) => {
-      const describe = (relation: string) => (relation === "beats" ? `${reversal.first} beats ${reversal.second}` : relation === "loses" ? `${reversal.second} beats ${reversal.first}` : `${reversal.first} and ${reversal.second} are even`);
+      const describe = (relation: string) =>
+        relation === "beats"
+          ? `${reversal.first} beats ${reversal.second}`
+          : relation === "loses"
+            ? `${reversal.second} beats ${reversal.first}`
+            : `${reversal.first} and ${reversal.second} are even`;
       return `With one die each ${describe(reversal.before)}; with two dice each ${describe(reversal.after)}.`;
     });
   return {

@@ -121,7 +121,8 @@ export function analyzeSet(
   if (options?.cycleLimit !== undefined && (!Number.isInteger(options.cycleLimit) || options.cycleLimit < 1)) {
     throw new RangeError(`The cycle limit must be a whole number of at least 1 (got ${options.cycleLimit}).`);
   }
-  const counts = options?.dicePerPlayer === undefined ? [1, 2, 3] : [...new Set([1, dicePerPlayerChecked(options.dicePerPlayer)])].sort((x, y) => x - y);
+  const counts =
+    options?.dicePerPlayer === undefined ? [1, 2, 3] : [...new Set([1, dicePerPlayerChecked(options.dicePerPlayer)])].sort((x, y) => x - y);
   const cache = new Map<string, CountDistribution>();
   const distributionOf = (index: number, dicePerPlayer: number): CountDistribution => {
     const key = `${index}:${dicePerPlayer}`;
@@ -162,7 +163,9 @@ function setLevelAnalysis(
   const matrix: (MatchupEntry | null)[][] = Array.from({ length: size }, () => new Array<MatchupEntry | null>(size).fill(null));
   for (let i = 0; i < size; i += 1) {
     for (let j = i + 1; j < size; j += 1) {
-      const forward = matchupResultFromCounts(matchupCountsFromDistributions(distributionOf(i, dicePerPlayer), distributionOf(j, dicePerPlayer)));
+      const forward = matchupResultFromCounts(
+        matchupCountsFromDistributions(distributionOf(i, dicePerPlayer), distributionOf(j, dicePerPlayer)),
+      );
       const backward = { win: forward.loss, tie: forward.tie, loss: forward.win };
       matrix[i][j] = { ...forward, relation: matchupRelation(forward), byTieRule: winProbabilitiesByTieRule(forward) };
       matrix[j][i] = { ...backward, relation: matchupRelation(backward), byTieRule: winProbabilitiesByTieRule(backward) };
@@ -172,7 +175,14 @@ function setLevelAnalysis(
   const beats: BeatsEdge[] = graph.flatMap((losers, winnerIndex) =>
     losers.map((loserIndex) => {
       const entry = matrix[winnerIndex][loserIndex]!;
-      return { winner: names[winnerIndex], loser: names[loserIndex], winnerIndex, loserIndex, win: entry.win, winReRollTies: entry.byTieRule["re-roll-ties"]! };
+      return {
+        winner: names[winnerIndex],
+        loser: names[loserIndex],
+        winnerIndex,
+        loserIndex,
+        win: entry.win,
+        winReRollTies: entry.byTieRule["re-roll-ties"]!,
+      };
     }),
   );
   const found = simpleCycles(graph, cycleLimit);
@@ -183,7 +193,9 @@ function setLevelAnalysis(
       .map((index, position) => matrix[index][indices[(position + 1) % indices.length]]!.win)
       .reduce((least, win) => (win.lt(least) ? win : least)),
   }));
-  const strongest = strongestHamiltonianCycle(graph.map((losers, winner) => names.map((_name, loser) => (losers.includes(loser) ? matrix[winner][loser]!.win : null))));
+  const strongest = strongestHamiltonianCycle(
+    graph.map((losers, winner) => names.map((_name, loser) => (losers.includes(loser) ? matrix[winner][loser]!.win : null))),
+  );
   const bestCounters: BestCounter[] = names.map((die, dieIndex) => {
     let counterIndex: number | null = null;
     for (let other = 0; other < size; other += 1) {
@@ -208,7 +220,10 @@ function setLevelAnalysis(
     cycles,
     cyclesComplete: found.complete,
     hamiltonianCycles: cycles.filter((cycle) => cycle.indices.length === size),
-    strongestHamiltonianCycle: strongest === null ? null : { dice: strongest.order.map((index) => names[index]), indices: strongest.order, weakestWin: strongest.weakest },
+    strongestHamiltonianCycle:
+      strongest === null
+        ? null
+        : { dice: strongest.order.map((index) => names[index]), indices: strongest.order, weakestWin: strongest.weakest },
     isIntransitive: cycles.length > 0,
     everyDieIsBeaten: bestCounters.every((counter) => counter.counter !== null),
     bestCounters,

@@ -40,8 +40,10 @@ export function binomialTestPValue(successes: number, trials: number, nullProbab
 
 /** The two-sided tail of binomialTest as tail / denominator, not reduced. */
 function exactTail(successes: number, trials: number, nullProbability: FractionInput): { p: Fraction; tail: bigint; denominator: bigint } {
-  if (!Number.isInteger(trials) || trials < 1 || trials > BINOMIAL_TRIALS_MAX) throw new RangeError(`Trials must be a whole number from 1 to ${BINOMIAL_TRIALS_MAX}.`);
-  if (!Number.isInteger(successes) || successes < 0 || successes > trials) throw new RangeError("Successes must be a whole number from 0 to the number of trials.");
+  if (!Number.isInteger(trials) || trials < 1 || trials > BINOMIAL_TRIALS_MAX)
+    throw new RangeError(`Trials must be a whole number from 1 to ${BINOMIAL_TRIALS_MAX}.`);
+  if (!Number.isInteger(successes) || successes < 0 || successes > trials)
+    throw new RangeError("Successes must be a whole number from 0 to the number of trials.");
   const p = new Fraction(nullProbability);
   if (p.lt(0) || p.gt(1)) throw new RangeError("The null probability must be from 0 to 1.");
   // With p = a/b, P(X = k) = C(n, k)·a^k·(b − a)^(n − k) / b^n, so whole-number numerators compare exactly.

@@ -41,7 +41,8 @@ export function chiSquareCriticalValue(degreesOfFreedom: number, alpha = 0.05): 
  */
 export function chiSquareGoodnessOfFit(observedPerFace: readonly number[]): ChiSquareResult {
   if (observedPerFace.length < 2) throw new RangeError("A goodness-of-fit test needs counts for at least 2 faces.");
-  if (observedPerFace.some((count) => !Number.isInteger(count) || count < 0)) throw new RangeError("Face counts must be whole numbers of at least 0.");
+  if (observedPerFace.some((count) => !Number.isInteger(count) || count < 0))
+    throw new RangeError("Face counts must be whole numbers of at least 0.");
   const total = observedPerFace.reduce((sum, count) => sum + count, 0);
   if (total === 0) throw new RangeError("A goodness-of-fit test needs at least one roll.");
   const faces = observedPerFace.length;

@@ -49,7 +49,13 @@ export function groupedTreeDiagram(a: number[], b: number[], options?: { dicePer
   const totals: Record<Outcome, bigint> = { win: 0n, tie: 0n, loss: 0n };
   for (let start = 0; start < first.values.length; start += perBand) {
     const end = Math.min(first.values.length, start + perBand);
-    const band: GroupedTreeBand = { from: first.values[start], to: first.values[end - 1], valueCount: end - start, ways: 0n, outcomes: { win: 0n, tie: 0n, loss: 0n } };
+    const band: GroupedTreeBand = {
+      from: first.values[start],
+      to: first.values[end - 1],
+      valueCount: end - start,
+      ways: 0n,
+      outcomes: { win: 0n, tie: 0n, loss: 0n },
+    };
     for (let index = start; index < end; index += 1) {
       const ways = first.counts[index];
       const win = ways * below[index];
@@ -62,5 +68,13 @@ export function groupedTreeDiagram(a: number[], b: number[], options?: { dicePer
     for (const outcome of ["win", "tie", "loss"] as const) totals[outcome] += band.outcomes[outcome];
     bands.push(band);
   }
-  return { dicePerPlayer, firstValues: first.values.length, secondValues: second.values.length, firstTotal: first.total, total: first.total * second.total, bands, totals };
+  return {
+    dicePerPlayer,
+    firstValues: first.values.length,
+    secondValues: second.values.length,
+    firstTotal: first.total,
+    total: first.total * second.total,
+    bands,
+    totals,
+  };
 }

@@ -8,7 +8,10 @@ import { sumCountDistribution } from "./sum-distribution";
  * Exact count of joint outcomes where `pick` is strictly above every opponent, with the total.
  * Independent players make P(X > max Yᵢ) = Σₓ P(X = x)·∏ᵢ P(Yᵢ < x), the distribution function of the maximum.
  */
-export function beatAllCountsFromDistributions(pick: CountDistribution, opponents: readonly CountDistribution[]): { beatAll: bigint; total: bigint } {
+export function beatAllCountsFromDistributions(
+  pick: CountDistribution,
+  opponents: readonly CountDistribution[],
+): { beatAll: bigint; total: bigint } {
   const belowPerOpponent = opponents.map((opponent) => countsBelow(opponent, pick.values).below);
   let beatAll = 0n;
   pick.counts.forEach((ways, index) => {
@@ -52,7 +55,10 @@ export function multiPlayerMatchup(players: number[][], options?: { dicePerPlaye
   const count = dicePerPlayerChecked(options?.dicePerPlayer ?? 1);
   const distributions = players.map((faces) => sumCountDistribution(dieFacesChecked(faces), count));
   const highestOutright = distributions.map((pick, index) => {
-    const { beatAll, total } = beatAllCountsFromDistributions(pick, distributions.filter((_, other) => other !== index));
+    const { beatAll, total } = beatAllCountsFromDistributions(
+      pick,
+      distributions.filter((_, other) => other !== index),
+    );
     return new Fraction(beatAll, total);
   });
   const sharedHighest = highestOutright.reduce((rest, part) => rest.sub(part), new Fraction(1));

@@ -43,9 +43,7 @@ export function pickAdviceForThreePlayers(
         });
       }
       if (candidates.length === 0) continue;
-      candidates.sort(
-        (x, y) => y.probability.compare(x.probability) || x.dicePerPlayer - y.dicePerPlayer || x.pickIndex - y.pickIndex,
-      );
+      candidates.sort((x, y) => y.probability.compare(x.probability) || x.dicePerPlayer - y.dicePerPlayer || x.pickIndex - y.pickIndex);
       advice.push({ opponents: [names[first], names[second]], opponentIndices: [first, second], best: candidates[0], candidates });
     }
   }

@@ -18,10 +18,12 @@ export const STRONGEST_CYCLE_VERTICES_MAX = 16;
 export function strongestHamiltonianCycle(weights: readonly (readonly (Fraction | null)[])[]): StrongestHamiltonianCycle | null {
   const size = weights.length;
   if (size < 2) return null;
-  if (size > STRONGEST_CYCLE_VERTICES_MAX) throw new RangeError(`The strongest cycle search takes at most ${STRONGEST_CYCLE_VERTICES_MAX} vertices.`);
+  if (size > STRONGEST_CYCLE_VERTICES_MAX)
+    throw new RangeError(`The strongest cycle search takes at most ${STRONGEST_CYCLE_VERTICES_MAX} vertices.`);
   // Edge weights become ranks (0 = weakest), so the table compares small integers instead of fractions.
   const distinct: Fraction[] = [];
-  for (const row of weights) for (const weight of row) if (weight !== null && !distinct.some((known) => known.equals(weight))) distinct.push(weight);
+  for (const row of weights)
+    for (const weight of row) if (weight !== null && !distinct.some((known) => known.equals(weight))) distinct.push(weight);
   distinct.sort((a, b) => a.compare(b));
   const rank = weights.map((row) => row.map((weight) => (weight === null ? -1 : distinct.findIndex((known) => known.equals(weight)))));
   const full = (1 << size) - 1;

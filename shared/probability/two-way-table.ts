@@ -51,6 +51,10 @@ export function twoWayTable(a: number[], b: number[], options?: { dicePerPlayer?
       return { outcome, ways, probability: new Fraction(ways, totalWays) };
     }),
   );
-  const totals = { win: new Fraction(tally.win, totalWays), tie: new Fraction(tally.tie, totalWays), loss: new Fraction(tally.loss, totalWays) };
+  const totals = {
+    win: new Fraction(tally.win, totalWays),
+    tie: new Fraction(tally.tie, totalWays),
+    loss: new Fraction(tally.loss, totalWays),
+  };
   return { dicePerPlayer, rows, columns, cells, totalWays, totals };
 }

@@ -36,6 +36,7 @@ export function wilsonIntervalFromProportion(proportion: number, trials: number,
  */
 export function wilsonInterval(successes: number, trials: number, confidence = 0.95): ProportionInterval {
   if (!Number.isInteger(trials) || trials < 1) throw new RangeError("Trials must be a whole number of at least 1.");
-  if (!Number.isInteger(successes) || successes < 0 || successes > trials) throw new RangeError("Successes must be a whole number from 0 to the number of trials.");
+  if (!Number.isInteger(successes) || successes < 0 || successes > trials)
+    throw new RangeError("Successes must be a whole number from 0 to the number of trials.");
   return wilsonIntervalFromProportion(successes / trials, trials, confidence);
 }

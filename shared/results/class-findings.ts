@@ -63,13 +63,22 @@ export function classFindings(pooled: PooledResults, dieNames: readonly string[]
   if (interval === null) return [first, "Every roll of this matchup was a tie, so the rolls cannot compare the dice yet."];
   const range = `from ${three(interval.lower)} to ${three(interval.upper)}`;
   if (main.players === 2 && interval.lower > 0.5) {
-    return [first, `The 95% interval ${range} lies wholly above 1/2, so these rolls alone show ${firstDie} beats ${secondDie} more often than not.`];
+    return [
+      first,
+      `The 95% interval ${range} lies wholly above 1/2, so these rolls alone show ${firstDie} beats ${secondDie} more often than not.`,
+    ];
   }
   if (main.players === 2 && interval.upper < 0.5) {
-    return [first, `The 95% interval ${range} lies wholly below 1/2, so these rolls alone show ${secondDie} beats ${firstDie} more often than not.`];
+    return [
+      first,
+      `The 95% interval ${range} lies wholly below 1/2, so these rolls alone show ${secondDie} beats ${firstDie} more often than not.`,
+    ];
   }
   if (main.players === 2) {
-    return [first, `The 95% interval ${range} still contains 1/2, so these rolls alone cannot yet say which die is better; more rolls would narrow it.`];
+    return [
+      first,
+      `The 95% interval ${range} still contains 1/2, so these rolls alone cannot yet say which die is better; more rolls would narrow it.`,
+    ];
   }
   const inside = interval.lower <= exact.value && exact.value <= interval.upper;
   return [first, `The exact ${exact.fraction} lies ${inside ? "inside" : "outside"} the 95% interval ${range} of the class's estimate.`];

@@ -15,7 +15,11 @@ export type CsvCell = string | number | null | undefined;
  * `escapeFormulae`, given the OWASP pattern), numbers are written as they are; `decimals` fixes the places of a
  * number column so every row reads the same (0.4920, not 0.492).
  */
-export function csvLines(columns: readonly string[], rows: Record<string, CsvCell>[], options: { header: boolean; decimals?: Record<string, number> }): string {
+export function csvLines(
+  columns: readonly string[],
+  rows: Record<string, CsvCell>[],
+  options: { header: boolean; decimals?: Record<string, number> },
+): string {
   const lines: string[] = [];
   const unparse = (data: CsvCell[][]) => Papa.unparse(data, { newline: "\r\n", escapeFormulae: FORMULA_START });
   if (options.header) lines.push(unparse([[...columns]]));

@@ -34,7 +34,9 @@ export function diceSetKey(dice: readonly FacedDie[]): string {
  */
 export function canonicalDiePositions(dice: readonly FacedDie[]): number[] {
   const signatures = dice.map(facesSignature);
-  const order = signatures.map((signature, index) => ({ signature, index })).sort((a, b) => (a.signature < b.signature ? -1 : a.signature > b.signature ? 1 : a.index - b.index));
+  const order = signatures
+    .map((signature, index) => ({ signature, index }))
+    .sort((a, b) => (a.signature < b.signature ? -1 : a.signature > b.signature ? 1 : a.index - b.index));
   const positions = new Array<number>(dice.length);
   order.forEach((entry, position) => {
     positions[entry.index] = position;

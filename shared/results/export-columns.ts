@@ -28,7 +28,7 @@ export const rollsExportColumnHelp: Record<RollsExportColumn, string> = {
   roll_time: "When the roll was recorded, ISO 8601 in UTC (Paper import rolls: the time of the import, in sheet order).",
   group: "The group's nickname.",
   tally: "1 for the main Roll phase; 2 and up for a fresh tally started in the Twist phase.",
-  matchup: "The dice of the matchup in seat order, joined by \" v \".",
+  matchup: 'The dice of the matchup in seat order, joined by " v ".',
   dice_per_player: "How many dice each player rolled and summed (1 = one die each, 2 = two dice each).",
   die_1: "The first player's die.",
   faces_1: "The face(s) the first player rolled, joined by + with two dice each (the Paper import notation).",
@@ -39,7 +39,7 @@ export const rollsExportColumnHelp: Record<RollsExportColumn, string> = {
   die_3: "The third player's die (three players only, otherwise empty).",
   faces_3: "The face(s) the third player rolled (three players only).",
   total_3: "The third player's total (three players only).",
-  outcome: "\"<die> wins\" for the single highest total, or \"tie\" when the highest total is shared.",
+  outcome: '"<die> wins" for the single highest total, or "tie" when the highest total is shared.',
   winning_die: "The winning die, empty for a tie.",
   source: "phone, simulated (the virtual class) or paper (Paper import).",
   simulated: "yes for simulated rolls, no for rolls pupils made.",
@@ -77,7 +77,7 @@ export type SummaryExportRow = Record<SummaryExportColumn, string | number | nul
 export const summaryExportColumnHelp: Record<SummaryExportColumn, string> = {
   section: "matchup for the whole class's figures of one matchup; group for one group's figures of one matchup.",
   group: "The group's nickname (group rows only).",
-  matchup: "The dice of the matchup, lowest-listed die first, joined by \" v \".",
+  matchup: 'The dice of the matchup, lowest-listed die first, joined by " v ".',
   dice_per_player: "Dice each player rolled and summed.",
   players: "2 or 3 players.",
   rolls: "Rolls counted (undone rolls are never counted).",
@@ -94,6 +94,8 @@ export const summaryExportColumnHelp: Record<SummaryExportColumn, string> = {
   wilson_95_upper: "Upper end of the Wilson 95% score interval.",
   binomial_p_value: "Group rows: the exact two-sided binomial test's p-value of the group's outright wins against the exact chance.",
   implausible: "Group rows: yes when that p-value is below 0.01, a sign the recording may need checking.",
-  entered_as: "rolls when every roll of the row was recorded one by one; counts when the row's rolls were typed into the tally grid as win/tie/loss counts only; rolls and counts when both.",
-  rolls_from_counts: "How many of the row's rolls were entered as counts: they are in every figure of the row, but have no row in the rolls export and no point in the convergence chart.",
+  entered_as:
+    "rolls when every roll of the row was recorded one by one; counts when the row's rolls were typed into the tally grid as win/tie/loss counts only; rolls and counts when both.",
+  rolls_from_counts:
+    "How many of the row's rolls were entered as counts: they are in every figure of the row, but have no row in the rolls export and no point in the convergence chart.",
 };

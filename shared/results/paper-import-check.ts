@@ -37,14 +37,20 @@ export type PaperImportCheck = {
 
 /** A header cell as a column name: trimmed, lower case, spaces and hyphens as underscores ("Die 1" → "die_1"). */
 export function normaliseHeaderCell(cell: string): string {
-  return cell.trim().toLowerCase().replace(/[\s-]+/g, "_");
+  return cell
+    .trim()
+    .toLowerCase()
+    .replace(/[\s-]+/g, "_");
 }
 
 /**
  * Checks the header row against the Paper import columns (shared/schemas/paper-import.ts): every column the run's
  * player count needs, no unknown or repeated column. Answers each column's position, or the problems found.
  */
-export function checkPaperImportHeader(header: readonly string[], players: number): { positions: Partial<Record<PaperImportColumn, number>>; messages: string[] } {
+export function checkPaperImportHeader(
+  header: readonly string[],
+  players: number,
+): { positions: Partial<Record<PaperImportColumn, number>>; messages: string[] } {
   const positions: Partial<Record<PaperImportColumn, number>> = {};
   const messages: string[] = [];
   const known = new Set<string>(paperImportColumns);
@@ -61,7 +67,8 @@ export function checkPaperImportHeader(header: readonly string[], players: numbe
   });
   const required = paperImportColumns.filter((column) => players === 3 || (column !== "die_3" && column !== "faces_3"));
   const missing = required.filter((column) => positions[column] === undefined);
-  if (missing.length > 0) messages.push(`The header row is missing ${missing.join(", ")}. The first row must name the columns ${required.join(", ")}.`);
+  if (missing.length > 0)
+    messages.push(`The header row is missing ${missing.join(", ")}. The first row must name the columns ${required.join(", ")}.`);
   return { positions, messages };
 }
 
@@ -137,7 +144,9 @@ export function checkPaperImportRows(context: PaperImportContext, records: reado
         messages.push(`die_${column}: ${die.name} is already the die of another player in this row; a matchup needs different dice.`);
       }
       if (seat.faces.length !== context.dicePerPlayer) {
-        messages.push(`faces_${column}: This run is ${context.dicePerPlayer === 1 ? "one die each" : `${context.dicePerPlayer} dice each`}: write ${facesWord}; found ${seat.faces.length}.`);
+        messages.push(
+          `faces_${column}: This run is ${context.dicePerPlayer === 1 ? "one die each" : `${context.dicePerPlayer} dice each`}: write ${facesWord}; found ${seat.faces.length}.`,
+        );
       }
       const missingFaces = [...new Set(seat.faces.filter((face) => !die.faces.includes(face)))];
       for (const face of missingFaces) {
@@ -164,7 +173,8 @@ export function checkPaperImportRows(context: PaperImportContext, records: reado
 
     const rollKey = `${groupKey}\u0000${value.roll}`;
     const firstRow = seenRolls.get(rollKey);
-    if (firstRow !== undefined) messages.push(`roll: Group ${value.group} has roll ${value.roll} twice in this file (rows ${firstRow} and ${record.row}).`);
+    if (firstRow !== undefined)
+      messages.push(`roll: Group ${value.group} has roll ${value.roll} twice in this file (rows ${firstRow} and ${record.row}).`);
     else seenRolls.set(rollKey, record.row);
 
     if (messages.length > 0 || faces.length !== seats.length) {
@@ -185,4 +195,3 @@ export function checkPaperImportRows(context: PaperImportContext, records: reado
   }
   return { rolls, errors, newGroups: [...newGroups.values()] };
 }
-

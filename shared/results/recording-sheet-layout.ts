@@ -31,7 +31,11 @@ export function recordingSheetColumns(plan: Pick<RecordingSheetPlan, "players" |
   return [
     { heading: "Roll", help: "", csvColumn: "roll" },
     ...Array.from({ length: plan.players }, (_, index) => rolled(index + 1)),
-    { heading: "Who won?", help: plan.dicePerPlayer === 1 ? "the die with the biggest number, or “tie”" : "the biggest total, or “tie”", csvColumn: null },
+    {
+      heading: "Who won?",
+      help: plan.dicePerPlayer === 1 ? "the die with the biggest number, or “tie”" : "the biggest total, or “tie”",
+      csvColumn: null,
+    },
   ];
 }
 

@@ -1,10 +1,7 @@
 import { z } from "zod";
 import { departmentRoleSchema } from "./roles";
 
-export const passwordSchema = z
-  .string()
-  .min(10, "Use at least 10 characters.")
-  .max(128, "Use at most 128 characters.");
+export const passwordSchema = z.string().min(10, "Use at least 10 characters.").max(128, "Use at most 128 characters.");
 
 /** A teacher's name as colleagues see it: 2 to 80 characters once trimmed (sign-up and account changes alike). */
 export const teacherNameSchema = z

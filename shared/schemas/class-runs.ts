@@ -54,7 +54,10 @@ export const groupCapSchema = z
   .max(GROUP_CAP_MAX, { error: `A run takes at most ${GROUP_CAP_MAX} groups.` });
 
 /** Body of POST /api/class-runs: open a run of one of the teacher's lessons, with an optional group cap. */
-export const openClassRunSchema = z.object({ lessonId: z.uuid({ error: "Pick one of your lessons." }), groupCap: groupCapSchema.optional() });
+export const openClassRunSchema = z.object({
+  lessonId: z.uuid({ error: "Pick one of your lessons." }),
+  groupCap: groupCapSchema.optional(),
+});
 export type OpenClassRunInput = z.infer<typeof openClassRunSchema>;
 
 /** Body of POST /api/class-runs/:id/status. */
@@ -71,9 +74,12 @@ export type RunPhaseChange = z.infer<typeof runPhaseChangeSchema>;
 
 /** A matchup: die indexes into the run's dice, one per player, all different. */
 export const matchupSchema = z
-  .array(z.number().int({ error: "Name each die by its number in the set." }).min(0, { error: "Name each die by its number in the set." }), {
-    error: "A matchup lists one die per player.",
-  })
+  .array(
+    z.number().int({ error: "Name each die by its number in the set." }).min(0, { error: "Name each die by its number in the set." }),
+    {
+      error: "A matchup lists one die per player.",
+    },
+  )
   .min(2, { error: "A matchup needs two or three dice." })
   .max(3, { error: "A matchup needs two or three dice." })
   .refine((matchup) => new Set(matchup).size === matchup.length, { error: "Each player in a matchup uses a different die." });
@@ -94,13 +100,22 @@ export const SIMULATED_ROLLS_MAX = 20_000;
 /** Body of POST /api/class-runs/:id/simulated-groups: the virtual class. */
 export const simulatedGroupsSchema = z
   .object({
-    groups: z.number({ error: "Say how many simulated groups." }).int().min(1, { error: "Add at least 1 group." }).max(20, { error: "Add at most 20 groups at once." }),
+    groups: z
+      .number({ error: "Say how many simulated groups." })
+      .int()
+      .min(1, { error: "Add at least 1 group." })
+      .max(20, { error: "Add at most 20 groups at once." }),
     rollsPerGroup: z
       .number({ error: "Say how many rolls each group makes." })
       .int({ error: "Rolls must be a whole number." })
       .min(1, { error: "Each group makes at least 1 roll." })
       .max(5000, { error: "Each group makes at most 5000 rolls." }),
-    seed: z.number().int().min(0).max(2 ** 32 - 1).optional(),
+    seed: z
+      .number()
+      .int()
+      .min(0)
+      .max(2 ** 32 - 1)
+      .optional(),
   })
   .refine((input) => input.groups * input.rollsPerGroup <= SIMULATED_ROLLS_MAX, {
     error: `Simulate at most ${SIMULATED_ROLLS_MAX} rolls at once.`,
@@ -158,7 +173,10 @@ export type ClassRun = {
 };
 
 /** One row of the Class runs list. */
-export type ClassRunSummary = Pick<ClassRun, "id" | "title" | "classGroup" | "diceSetName" | "phase" | "status" | "joinCode" | "createdAt" | "closedAt"> & {
+export type ClassRunSummary = Pick<
+  ClassRun,
+  "id" | "title" | "classGroup" | "diceSetName" | "phase" | "status" | "joinCode" | "createdAt" | "closedAt"
+> & {
   groupCount: number;
   rollCount: number;
 };

@@ -42,7 +42,10 @@ export function diceSetInputFromFile(file: DiceSetFile): DiceSetInput {
 
 /** Writes a zod issue path as a reader would: ["dice", 2, "faces", 4] → "dice[2].faces[4]". */
 export function issuePathText(path: readonly PropertyKey[]): string {
-  return path.reduce<string>((text, key) => (typeof key === "number" ? `${text}[${key}]` : text === "" ? String(key) : `${text}.${String(key)}`), "");
+  return path.reduce<string>(
+    (text, key) => (typeof key === "number" ? `${text}[${key}]` : text === "" ? String(key) : `${text}.${String(key)}`),
+    "",
+  );
 }
 
 /** One plain message per problem, each led by where it is ("dice[2].faces[4]: Face values must be at most 999."). */

@@ -6,7 +6,15 @@ import { diePalette } from "../dice-palette";
 export { diePalette };
 
 /** Words in a die's name that ask for a palette colour, beyond the colours' own names. */
-const colourWords: Record<string, DieColour> = { gray: "grey", violet: "purple", scarlet: "red", crimson: "red", navy: "blue", gold: "yellow", golden: "yellow" };
+const colourWords: Record<string, DieColour> = {
+  gray: "grey",
+  violet: "purple",
+  scarlet: "red",
+  crimson: "red",
+  navy: "blue",
+  gold: "yellow",
+  golden: "yellow",
+};
 
 /**
  * The palette entry a die's name asks for ("Red" or "Big red die" → red, "Grey" or "Gray" → grey), matching whole words

@@ -45,7 +45,11 @@ const wholeNumber = (label: string, min: number, max: number) =>
     .min(min, { error: `${label} must be at least ${min}.` })
     .max(max, { error: `${label} must be at most ${max}.` });
 
-const text = (label: string, max: number) => z.string().trim().max(max, { error: `Keep ${label} under ${max} characters.` });
+const text = (label: string, max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, { error: `Keep ${label} under ${max} characters.` });
 
 /** One learning objective, optionally tagged with a built-in curriculum standard (shared/curriculum/standards.ts). */
 export const lessonObjectiveSchema = z.object({
@@ -72,7 +76,9 @@ export type LessonMode = z.infer<typeof lessonModeSchema>;
 
 const planFields = {
   durationMinutes: wholeNumber("The duration", LESSON_LIMITS.durationMinutesMin, LESSON_LIMITS.durationMinutesMax),
-  objectives: z.array(lessonObjectiveSchema).max(LESSON_LIMITS.objectivesMax, { error: `A lesson has at most ${LESSON_LIMITS.objectivesMax} objectives.` }),
+  objectives: z
+    .array(lessonObjectiveSchema)
+    .max(LESSON_LIMITS.objectivesMax, { error: `A lesson has at most ${LESSON_LIMITS.objectivesMax} objectives.` }),
   mode: lessonModeSchema,
   tieRule: lessonTieRuleSchema,
   groups: wholeNumber("The number of groups", 1, LESSON_LIMITS.groupsMax),
@@ -89,7 +95,10 @@ const planFields = {
     .array(text("a prompt", 300).min(1, { error: "Write the prompt, or remove it." }))
     .max(LESSON_LIMITS.promptsMax, { error: `A lesson has at most ${LESSON_LIMITS.promptsMax} discussion prompts.` }),
   exitTicket: text("the exit ticket", 1000),
-  /** The Wall view keeps the exact chances back until the Prove phase, so the class judges its own figures first. Plans saved before the setting existed read as on. */
+  /**
+   * The Wall view keeps the exact chances back until the Prove phase, so the class judges its own figures first. Plans saved before
+   * the setting existed read as on.
+   */
   hideExactUntilProve: z.boolean({ error: "Say whether the Wall hides exact values until Prove." }).default(true),
   differentiation: z.object({ support: text("the support notes", 2000), stretch: text("the stretch notes", 2000) }),
 };

@@ -33,6 +33,9 @@ export const paperImportRowSchema = z.object({
   die_2: z.string().trim().min(1, "Name the second player's die."),
   faces_2: facesCell,
   die_3: z.string().trim().optional().default(""),
-  faces_3: z.union([z.literal(""), facesCell]).optional().default(""),
+  faces_3: z
+    .union([z.literal(""), facesCell])
+    .optional()
+    .default(""),
 });
 export type PaperImportRow = z.infer<typeof paperImportRowSchema>;

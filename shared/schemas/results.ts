@@ -79,13 +79,27 @@ export type ResultsExportQuery = z.infer<typeof resultsExportQuerySchema>;
 const uuidList = z
   .string()
   .trim()
-  .transform((value) => value.split(",").map((part) => part.trim()).filter(Boolean))
-  .pipe(z.array(z.uuid({ error: "Each run id must be a class run id." })).min(1, "Choose at least one run.").max(50, "Pool at most 50 runs at once."));
+  .transform((value) =>
+    value
+      .split(",")
+      .map((part) => part.trim())
+      .filter(Boolean),
+  )
+  .pipe(
+    z
+      .array(z.uuid({ error: "Each run id must be a class run id." }))
+      .min(1, "Choose at least one run.")
+      .max(50, "Pool at most 50 runs at once."),
+  );
 
 /** Query parameters of GET /api/results/pooled: several runs of the same set and mode pooled into one. */
 export const pooledQuerySchema = z
   .object({
-    setKey: z.string().trim().regex(/^[0-9a-f]{16}$/, "The set key is the 16-character key the archive lists for each run.").optional(),
+    setKey: z
+      .string()
+      .trim()
+      .regex(/^[0-9a-f]{16}$/, "The set key is the 16-character key the archive lists for each run.")
+      .optional(),
     dicePerPlayer: z.coerce.number({ error: "Dice per player must be a number." }).int().min(1).max(6).default(1),
     runIds: uuidList.optional(),
     scope: resultsScopeSchema.default("mine"),
@@ -112,7 +126,12 @@ export const paperImportOptionsSchema = z.object({
     .default("false")
     .transform((value) => value === "true"),
   // 1 is the main Roll phase; a Twist starts tally 2 with its own mode.
-  tally: z.coerce.number({ error: "tally must be a number." }).int("tally must be a whole number.").min(1, "Tallies count from 1.").max(20).default(1),
+  tally: z.coerce
+    .number({ error: "tally must be a number." })
+    .int("tally must be a whole number.")
+    .min(1, "Tallies count from 1.")
+    .max(20)
+    .default(1),
 });
 export type PaperImportOptions = z.infer<typeof paperImportOptionsSchema>;
 
@@ -155,7 +174,14 @@ export type PaperImportResult = {
 };
 
 /** A lesson a teacher can make a paper run from. */
-export type PaperRunLesson = { id: string; title: string; classGroup: string; diceSetName: string | null; ready: boolean; reason: string | null };
+export type PaperRunLesson = {
+  id: string;
+  title: string;
+  classGroup: string;
+  diceSetName: string | null;
+  ready: boolean;
+  reason: string | null;
+};
 
 /** What DELETE /api/results/runs/:id answers. */
 export type DeletedRun = { id: string; rolls: number; groups: number; votes: number; imports: number };

@@ -85,7 +85,12 @@ export const setFinderRequestSchema = z
       .max(FINDER_TIME_BUDGET_MAX, `Give the search at most ${FINDER_TIME_BUDGET_MAX} seconds.`)
       .default(FINDER_TIME_BUDGET_DEFAULT),
     /** Seed for the randomized search used on large requests, so a search can be repeated. */
-    seed: z.number().int().min(0).max(2 ** 31 - 1).optional(),
+    seed: z
+      .number()
+      .int()
+      .min(0)
+      .max(2 ** 31 - 1)
+      .optional(),
   })
   .refine((request) => request.property !== "two-cycles" || request.diceCount >= 5, {
     error: "Two cycles that share no matchup need at least 5 dice.",
@@ -150,7 +155,10 @@ export interface SetFinderProgress {
 /** "queued": waiting for a free search slot on some app process. */
 export type SetFinderStatus = "queued" | "running" | "finished" | "cancelled" | "failed";
 
-/** "exhaustive": every candidate up to symmetry (results are the proven best unless the time budget ran out); "randomized": a local search within the time budget. */
+/**
+ * "exhaustive": every candidate up to symmetry (results are the proven best unless the time budget ran out); "randomized": a local
+ * search within the time budget.
+ */
 export type SetFinderMode = "exhaustive" | "randomized";
 
 /** What GET /api/set-finder/searches/:id answers. */

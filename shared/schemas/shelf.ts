@@ -44,14 +44,18 @@ export const proposeLessonSchema = z.object({
 export type ProposeLessonInput = z.input<typeof proposeLessonSchema>;
 
 /** Body of POST /api/shelf/proposals/:id/approve: publish as a new template, or as the next version of one. */
-export const approveProposalSchema = z.discriminatedUnion("target", [
-  z.object({ target: z.literal("new"), changeNote: changeNoteSchema }),
-  z.object({
-    target: z.literal("version"),
-    templateId: z.uuid({ error: "Pick the template this lesson updates." }),
-    changeNote: changeNoteSchema,
-  }),
-], { error: "Choose whether it becomes a new template or the next version of one." });
+export const approveProposalSchema = z.discriminatedUnion(
+  "target",
+  [
+    z.object({ target: z.literal("new"), changeNote: changeNoteSchema }),
+    z.object({
+      target: z.literal("version"),
+      templateId: z.uuid({ error: "Pick the template this lesson updates." }),
+      changeNote: changeNoteSchema,
+    }),
+  ],
+  { error: "Choose whether it becomes a new template or the next version of one." },
+);
 export type ApproveProposalInput = z.infer<typeof approveProposalSchema>;
 
 /** Body of POST /api/shelf/proposals/:id/decline: the teacher is told why. */

@@ -6,7 +6,12 @@ export const TALLY_COUNT_ROWS_MAX = 1000;
 /** Largest count in one cell: more rolls than any group makes in a lesson. */
 export const TALLY_COUNT_MAX = 10_000;
 
-const tallyNumber = z.coerce.number({ error: "tally must be a number." }).int("tally must be a whole number.").min(1, "Tallies count from 1.").max(20).default(1);
+const tallyNumber = z.coerce
+  .number({ error: "tally must be a number." })
+  .int("tally must be a whole number.")
+  .min(1, "Tallies count from 1.")
+  .max(20)
+  .default(1);
 const nickname = z.string().trim().min(1, "Write the group's nickname.").max(24, "Group nicknames have at most 24 characters.");
 const count = (label: string) =>
   z

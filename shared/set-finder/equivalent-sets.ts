@@ -38,7 +38,10 @@ export function matchupFingerprint(property: FinderProperty, faces: readonly (re
   for (let shift = 0; shift < n; shift += 1) {
     const text = asked
       .map(([first, second, dicePerPlayer]) => {
-        const counts = matchupCountsFromDistributions(distributionOf((first + shift) % n, dicePerPlayer), distributionOf((second + shift) % n, dicePerPlayer));
+        const counts = matchupCountsFromDistributions(
+          distributionOf((first + shift) % n, dicePerPlayer),
+          distributionOf((second + shift) % n, dicePerPlayer),
+        );
         return `${counts.win}/${counts.tie}`;
       })
       .join(" ");
@@ -51,11 +54,18 @@ export function matchupFingerprint(property: FinderProperty, faces: readonly (re
  * Folds found sets that play every asked matchup alike (the same `matchupFingerprint`) into the first of them, best first,
  * counting the others in its `variants`; keeps at most `limit` sets.
  */
-export function collapseEquivalentSets(property: FinderProperty, results: readonly FoundSet[], limit = Number.POSITIVE_INFINITY): FoundSet[] {
+export function collapseEquivalentSets(
+  property: FinderProperty,
+  results: readonly FoundSet[],
+  limit = Number.POSITIVE_INFINITY,
+): FoundSet[] {
   const kept: FoundSet[] = [];
   const byFingerprint = new Map<string, FoundSet>();
   for (const result of results) {
-    const fingerprint = matchupFingerprint(property, result.dice.map((die) => die.faces));
+    const fingerprint = matchupFingerprint(
+      property,
+      result.dice.map((die) => die.faces),
+    );
     const first = byFingerprint.get(fingerprint);
     if (first !== undefined) {
       first.variants = (first.variants ?? 0) + 1;

@@ -65,7 +65,13 @@ export function oneDieWinTable(pool: DicePool): Uint8Array {
  * are barred, and could still rank among the kept results. Each die's beaten dice are tried strongest first, so the bound soon bites.
  * Answers whether the whole space was covered.
  */
-export function exhaustiveSearch(request: SetFinderRequest, pool: DicePool, shiftsPruned: boolean, top: TopList, hooks: SearchHooks): { complete: boolean; tally: ExhaustiveTally } {
+export function exhaustiveSearch(
+  request: SetFinderRequest,
+  pool: DicePool,
+  shiftsPruned: boolean,
+  top: TopList,
+  hooks: SearchHooks,
+): { complete: boolean; tally: ExhaustiveTally } {
   const n = request.diceCount;
   const f = request.facesPerDie;
   const scale = f * f;
@@ -148,7 +154,14 @@ export function exhaustiveSearch(request: SetFinderRequest, pool: DicePool, shif
     const match = matchTemplates(templates, f, counts);
     if (!match.holds || !top.couldEnter(match.strength, largestSoFar, totalSoFar)) return;
     const faces = Array.from(order, (die) => facesOf[die]);
-    top.offer({ faces, secondCycle: match.secondCycle, strength: match.strength, largestSpan: largestSoFar, totalSpan: totalSoFar, key: setKey(faces) });
+    top.offer({
+      faces,
+      secondCycle: match.secondCycle,
+      strength: match.strength,
+      largestSpan: largestSoFar,
+      totalSpan: totalSoFar,
+      key: setKey(faces),
+    });
   };
 
   const extend = (depth: number, largestSoFar: number, totalSoFar: number) => {

@@ -67,7 +67,8 @@ export function randomizedSearch(
     faces.sort();
     const sums = twoDiceSums[die];
     sums.fill(0);
-    for (let first = 0; first < f; first += 1) for (let second = 0; second < f; second += 1) sums[offsets[faces[first]] + offsets[faces[second]]] += 1;
+    for (let first = 0; first < f; first += 1)
+      for (let second = 0; second < f; second += 1) sums[offsets[faces[first]] + offsets[faces[second]]] += 1;
     const below = twoDiceBelow[die];
     let running = 0;
     for (let sum = 0; sum < sumLength; sum += 1) {

@@ -91,7 +91,9 @@ export class TopList {
   /** Whether a set with these figures could still enter (true while the list is not full). */
   couldEnter(strength: number, largestSpan: number, totalSpan: number): boolean {
     if (!this.full) return true;
-    return this.objective === "strongest-cycle" ? strength >= this.worstStrength : smallFacesKey(largestSpan, totalSpan) <= this.worstSmallKey;
+    return this.objective === "strongest-cycle"
+      ? strength >= this.worstStrength
+      : smallFacesKey(largestSpan, totalSpan) <= this.worstSmallKey;
   }
 
   /** The kept candidates, best first. */

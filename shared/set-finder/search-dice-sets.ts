@@ -48,14 +48,20 @@ export const KEPT_PER_RESULT_WHEN_FOLDING = 3;
 export function searchPlan(request: SetFinderRequest): { mode: SetFinderMode; poolSize: number; values: number[]; shiftsPruned: boolean } {
   const values = allowedFaceValues(request.faceValues);
   const poolSize = candidateDieCount(values.length, request.facesPerDie);
-  return { mode: poolSize <= EXHAUSTIVE_POOL_MAX ? "exhaustive" : "randomized", poolSize, values, shiftsPruned: request.faceValues.kind === "range" };
+  return {
+    mode: poolSize <= EXHAUSTIVE_POOL_MAX ? "exhaustive" : "randomized",
+    poolSize,
+    values,
+    shiftsPruned: request.faceValues.kind === "range",
+  };
 }
 
 /**
  * Searches for dice sets with the requested property, ranked by the objective, within the request's time budget.
  * Small requests are searched exhaustively up to symmetry (faces sorted, cycles up to rotation, value shifts), with branch and bound;
  * requests with more than EXHAUSTIVE_POOL_MAX candidate dice get a randomized local search. Every result is verified by the exact
- * engine before it is reported; sets that play every asked matchup alike are folded into the best of them (`variants`). Synchronous and free of I/O, so it runs in a worker thread; `shouldStop` ends it early with the best so far.
+ * engine before it is reported; sets that play every asked matchup alike are folded into the best of them (`variants`). Synchronous
+ * and free of I/O, so it runs in a worker thread; `shouldStop` ends it early with the best so far.
  */
 export function searchDiceSets(
   input: SetFinderRequestInput,
@@ -109,15 +115,29 @@ export function searchDiceSets(
     const progressOf = (evaluated: number): SetFinderProgress => {
       const elapsed = elapsedSeconds();
       const fraction = Math.min(1, elapsed / request.timeBudgetSeconds);
-      return { examined: evaluated, total: elapsed > 0 ? Math.max(evaluated, Math.round((evaluated / elapsed) * request.timeBudgetSeconds)) : evaluated, fraction, etaSeconds: budgetLeft() };
+      return {
+        examined: evaluated,
+        total: elapsed > 0 ? Math.max(evaluated, Math.round((evaluated / elapsed) * request.timeBudgetSeconds)) : evaluated,
+        fraction,
+        etaSeconds: budgetLeft(),
+      };
     };
     const tally = randomizedSearch(request, plan.values, plan.shiftsPruned, top, {
       shouldStop: stop,
       seed: request.seed ?? Math.floor(Math.random() * 2 ** 31),
-      onTick: (current) => report(() => ({ mode: "randomized", progress: progressOf(current.evaluated), complete: false, message: describe, checked: current.evaluated })),
+      onTick: (current) =>
+        report(() => ({
+          mode: "randomized",
+          progress: progressOf(current.evaluated),
+          complete: false,
+          message: describe,
+          checked: current.evaluated,
+        })),
     });
     const final = results();
-    const ending = stoppedByCaller ? "Stopped on request." : `Searched for ${Math.round(elapsedSeconds())} s, ${tally.evaluated.toLocaleString("en-GB")} sets evaluated.`;
+    const ending = stoppedByCaller
+      ? "Stopped on request."
+      : `Searched for ${Math.round(elapsedSeconds())} s, ${tally.evaluated.toLocaleString("en-GB")} sets evaluated.`;
     return {
       mode: "randomized",
       progress: { ...progressOf(tally.evaluated), total: tally.evaluated, fraction: 1, etaSeconds: 0 },
@@ -133,18 +153,28 @@ export function searchDiceSets(
   const warmUp = Math.min(options.warmUpSeconds ?? 0.3, request.timeBudgetSeconds / 10);
   if (warmUp > 0) {
     const warmUpEnd = now() + warmUp * 1000;
-    randomizedSearch(request, plan.values, plan.shiftsPruned, top, { shouldStop: () => stop() || now() >= warmUpEnd, seed: request.seed ?? 1, onTick: () => {} });
+    randomizedSearch(request, plan.values, plan.shiftsPruned, top, {
+      shouldStop: () => stop() || now() >= warmUpEnd,
+      seed: request.seed ?? 1,
+      onTick: () => {},
+    });
   }
   const describe = `Exhaustive search over ${pool.size.toLocaleString("en-GB")} candidate dice (faces sorted, cycles up to rotation${plan.shiftsPruned ? ", values shifted down to the lowest allowed" : ""}).`;
   const progressOf = (tally: ExhaustiveTally): SetFinderProgress => {
     const fraction = tally.total === 0 ? 1 : Math.min(1, tally.settled / tally.total);
     const elapsed = elapsedSeconds();
     const estimate = fraction > 0.001 ? (elapsed * (1 - fraction)) / fraction : null;
-    return { examined: tally.settled, total: tally.total, fraction, etaSeconds: estimate === null ? null : Math.min(estimate, budgetLeft()) };
+    return {
+      examined: tally.settled,
+      total: tally.total,
+      fraction,
+      etaSeconds: estimate === null ? null : Math.min(estimate, budgetLeft()),
+    };
   };
   const outcome = exhaustiveSearch(request, pool, plan.shiftsPruned, top, {
     shouldStop: stop,
-    onTick: (tally) => report(() => ({ mode: "exhaustive", progress: progressOf(tally), complete: false, message: describe, checked: tally.checked })),
+    onTick: (tally) =>
+      report(() => ({ mode: "exhaustive", progress: progressOf(tally), complete: false, message: describe, checked: tally.checked })),
   });
   const final = results();
   const { tally } = outcome;
@@ -178,5 +208,7 @@ function formatCount(count: number): string {
 }
 
 function checkNote(failed: number): string {
-  return failed === 0 ? "" : ` ${failed} found ${failed === 1 ? "set" : "sets"} failed the exact engine's check and ${failed === 1 ? "was" : "were"} left out.`;
+  return failed === 0
+    ? ""
+    : ` ${failed} found ${failed === 1 ? "set" : "sets"} failed the exact engine's check and ${failed === 1 ? "was" : "were"} left out.`;
 }

@@ -21,7 +21,11 @@ export interface TemplateMatch {
  * Checks every template against the counts: a template holds when each needed winner wins more outcomes than it loses.
  * Answers the holding template with the largest strength, or, when none holds, the template with the least shortfall.
  */
-export function matchTemplates(templates: readonly PropertyTemplate[], facesPerDie: number, counts: PositionCounts): TemplateMatch & { holds: boolean } {
+export function matchTemplates(
+  templates: readonly PropertyTemplate[],
+  facesPerDie: number,
+  counts: PositionCounts,
+): TemplateMatch & { holds: boolean } {
   const scale = facesPerDie * facesPerDie;
   let best: (TemplateMatch & { holds: boolean }) | null = null;
   for (const template of templates) {

@@ -45,7 +45,9 @@ export function verifyFoundSet(request: SetFinderRequest, candidate: Candidate):
   const weakestCycleWin = cycleWins.reduce((least, win) => (win.lt(least) ? win : least));
   const twoDiceNeeds = best.template.requirements.filter((need) => need.dicePerPlayer === 2);
   const weakestTwoDice =
-    twoDiceNeeds.length === 0 ? null : twoDiceNeeds.map((need) => twoDice.matrix[need.winner][need.loser]!.win).reduce((least, win) => (win.lt(least) ? win : least));
+    twoDiceNeeds.length === 0
+      ? null
+      : twoDiceNeeds.map((need) => twoDice.matrix[need.winner][need.loser]!.win).reduce((least, win) => (win.lt(least) ? win : least));
   const faces = candidate.faces.flat();
   return {
     dice,
@@ -84,7 +86,9 @@ function beatsAnyTwo(n: number, levels: SetLevelAnalysis[]): boolean {
   if (n < 3) return false;
   return pairs(n).every(([x, y]) =>
     levels.some((level) =>
-      Array.from({ length: n }, (_, z) => z).some((z) => z !== x && z !== y && level.matrix[z][x]!.relation === "beats" && level.matrix[z][y]!.relation === "beats"),
+      Array.from({ length: n }, (_, z) => z).some(
+        (z) => z !== x && z !== y && level.matrix[z][x]!.relation === "beats" && level.matrix[z][y]!.relation === "beats",
+      ),
     ),
   );
 }

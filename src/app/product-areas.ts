@@ -9,7 +9,12 @@ export const productAreas = [
   { path: "/app/shelf", label: "Department shelf", summary: "Lesson templates shared by your head of department.", needsDepartment: false },
   { path: "/app/runs", label: "Class runs", summary: "Run a lesson live: pupils record rolls on phones.", needsDepartment: false },
   { path: "/app/results", label: "Results", summary: "Past class runs, exports, Paper import and reports.", needsDepartment: false },
-  { path: "/app/department", label: "Department", summary: "Your colleagues, and for the head of department, invitations.", needsDepartment: true },
+  {
+    path: "/app/department",
+    label: "Department",
+    summary: "Your colleagues, and for the head of department, invitations.",
+    needsDepartment: true,
+  },
 ] as const;
 
 /** The areas a teacher sees: the Department page only once they belong to a department. */

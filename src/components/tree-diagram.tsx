@@ -1,6 +1,13 @@
 import Fraction from "fraction.js";
 import { useId, useMemo } from "react";
-import { fractionToString, type GroupedTree, type Outcome, sumCountDistribution, type TreeDiagram, treeDiagram } from "@shared/probability/index";
+import {
+  fractionToString,
+  type GroupedTree,
+  type Outcome,
+  sumCountDistribution,
+  type TreeDiagram,
+  treeDiagram,
+} from "@shared/probability/index";
 import { probabilityText } from "@/lib/probability-text";
 import { useGroupedTree } from "@/lib/use-grouped-tree";
 
@@ -22,7 +29,16 @@ type Look = {
   x: { root: number; branch: number; leaf: number; product: number };
   width: number;
   font: number;
-  colours: { ink: string; soft: string; halo: string; valueFill: string; valueStroke: string; leafFill: string; winFill: string; winInk: string };
+  colours: {
+    ink: string;
+    soft: string;
+    halo: string;
+    valueFill: string;
+    valueStroke: string;
+    leafFill: string;
+    winFill: string;
+    winInk: string;
+  };
   classes: { frame: string; svg: string; note: string; totals: string };
 };
 
@@ -34,7 +50,16 @@ const looks: Record<TreeLook, Look> = {
     x: { root: 12, branch: 106, leaf: 212, product: 240 },
     width: 360,
     font: 1,
-    colours: { ink: "#12263a", soft: "#3b4f63", halo: "#ffffff", valueFill: "#d5f0ec", valueStroke: "#0f6b63", leafFill: "#ffffff", winFill: "#12263a", winInk: "#ffffff" },
+    colours: {
+      ink: "#12263a",
+      soft: "#3b4f63",
+      halo: "#ffffff",
+      valueFill: "#d5f0ec",
+      valueStroke: "#0f6b63",
+      leafFill: "#ffffff",
+      winFill: "#12263a",
+      winInk: "#ffffff",
+    },
     classes: {
       frame: "relative max-h-[38rem] overflow-y-auto rounded-xl border-2 border-line bg-white p-2",
       svg: "mx-auto h-auto w-full max-w-[30rem]",
@@ -49,7 +74,16 @@ const looks: Record<TreeLook, Look> = {
     x: { root: 16, branch: 150, leaf: 300, product: 338 },
     width: 520,
     font: 1.35,
-    colours: { ink: "#ffffff", soft: "#9fd8cf", halo: "#12263a", valueFill: "#0f4f4a", valueStroke: "#9fd8cf", leafFill: "#12263a", winFill: "#ffffff", winInk: "#12263a" },
+    colours: {
+      ink: "#ffffff",
+      soft: "#9fd8cf",
+      halo: "#12263a",
+      valueFill: "#0f4f4a",
+      valueStroke: "#9fd8cf",
+      leafFill: "#12263a",
+      winFill: "#ffffff",
+      winInk: "#12263a",
+    },
     classes: { frame: "flex flex-col gap-2", svg: "mx-auto h-auto max-h-[52vh] w-full", note: "text-2xl", totals: "text-3xl" },
   },
   print: {
@@ -59,7 +93,16 @@ const looks: Record<TreeLook, Look> = {
     x: { root: 12, branch: 106, leaf: 212, product: 240 },
     width: 360,
     font: 0.9,
-    colours: { ink: "#12263a", soft: "#3b4f63", halo: "#ffffff", valueFill: "#ffffff", valueStroke: "#12263a", leafFill: "#ffffff", winFill: "#12263a", winInk: "#ffffff" },
+    colours: {
+      ink: "#12263a",
+      soft: "#3b4f63",
+      halo: "#ffffff",
+      valueFill: "#ffffff",
+      valueStroke: "#12263a",
+      leafFill: "#ffffff",
+      winFill: "#12263a",
+      winInk: "#ffffff",
+    },
     classes: { frame: "break-inside-avoid", svg: "mx-auto h-auto w-full max-w-[34rem]", note: "mt-1 text-sm", totals: "text-sm" },
   },
 };
@@ -78,7 +121,17 @@ function branchWinChance(branch: TreeDiagram["branches"][number]): Fraction {
  * branch probabilities, then the second's, each leaf with its product probability and outcome (★ win, = tie, ✗ loss,
  * winning leaves filled), and the totals per outcome. Too many leaves for the look, and only the first stage is drawn.
  */
-export function TreeDiagramFigure({ tree, first, second, look = "screen" }: { tree: TreeDiagram; first: string; second: string; look?: TreeLook }) {
+export function TreeDiagramFigure({
+  tree,
+  first,
+  second,
+  look = "screen",
+}: {
+  tree: TreeDiagram;
+  first: string;
+  second: string;
+  look?: TreeLook;
+}) {
   const titleId = useId();
   const style = looks[look];
   const { row, gap, x, colours, font } = style;
@@ -104,16 +157,34 @@ export function TreeDiagramFigure({ tree, first, second, look = "screen" }: { tr
   const haloText = { paintOrder: "stroke" as const, stroke: colours.halo, strokeWidth: 3 };
 
   return (
-    <figure className={style.classes.frame} tabIndex={look === "screen" ? 0 : undefined} role={look === "screen" ? "region" : undefined} aria-labelledby={look === "screen" ? titleId : undefined}>
-      <svg viewBox={`0 0 ${style.width} ${height}`} className={style.classes.svg} role="img" aria-labelledby={titleId} data-testid="tree-diagram">
+    <figure
+      className={style.classes.frame}
+      tabIndex={look === "screen" ? 0 : undefined}
+      role={look === "screen" ? "region" : undefined}
+      aria-labelledby={look === "screen" ? titleId : undefined}
+    >
+      <svg
+        viewBox={`0 0 ${style.width} ${height}`}
+        className={style.classes.svg}
+        role="img"
+        aria-labelledby={titleId}
+        data-testid="tree-diagram"
+      >
         <title id={titleId}>
-          Tree diagram of {first} against {second}: {first} wins {fractionToString(tree.totals.win)}, ties {fractionToString(tree.totals.tie)}, loses{" "}
-          {fractionToString(tree.totals.loss)}.
+          Tree diagram of {first} against {second}: {first} wins {fractionToString(tree.totals.win)}, ties{" "}
+          {fractionToString(tree.totals.tie)}, loses {fractionToString(tree.totals.loss)}.
         </title>
         <text x={x.branch} y={size(18)} textAnchor="middle" fontSize={size(12)} fontWeight="700" fill={colours.soft}>
           {shortName(first)}
         </text>
-        <text x={full ? x.leaf : x.product} y={size(18)} textAnchor={full ? "middle" : "start"} fontSize={size(12)} fontWeight="700" fill={colours.soft}>
+        <text
+          x={full ? x.leaf : x.product}
+          y={size(18)}
+          textAnchor={full ? "middle" : "start"}
+          fontSize={size(12)}
+          fontWeight="700"
+          fill={colours.soft}
+        >
           {full ? shortName(second) : `P(${shortName(first)} wins | value)`}
         </text>
         {full && (
@@ -130,7 +201,16 @@ export function TreeDiagramFigure({ tree, first, second, look = "screen" }: { tr
               <text x={label.x} y={label.y - 4} textAnchor="middle" fontSize={size(11)} fill={colours.ink} {...haloText}>
                 {fractionToString(branch.probability)}
               </text>
-              <rect x={x.branch - size(14)} y={y - size(11)} width={size(28)} height={size(22)} rx="5" fill={colours.valueFill} stroke={colours.valueStroke} strokeWidth="1.5" />
+              <rect
+                x={x.branch - size(14)}
+                y={y - size(11)}
+                width={size(28)}
+                height={size(22)}
+                rx="5"
+                fill={colours.valueFill}
+                stroke={colours.valueStroke}
+                strokeWidth="1.5"
+              />
               <text x={x.branch} y={y + size(5)} textAnchor="middle" fontSize={size(13)} fontWeight="700" fill={colours.ink}>
                 {branch.value}
               </text>
@@ -146,8 +226,8 @@ export function TreeDiagramFigure({ tree, first, second, look = "screen" }: { tr
                 return (
                   <g key={leaf.value} data-outcome={leaf.outcome}>
                     <title>
-                      {first} {branch.value}, {second} {leaf.value}: {fractionToString(branch.probability)} × {fractionToString(leaf.branchProbability)} ={" "}
-                      {fractionToString(leaf.probability)}, {mark.word} for {first}
+                      {first} {branch.value}, {second} {leaf.value}: {fractionToString(branch.probability)} ×{" "}
+                      {fractionToString(leaf.branchProbability)} = {fractionToString(leaf.probability)}, {mark.word} for {first}
                     </title>
                     <line x1={x.branch + size(14)} y1={y} x2={x.leaf - size(13)} y2={leafY} stroke={colours.soft} strokeWidth="1" />
                     <text x={leafLabel.x} y={leafLabel.y - 3} textAnchor="middle" fontSize={size(10)} fill={colours.soft} {...haloText}>
@@ -163,7 +243,14 @@ export function TreeDiagramFigure({ tree, first, second, look = "screen" }: { tr
                       stroke={colours.ink}
                       strokeWidth="1.25"
                     />
-                    <text x={x.leaf} y={leafY + size(4.5)} textAnchor="middle" fontSize={size(12)} fontWeight="700" fill={won ? colours.winInk : colours.ink}>
+                    <text
+                      x={x.leaf}
+                      y={leafY + size(4.5)}
+                      textAnchor="middle"
+                      fontSize={size(12)}
+                      fontWeight="700"
+                      fill={won ? colours.winInk : colours.ink}
+                    >
                       {leaf.value}
                     </text>
                     <text x={x.product} y={leafY + size(4.5)} fontSize={size(12)} fill={colours.ink} fontWeight={won ? 700 : 400}>
@@ -243,7 +330,13 @@ export function GroupedTreeFigure({
           chance: new Fraction(band.ways, tree.firstTotal),
           leaves: outcomeOrder
             .filter((outcome) => band.outcomes[outcome] > 0n)
-            .map((outcome) => ({ key: outcome, label: outcomeMarks[outcome].symbol, outcome, chance: new Fraction(band.outcomes[outcome], band.ways * secondTotal), path: whole(band.outcomes[outcome]) })),
+            .map((outcome) => ({
+              key: outcome,
+              label: outcomeMarks[outcome].symbol,
+              outcome,
+              chance: new Fraction(band.outcomes[outcome], band.ways * secondTotal),
+              path: whole(band.outcomes[outcome]),
+            })),
         }))
       : outcomeOrder
           .filter((outcome) => tree.totals[outcome] > 0n)
@@ -253,7 +346,13 @@ export function GroupedTreeFigure({
             chance: whole(tree.totals[outcome]),
             leaves: tree.bands
               .filter((band) => band.outcomes[outcome] > 0n)
-              .map((band) => ({ key: `${band.from}`, label: bandText(band), outcome, chance: new Fraction(band.outcomes[outcome], tree.totals[outcome]), path: whole(band.outcomes[outcome]) })),
+              .map((band) => ({
+                key: `${band.from}`,
+                label: bandText(band),
+                outcome,
+                chance: new Fraction(band.outcomes[outcome], tree.totals[outcome]),
+                path: whole(band.outcomes[outcome]),
+              })),
           }));
   let cursor = top;
   const groups = middles.map((middle) => {
@@ -269,11 +368,23 @@ export function GroupedTreeFigure({
   const rootY = (groups[0].y + groups[groups.length - 1].y) / 2;
   const half = size(34);
   return (
-    <figure className={style.classes.frame} tabIndex={look === "screen" ? 0 : undefined} role={look === "screen" ? "region" : undefined} aria-labelledby={look === "screen" ? titleId : undefined}>
-      <svg viewBox={`0 0 ${width} ${height}`} className={style.classes.svg} role="img" aria-labelledby={titleId} data-testid="grouped-tree-diagram">
+    <figure
+      className={style.classes.frame}
+      tabIndex={look === "screen" ? 0 : undefined}
+      role={look === "screen" ? "region" : undefined}
+      aria-labelledby={look === "screen" ? titleId : undefined}
+    >
+      <svg
+        viewBox={`0 0 ${width} ${height}`}
+        className={style.classes.svg}
+        role="img"
+        aria-labelledby={titleId}
+        data-testid="grouped-tree-diagram"
+      >
         <title id={titleId}>
-          Tree diagram of {first} against {second}, grouped by {grouping === "total" ? `${first}'s total` : "outcome"}: {first} wins {fractionToString(whole(tree.totals.win))}, ties{" "}
-          {fractionToString(whole(tree.totals.tie))}, loses {fractionToString(whole(tree.totals.loss))}.
+          Tree diagram of {first} against {second}, grouped by {grouping === "total" ? `${first}'s total` : "outcome"}: {first} wins{" "}
+          {fractionToString(whole(tree.totals.win))}, ties {fractionToString(whole(tree.totals.tie))}, loses{" "}
+          {fractionToString(whole(tree.totals.loss))}.
         </title>
         <text x={x.middle} y={size(18)} textAnchor="middle" fontSize={size(12)} fontWeight="700" fill={colours.soft}>
           {grouping === "total" ? shortName(first) : "Outcome"}
@@ -293,7 +404,16 @@ export function GroupedTreeFigure({
               <text x={label.x} y={label.y - 4} textAnchor="middle" fontSize={size(11)} fill={colours.ink} {...haloText}>
                 {fractionToString(middle.chance)}
               </text>
-              <rect x={x.middle - half} y={y - size(11)} width={half * 2} height={size(22)} rx="5" fill={colours.valueFill} stroke={colours.valueStroke} strokeWidth="1.5" />
+              <rect
+                x={x.middle - half}
+                y={y - size(11)}
+                width={half * 2}
+                height={size(22)}
+                rx="5"
+                fill={colours.valueFill}
+                stroke={colours.valueStroke}
+                strokeWidth="1.5"
+              />
               <text x={x.middle} y={y + size(5)} textAnchor="middle" fontSize={size(12)} fontWeight="700" fill={colours.ink}>
                 {middle.label}
               </text>
@@ -303,10 +423,27 @@ export function GroupedTreeFigure({
                   <g key={leaf.key} data-outcome={leaf.outcome}>
                     <line x1={x.middle + half} y1={y} x2={x.leaf - half} y2={leafY} stroke={colours.soft} strokeWidth="1" />
                     <title>
-                      {middle.label}, {leaf.label}: {fractionToString(middle.chance)} × {fractionToString(leaf.chance)} = {fractionToString(leaf.path)}
+                      {middle.label}, {leaf.label}: {fractionToString(middle.chance)} × {fractionToString(leaf.chance)} ={" "}
+                      {fractionToString(leaf.path)}
                     </title>
-                    <rect x={x.leaf - half} y={leafY - size(10)} width={half * 2} height={size(20)} rx="4" fill={won ? colours.winFill : colours.leafFill} stroke={colours.ink} strokeWidth="1.25" />
-                    <text x={x.leaf} y={leafY + size(4.5)} textAnchor="middle" fontSize={size(11)} fontWeight="700" fill={won ? colours.winInk : colours.ink}>
+                    <rect
+                      x={x.leaf - half}
+                      y={leafY - size(10)}
+                      width={half * 2}
+                      height={size(20)}
+                      rx="4"
+                      fill={won ? colours.winFill : colours.leafFill}
+                      stroke={colours.ink}
+                      strokeWidth="1.25"
+                    />
+                    <text
+                      x={x.leaf}
+                      y={leafY + size(4.5)}
+                      textAnchor="middle"
+                      fontSize={size(11)}
+                      fontWeight="700"
+                      fill={won ? colours.winInk : colours.ink}
+                    >
                       {leaf.label}
                     </text>
                     <text x={x.product} y={leafY + size(4.5)} fontSize={size(12)} fill={colours.ink} fontWeight={won ? 700 : 400}>
@@ -365,7 +502,10 @@ export function MatchupTree({
     [first.faces, second.faces, dicePerPlayer],
   );
   const large = paths > TREE_PATHS_IN_PAGE_MAX;
-  const small = useMemo(() => (large ? null : treeDiagram(first.faces, second.faces, { dicePerPlayer })), [large, first.faces, second.faces, dicePerPlayer]);
+  const small = useMemo(
+    () => (large ? null : treeDiagram(first.faces, second.faces, { dicePerPlayer })),
+    [large, first.faces, second.faces, dicePerPlayer],
+  );
   const grouped = useGroupedTree(large ? { first: first.faces, second: second.faces, dicePerPlayer } : null);
   if (small) return <TreeDiagramFigure tree={small} first={first.name} second={second.name} look={look} />;
   if (grouped.error) return <p role="alert">The tree diagram could not be worked out: {grouped.error}</p>;

@@ -87,7 +87,19 @@ export function useBrowserDraft<T>({ key, parse }: { key: string; parse: (values
  * Keeps an editor's values as its browser draft: written shortly after each change while `dirty`, removed when the form is back
  * to its saved values. While `paused` (a kept draft is being offered) nothing is written, so editing cannot overwrite it unseen.
  */
-export function useDraftWriter<T>({ key, values, dirty, baseVersion, paused }: { key: string; values: T; dirty: boolean; baseVersion: number | null; paused: boolean }) {
+export function useDraftWriter<T>({
+  key,
+  values,
+  dirty,
+  baseVersion,
+  paused,
+}: {
+  key: string;
+  values: T;
+  dirty: boolean;
+  baseVersion: number | null;
+  paused: boolean;
+}) {
   useEffect(() => {
     if (paused) return;
     // Back to the saved values: nothing is left to recover.

@@ -5,8 +5,7 @@ export const queryClient = new QueryClient({
   defaultOptions: {
     queries: {
       staleTime: 30_000,
-      retry: (failureCount, error) =>
-        !(error instanceof ApiRequestError && error.status < 500) && failureCount < 2,
+      retry: (failureCount, error) => !(error instanceof ApiRequestError && error.status < 500) && failureCount < 2,
     },
   },
 });

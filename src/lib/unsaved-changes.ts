@@ -13,5 +13,7 @@ export function useUnsavedChangesGuard(dirty: boolean, letThrough?: RefObject<bo
     window.addEventListener("beforeunload", warn);
     return () => window.removeEventListener("beforeunload", warn);
   }, [dirty]);
-  return useBlocker(({ currentLocation, nextLocation }) => dirty && !letThrough?.current && currentLocation.pathname !== nextLocation.pathname);
+  return useBlocker(
+    ({ currentLocation, nextLocation }) => dirty && !letThrough?.current && currentLocation.pathname !== nextLocation.pathname,
+  );
 }

@@ -24,7 +24,10 @@ function figuresWorker(): Worker {
  * The grouped tree diagram of a matchup, worked out in a Web Worker so a large one (millions of paths) never holds up the page;
  * null while it is being worked out. Pass null to ask for nothing.
  */
-export function useGroupedTree(matchup: { first: number[]; second: number[]; dicePerPlayer: number } | null): { tree: GroupedTree | null; error: string | null } {
+export function useGroupedTree(matchup: { first: number[]; second: number[]; dicePerPlayer: number } | null): {
+  tree: GroupedTree | null;
+  error: string | null;
+} {
   const [answer, setAnswer] = useState<{ key: string; tree: GroupedTree | null; error: string | null } | null>(null);
   const key = matchup === null ? "" : `${matchup.dicePerPlayer}|${matchup.first.join(",")}|${matchup.second.join(",")}`;
   // The key holds everything the request depends on; the matchup itself is read through a ref, the latest one.

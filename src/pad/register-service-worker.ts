@@ -7,9 +7,7 @@
 export function registerPadServiceWorker() {
   if (!import.meta.env.PROD || !("serviceWorker" in navigator) || !window.isSecureContext) return;
   const register = () =>
-    void import("workbox-window")
-      .then(({ Workbox }) => new Workbox("/pad-sw.js", { scope: "/pad" }).register())
-      .catch(() => undefined);
+    void import("workbox-window").then(({ Workbox }) => new Workbox("/pad-sw.js", { scope: "/pad" }).register()).catch(() => undefined);
   if (document.readyState === "complete") register();
   else window.addEventListener("load", register, { once: true });
 }

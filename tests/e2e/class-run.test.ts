@@ -66,7 +66,10 @@ describe("a class run in two chromium contexts: the teacher's board and a pupil'
   it("opens a run, joins it by the QR code's address, votes, records rolls through a reload, and pools them on the board", async () => {
     const board = await signInThroughUi(teacherBrowser.context, appUrl, teacher.email, demoPassword);
     const headers = { origin: appUrl };
-    const set = await board.request.post(`${appUrl}/api/dice-sets`, { headers, data: { name: "Cliff-top three", description: "", visibility: "private", dice } });
+    const set = await board.request.post(`${appUrl}/api/dice-sets`, {
+      headers,
+      data: { name: "Cliff-top three", description: "", visibility: "private", dice },
+    });
     expect(set.status()).toBe(201);
     const title = `Cliff-top run ${Date.now().toString(36)}`;
     const lesson = await board.request.post(`${appUrl}/api/lessons`, {
@@ -80,9 +83,15 @@ describe("a class run in two chromium contexts: the teacher's board and a pupil'
     // The seeded closed run of the demo lesson: a full Run board for a new user.
     const demo = await seededDemoRun();
     expect(demo.rolls).toBeGreaterThanOrEqual(300);
-    await board.getByRole("link", { name: demoRunLesson.title }).and(board.locator(`[href$="/app/runs/${demo.id}"]`)).click();
+    await board
+      .getByRole("link", { name: demoRunLesson.title })
+      .and(board.locator(`[href$="/app/runs/${demo.id}"]`))
+      .click();
     await board.waitForURL(`${appUrl}/app/runs/${demo.id}`);
-    await board.getByTestId("pooled-total").filter({ hasText: `${demo.rolls} rolls from ${demo.groups} groups` }).waitFor();
+    await board
+      .getByTestId("pooled-total")
+      .filter({ hasText: `${demo.rolls} rolls from ${demo.groups} groups` })
+      .waitFor();
     await screenshot(board, "class-run-demo-board-laptop");
     await board.goto(`${appUrl}/app/runs`);
     const card = board.getByRole("listitem").filter({ hasText: title });
@@ -119,7 +128,13 @@ describe("a class run in two chromium contexts: the teacher's board and a pupil'
 
     await board.getByRole("button", { name: "Move on to Roll" }).click();
     await phone.getByRole("heading", { name: "Auk v Razorbill" }).waitFor();
-    const rolls: [number, number][] = [[5, 3], [1, 7], [6, 4], [6, 7], [5, 2]];
+    const rolls: [number, number][] = [
+      [5, 3],
+      [1, 7],
+      [6, 4],
+      [6, 7],
+      [5, 2],
+    ];
     for (const [auk, razorbill] of rolls.slice(0, 3)) {
       await tapFace(phone, "Auk", auk);
       await tapFace(phone, "Razorbill", razorbill);
@@ -151,7 +166,10 @@ describe("a class run in two chromium contexts: the teacher's board and a pupil'
     await expect(board.getByTestId("frequency-1:0-1").textContent()).resolves.toBe("Auk wins 0.600 of the rolls that were not ties");
     // Auk [1,1,5,5,6,6] beats Razorbill [2,3,3,4,7,7] in 16 of the 36 face pairs and never ties (counted by hand): 4/9.
     await expect(board.getByTestId("exact-1:0-1").textContent()).resolves.toMatch(/· exact under the tie rule 4\/9 ≈ 0\.444$/);
-    await board.getByTestId("group-table").getByRole("rowheader", { name: /Rockpool Rangers/ }).waitFor();
+    await board
+      .getByTestId("group-table")
+      .getByRole("rowheader", { name: /Rockpool Rangers/ })
+      .waitFor();
     await screenshot(board, "class-run-board-laptop");
 
     await board.getByRole("button", { name: "Move on to Pool" }).click();

@@ -123,10 +123,7 @@ describe("Department shelf in chromium: invitation by e-mail, joining, copying a
     const groups = page.getByLabel("Groups", { exact: true });
     const planned = Number(await groups.inputValue());
     await groups.fill(String(planned - 4));
-    await page.waitForFunction(
-      (text) => document.querySelector('[data-testid="recording-sheets"]')?.textContent !== text,
-      before,
-    );
+    await page.waitForFunction((text) => document.querySelector('[data-testid="recording-sheets"]')?.textContent !== text, before);
     const after = await sheets.textContent();
     expect(after).not.toBe(before);
     expect(Number(after!.match(/^(\d+) recording sheets/)![1])).toBeLessThan(Number(before!.match(/^(\d+) recording sheets/)![1]));

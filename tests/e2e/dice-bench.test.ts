@@ -48,7 +48,10 @@ async function noSideways(page: Page) {
 
 /** Clicks the visible pill of a radio option, as a teacher would (the radio itself is visually hidden). */
 async function choose(page: Page, name: string) {
-  await page.locator("label").filter({ has: page.getByRole("radio", { name, exact: true }) }).click();
+  await page
+    .locator("label")
+    .filter({ has: page.getByRole("radio", { name, exact: true }) })
+    .click();
   await expect(page.getByRole("radio", { name, exact: true }).isChecked()).resolves.toBe(true);
 }
 
@@ -74,7 +77,12 @@ describe("the Dice bench and the Set finder in chromium", () => {
       name: "Cormorant corner",
       description: "Shared by Tomasz for Year 8.",
       visibility: "department",
-      dice: trio.map((die, index) => ({ ...die, name: `${die.name} C`, colour: ["ocean", "moss", "coral"][index], pattern: ["rings", "crosses", "triangles"][index] })),
+      dice: trio.map((die, index) => ({
+        ...die,
+        name: `${die.name} C`,
+        colour: ["ocean", "moss", "coral"][index],
+        pattern: ["rings", "crosses", "triangles"][index],
+      })),
     });
     expect(shared.status).toBe(201);
     sharedSetId = shared.body.id;
@@ -136,11 +144,15 @@ describe("the Dice bench and the Set finder in chromium", () => {
     // Distinct faces: Guillemot has 1, 3, 4, 9 and Razorbill 1, 5, 6, so 4 × 3 leaves.
     await expect(tree.locator("[data-outcome]").count()).resolves.toBe(12);
     await expect(tree.locator('[data-outcome="win"]').count()).resolves.toBeGreaterThan(0);
-    await expect(page.getByTestId("tree-totals").textContent()).resolves.toContain(`P(Guillemot wins) = ${bruteForceWin(trio[0].faces, trio[1].faces)} (`);
+    await expect(page.getByTestId("tree-totals").textContent()).resolves.toContain(
+      `P(Guillemot wins) = ${bruteForceWin(trio[0].faces, trio[1].faces)} (`,
+    );
     await page.getByTestId("two-way-table").waitFor();
     await screenshot(page, "dice-bench-tree-laptop");
     await page.getByLabel("Mode", { exact: true }).selectOption("2");
-    await expect(page.getByTestId("two-way-totals").textContent()).resolves.toContain(`Guillemot wins ${bruteForceWin(trio[0].faces, trio[1].faces, 2)} (`);
+    await expect(page.getByTestId("two-way-totals").textContent()).resolves.toContain(
+      `Guillemot wins ${bruteForceWin(trio[0].faces, trio[1].faces, 2)} (`,
+    );
     await screenshot(page, "dice-bench-two-way-sums-laptop");
 
     await page.getByRole("tab", { name: "Pick advisor" }).click();
@@ -149,12 +161,16 @@ describe("the Dice bench and the Set finder in chromium", () => {
     await screenshot(page, "dice-bench-pick-advisor-laptop");
 
     await page.getByRole("tab", { name: "Series planner" }).click();
-    await expect(page.getByTestId("series-outcome").textContent()).resolves.toMatch(/In a best-of-5 series \(re-roll ties\), Guillemot wins the series with probability/);
+    await expect(page.getByTestId("series-outcome").textContent()).resolves.toMatch(
+      /In a best-of-5 series \(re-roll ties\), Guillemot wins the series with probability/,
+    );
     await choose(page, "ties score half");
     await expect(page.getByTestId("series-outcome").textContent()).resolves.toMatch(/ends level with/);
     await expect(page.getByTestId("pooled-rolls").textContent()).resolves.toMatch(/Pool about \d+ rolls/);
     // The default 15-minute Roll phase: 45 rolls a group at 3 a minute (one die each), 30 at 2 a minute (two dice each).
-    await expect(page.getByTestId("pooled-rolls-in-time").textContent()).resolves.toMatch(/about (3 rolls a minute .* about 45|2 rolls a minute .* about 30) rolls in 15 minutes/);
+    await expect(page.getByTestId("pooled-rolls-in-time").textContent()).resolves.toMatch(
+      /about (3 rolls a minute .* about 45|2 rolls a minute .* about 30) rolls in 15 minutes/,
+    );
     await screenshot(page, "dice-bench-series-laptop");
 
     // One box per face: add a face, then remove it again.
@@ -169,7 +185,10 @@ describe("the Dice bench and the Set finder in chromium", () => {
     await page.getByRole("button", { name: "Save dice set" }).first().click();
     await page.waitForURL(/\/app\/bench\/[0-9a-f-]{36}$/);
     savedSetId = page.url().split("/").pop()!;
-    await page.getByRole("status").filter({ hasText: /Saved at \d\d:\d\d\./ }).waitFor();
+    await page
+      .getByRole("status")
+      .filter({ hasText: /Saved at \d\d:\d\d\./ })
+      .waitFor();
     const stored = (await (await page.request.get(`${appUrl}/api/dice-sets/${savedSetId}`)).json()) as DiceSet;
     expect(stored.dice.map((die) => ({ name: die.name, faces: die.faces }))).toEqual(trio);
   });
@@ -178,7 +197,13 @@ describe("the Dice bench and the Set finder in chromium", () => {
     const stored = (await (await page.request.get(`${appUrl}/api/dice-sets/${savedSetId}`)).json()) as DiceSet;
     // The same teacher saves from another tab meanwhile, so this page's version is now stale.
     const other = await page.request.put(`${appUrl}/api/dice-sets/${savedSetId}`, {
-      data: { name: "Puffin practice (other tab)", description: stored.description, visibility: stored.visibility, dice: stored.dice, version: stored.version },
+      data: {
+        name: "Puffin practice (other tab)",
+        description: stored.description,
+        visibility: stored.visibility,
+        dice: stored.dice,
+        version: stored.version,
+      },
     });
     expect(other.status()).toBe(200);
 
@@ -249,7 +274,10 @@ describe("the Dice bench and the Set finder in chromium", () => {
     const copyName = await page.getByLabel("Set name").inputValue();
 
     await page.goto(`${appUrl}/app/bench`);
-    await page.getByRole("button", { name: `Delete ${copyName}` }).first().click();
+    await page
+      .getByRole("button", { name: `Delete ${copyName}` })
+      .first()
+      .click();
     const confirm = page.getByRole("alertdialog");
     await confirm.waitFor();
     await screenshot(page, "dice-bench-delete-confirm-laptop");
@@ -271,7 +299,10 @@ describe("the Dice bench and the Set finder in chromium", () => {
     const progress = page.getByRole("progressbar");
     await progress.waitFor();
     await expect(progress.getAttribute("aria-valuenow")).resolves.toMatch(/^\d+$/);
-    await page.getByText(/s left|min left|estimating time left/).first().waitFor();
+    await page
+      .getByText(/s left|min left|estimating time left/)
+      .first()
+      .waitFor();
     await screenshot(page, "set-finder-running-laptop");
     await page.getByRole("button", { name: "Cancel the search" }).click();
     await page.getByRole("status").filter({ hasText: "Search cancelled after examining" }).waitFor({ timeout: 15_000 });
@@ -295,7 +326,10 @@ describe("the Dice bench and the Set finder in chromium", () => {
 
     // The first result's weakest win, re-checked here by brute force over its faces.
     const job = await page.request.get(`${appUrl}/api/set-finder/searches/${new URL(page.url()).searchParams.get("search")}`);
-    const best = (await job.json()).results[0] as { dice: { name: string; faces: number[] }[]; figures: { cycleOrder: number[]; weakestCycleWin: string } };
+    const best = (await job.json()).results[0] as {
+      dice: { name: string; faces: number[] }[];
+      figures: { cycleOrder: number[]; weakestCycleWin: string };
+    };
     const cycleWins = best.figures.cycleOrder.map((from, position) => {
       const to = best.figures.cycleOrder[(position + 1) % best.figures.cycleOrder.length];
       return bruteForceWin(best.dice[from].faces, best.dice[to].faces);
@@ -319,7 +353,10 @@ describe("the Dice bench and the Set finder in chromium", () => {
     await recent.nth(0).getByRole("link").click();
     await page.getByRole("status").filter({ hasText: "Finished:" }).waitFor();
 
-    await results.first().getByRole("button", { name: /Open in the Dice bench/ }).click();
+    await results
+      .first()
+      .getByRole("button", { name: /Open in the Dice bench/ })
+      .click();
     await page.waitForURL(`${appUrl}/app/bench/new`);
     for (const [index, die] of best.dice.entries()) {
       await expect(page.getByLabel(`Faces of die ${index + 1}`, { exact: true }).inputValue()).resolves.toBe(die.faces.join(", "));
@@ -356,7 +393,12 @@ describe("the Dice bench and the Set finder in chromium", () => {
     await choose(page, "Recording sheet");
     await page.waitForURL(/kind=sheet/);
     // Plain headings, a column per player; without a lesson the sheet has 20 lines for two players, one die each.
-    const headings = () => page.getByTestId("recording-sheet").first().locator("thead th").evaluateAll((cells) => cells.map((cell) => cell.firstChild?.textContent ?? ""));
+    const headings = () =>
+      page
+        .getByTestId("recording-sheet")
+        .first()
+        .locator("thead th")
+        .evaluateAll((cells) => cells.map((cell) => cell.firstChild?.textContent ?? ""));
     await expect(headings()).resolves.toEqual(["Roll", "Player 1 rolled", "Player 2 rolled", "Who won?"]);
     await expect(page.getByTestId("recording-sheet").locator("tbody tr").count()).resolves.toBe(20);
     await screenshot(page, "print-sheet-letter-laptop");
@@ -437,7 +479,11 @@ describe("the Dice bench and the Set finder in chromium", () => {
           description: "",
           visibility: "private",
           dice: [
-            ...[...trio, { name: "Shag", faces: [0, 3, 3, 9, 9, 12] }].map((die, index) => ({ ...die, colour: ["teal", "amber", "plum", "slate"][index], pattern: ["dots", "stripes", "checks", "waves"][index] })),
+            ...[...trio, { name: "Shag", faces: [0, 3, 3, 9, 9, 12] }].map((die, index) => ({
+              ...die,
+              colour: ["teal", "amber", "plum", "slate"][index],
+              pattern: ["dots", "stripes", "checks", "waves"][index],
+            })),
             { name: "Skua spinner", faces: [1, 5, 5, 6], colour: "coral", pattern: "triangles" },
             { name: "Tern octagon", faces: [2, 3, 4, 5, 6, 7, 8, 100], colour: "moss", pattern: "crosses" },
           ],

@@ -56,7 +56,16 @@ describe("Lessons in chromium", () => {
     const sets = await (await page.request.get(`${appUrl}/api/dice-sets`)).json();
     const setId = sets.sets.find((set: { name: string }) => set.name === setName).id;
     const created = await page.request.post(`${appUrl}/api/lessons`, {
-      data: { ...emptyLessonInput(), title: lessonTitle, classGroup: "9M", status: "ready", diceSetId: setId, groups: 6, rollsPerGroup: 30, phases: emptyLessonInput().phases.map((entry) => ({ ...entry, included: entry.phase !== "Twist" })) },
+      data: {
+        ...emptyLessonInput(),
+        title: lessonTitle,
+        classGroup: "9M",
+        status: "ready",
+        diceSetId: setId,
+        groups: 6,
+        rollsPerGroup: 30,
+        phases: emptyLessonInput().phases.map((entry) => ({ ...entry, included: entry.phase !== "Twist" })),
+      },
     });
     expect(created.status()).toBe(201);
     lessonId = (await created.json()).lesson.id;
@@ -114,7 +123,9 @@ describe("Lessons in chromium", () => {
     // The issue's impossible plan: 312 rolls a group. The verdict counts the 120 that fit and suggests more groups instead.
     await fill(page, "Groups", "3");
     await fill(page, "Rolls per group", "312");
-    await expect.poll(() => verdict.textContent()).toMatch(/312 rolls per group do not fit in the 40-minute Roll phase.*Try 8 groups and 104 rolls per group\./);
+    await expect
+      .poll(() => verdict.textContent())
+      .toMatch(/312 rolls per group do not fit in the 40-minute Roll phase.*Try 8 groups and 104 rolls per group\./);
     await expect.poll(() => sheets.textContent()).toContain("room for 120 rolls each");
     await expect(page.getByRole("button", { name: "Use 312 rolls per group" }).count()).resolves.toBe(0);
     await page.getByRole("button", { name: "Use 104 rolls per group" }).click();
@@ -122,7 +133,10 @@ describe("Lessons in chromium", () => {
     await expect.poll(() => sheets.textContent()).toContain("room for 104 rolls each");
 
     await page.getByRole("button", { name: "Save lesson" }).first().click();
-    await page.getByText(/Saved at \d\d:\d\d \(version 2\)\./).first().waitFor();
+    await page
+      .getByText(/Saved at \d\d:\d\d \(version 2\)\./)
+      .first()
+      .waitFor();
 
     const image = new PNG({ width: 8, height: 8 });
     image.data.fill(180);
@@ -152,7 +166,10 @@ describe("Lessons in chromium", () => {
     await screenshot(page, "lesson-delete-confirm-laptop");
     await dialog.getByRole("button", { name: "Delete lesson" }).click();
     await dialog.waitFor({ state: "detached" });
-    await page.getByRole("table").getByRole("link", { name: `${lessonTitle} (copy)` }).waitFor({ state: "detached" });
+    await page
+      .getByRole("table")
+      .getByRole("link", { name: `${lessonTitle} (copy)` })
+      .waitFor({ state: "detached" });
     await page.getByRole("table").getByRole("link", { name: lessonTitle, exact: true }).waitFor();
     await page.close();
   });

@@ -25,7 +25,10 @@ let knownGroup: string;
 let matchup: number[];
 
 async function liveRolls() {
-  const [row] = await db.select({ n: count() }).from(roll).where(and(eq(roll.runId, runId), isNull(roll.undoneAt)));
+  const [row] = await db
+    .select({ n: count() })
+    .from(roll)
+    .where(and(eq(roll.runId, runId), isNull(roll.undoneAt)));
   return row.n;
 }
 
@@ -71,7 +74,11 @@ describe("Results in chromium", () => {
     }
     const [run] = await db.select().from(classRun).where(eq(classRun.id, runId));
     dice = run.dice;
-    const [group] = await db.select({ id: runGroup.id, nickname: runGroup.nickname, matchup: runGroup.matchup }).from(runGroup).where(eq(runGroup.runId, runId)).limit(1);
+    const [group] = await db
+      .select({ id: runGroup.id, nickname: runGroup.nickname, matchup: runGroup.matchup })
+      .from(runGroup)
+      .where(eq(runGroup.runId, runId))
+      .limit(1);
     knownGroup = group.nickname;
     matchup = group.matchup ?? [0, 1];
     browser = await openBrowser(viewports.laptop);
@@ -98,8 +105,13 @@ describe("Results in chromium", () => {
 
     const before = await liveRolls();
     const [csvDownload] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "⤓ Rolls (CSV)" }).click()]);
-    expect(csvDownload.suggestedFilename()).toMatch(new RegExp(`_${demoRunLesson.classGroup.toLowerCase()}_\\d{4}-\\d{2}-\\d{2}_rolls\\.csv$`));
-    const csv = Papa.parse<Record<string, string>>(await readFile((await csvDownload.path())!, "utf8"), { header: true, skipEmptyLines: true });
+    expect(csvDownload.suggestedFilename()).toMatch(
+      new RegExp(`_${demoRunLesson.classGroup.toLowerCase()}_\\d{4}-\\d{2}-\\d{2}_rolls\\.csv$`),
+    );
+    const csv = Papa.parse<Record<string, string>>(await readFile((await csvDownload.path())!, "utf8"), {
+      header: true,
+      skipEmptyLines: true,
+    });
     expect(csv.meta.fields).toEqual([...rollsExportColumns]);
     expect(csv.data).toHaveLength(before);
 
@@ -120,7 +132,9 @@ describe("Results in chromium", () => {
       [knownGroup, 902, first.name, face(first, 2), "Kestrel", face(second, 3)],
       [knownGroup, 903, first.name, face(first, 4), second.name, face(second, 5)],
     ]);
-    await page.getByLabel("CSV file typed up from the recording sheets").setInputFiles({ name: "sheets-8k.csv", mimeType: "text/csv", buffer: Buffer.from(bad) });
+    await page
+      .getByLabel("CSV file typed up from the recording sheets")
+      .setInputFiles({ name: "sheets-8k.csv", mimeType: "text/csv", buffer: Buffer.from(bad) });
     await page.getByRole("button", { name: "Check the file" }).click();
     const problems = page.getByRole("list", { name: "Problems by row" });
     await problems.waitFor();
@@ -130,7 +144,9 @@ describe("Results in chromium", () => {
     expect(await liveRolls()).toBe(before);
 
     const fixed = bad.replace("Kestrel", second.name);
-    await page.getByLabel("CSV file typed up from the recording sheets").setInputFiles({ name: "sheets-8k.csv", mimeType: "text/csv", buffer: Buffer.from(fixed) });
+    await page
+      .getByLabel("CSV file typed up from the recording sheets")
+      .setInputFiles({ name: "sheets-8k.csv", mimeType: "text/csv", buffer: Buffer.from(fixed) });
     await page.getByRole("button", { name: "Check the file" }).click();
     await page.getByText("All 3 rows are fine").waitFor();
     await page.getByRole("button", { name: "Import 3 rolls" }).click();
@@ -165,7 +181,11 @@ describe("Results in chromium", () => {
       title: "Second go: the same trio with 9M",
       classGroup: "9M",
       diceSetName: "Kittiwake trio",
-      dice: dice.map((die, index) => ({ ...die, colour: ["teal", "amber", "plum", "slate"][index % 4], pattern: ["dots", "stripes", "checks", "waves"][index % 4] })),
+      dice: dice.map((die, index) => ({
+        ...die,
+        colour: ["teal", "amber", "plum", "slate"][index % 4],
+        pattern: ["dots", "stripes", "checks", "waves"][index % 4],
+      })),
       createdAt: new Date("2026-03-17T10:00:00Z"),
       groups: [
         { nickname: "Sandpipers", matchup: [0, 1], rolls: 40 },
@@ -179,7 +199,11 @@ describe("Results in chromium", () => {
     await page.waitForURL(/\/app\/results\/pooled\?/);
     await page.getByRole("heading", { name: "Each class’s contribution" }).waitFor();
     const contribution = page.getByRole("table").filter({ hasText: "Share of the pool" });
-    await expect(contribution.getByRole("rowheader").allTextContents()).resolves.toEqual([expect.stringContaining("8K"), expect.stringContaining("9M"), "Pooled"]);
+    await expect(contribution.getByRole("rowheader").allTextContents()).resolves.toEqual([
+      expect.stringContaining("8K"),
+      expect.stringContaining("9M"),
+      "Pooled",
+    ]);
     await both(page, "results-pooled");
 
     await page.goto(`${appUrl}/app/results/paper-runs/new`);

@@ -60,7 +60,10 @@ describe("the teacher moderates groups on the Run board while phones are recordi
   it("removes a group and renames another: the removed phone is told and refused, the renamed phone shows its new nickname and goes on recording", async () => {
     const board = await signInThroughUi(teacherBrowser.context, appUrl, teacher.email, demoPassword);
     const headers = { origin: appUrl };
-    const set = await board.request.post(`${appUrl}/api/dice-sets`, { headers, data: { name: "Sea-stack three", description: "", visibility: "private", dice } });
+    const set = await board.request.post(`${appUrl}/api/dice-sets`, {
+      headers,
+      data: { name: "Sea-stack three", description: "", visibility: "private", dice },
+    });
     expect(set.status()).toBe(201);
     const title = `Sea-stack run ${Date.now().toString(36)}`;
     const lesson = await board.request.post(`${appUrl}/api/lessons`, {
@@ -114,7 +117,11 @@ describe("the teacher moderates groups on the Run board while phones are recordi
     await expect.poll(() => recorder.answers.at(-1), { timeout: 5_000 }).toMatchObject({ ok: false, error: { code: "group_removed" } });
     await recorder.stop();
     // Only the chromium phone's roll is left in the figures.
-    await board.getByTestId("pooled-total").filter({ hasText: "1 rolls from 1 group" }).or(board.getByTestId("pooled-total").filter({ hasText: "1 roll from 1 group" })).waitFor();
+    await board
+      .getByTestId("pooled-total")
+      .filter({ hasText: "1 rolls from 1 group" })
+      .or(board.getByTestId("pooled-total").filter({ hasText: "1 roll from 1 group" }))
+      .waitFor();
 
     // Rename the chromium phone's group; the phone shows the new nickname and goes on recording.
     await board.getByRole("button", { name: "Rename Tide Pool" }).click();
@@ -148,7 +155,10 @@ describe("the teacher moderates groups on the Run board while phones are recordi
     try {
       const watching = await signInThroughUi(headBrowser.context, appUrl, head.email, demoPassword);
       await watching.goto(`${appUrl}/app/runs/${runId}`);
-      await watching.getByTestId("group-table").getByRole("rowheader", { name: /Lighthouse Lot/ }).waitFor();
+      await watching
+        .getByTestId("group-table")
+        .getByRole("rowheader", { name: /Lighthouse Lot/ })
+        .waitFor();
       await watching.getByTestId("left-out-mark").waitFor();
       await watching.getByText("Joining is locked", { exact: false }).waitFor();
       for (const name of ["Rename Lighthouse Lot", "Remove Lighthouse Lot", "Count again Lighthouse Lot", "Unlock joining"]) {

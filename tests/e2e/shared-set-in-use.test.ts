@@ -39,7 +39,9 @@ describe("a shared dice set a colleague's lesson uses, in chromium", () => {
     expect(created.status()).toBe(201);
     const set = (await created.json()) as { id: string };
     const colleaguePage = await signInThroughUi(colleague.context, appUrl, ada.email, demoPassword);
-    const lesson = await colleaguePage.request.post(`${appUrl}/api/lessons`, { data: { ...emptyLessonInput(), title: "Breakwater starter", classGroup: "9M", diceSetId: set.id } });
+    const lesson = await colleaguePage.request.post(`${appUrl}/api/lessons`, {
+      data: { ...emptyLessonInput(), title: "Breakwater starter", classGroup: "9M", diceSetId: set.id },
+    });
     expect(lesson.status()).toBe(201);
 
     const ownerPhonePage = await signInThroughUi(ownerPhone.context, appUrl, tomasz.email, demoPassword);

@@ -98,11 +98,18 @@ describe("the head of department's queue and Department page in chromium", () =>
     const title = `Queue check ${crypto.randomUUID().slice(0, 6)}`;
     const created = await apiFrom(tomasz, "POST", "/api/lessons", { ...emptyLessonInput(), title, classGroup: "9M", status: "ready" });
     expect(created.status).toBe(201);
-    const proposed = await apiFrom(tomasz, "POST", "/api/shelf/proposals", { lessonId: created.body.lesson.id, note: "For the spring term" });
+    const proposed = await apiFrom(tomasz, "POST", "/api/shelf/proposals", {
+      lessonId: created.body.lesson.id,
+      note: "For the spring term",
+    });
     expect(proposed.status).toBe(201);
 
     await priya.goto(`${appUrl}/app`);
-    await priya.getByRole("heading", { name: before + 1 === 1 ? "1 proposal waits for your decision" : `${before + 1} proposals wait for your decision` }).waitFor();
+    await priya
+      .getByRole("heading", {
+        name: before + 1 === 1 ? "1 proposal waits for your decision" : `${before + 1} proposals wait for your decision`,
+      })
+      .waitFor();
     await expect.poll(() => navCount(priya)).toBe(before + 1);
     await screenshot(priya, "home-head-waiting-laptop");
 

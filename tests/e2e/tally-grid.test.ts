@@ -38,12 +38,23 @@ describe("the tally grid in chromium", () => {
   beforeAll(async () => {
     browser = await openBrowser(viewports.laptop);
     page = await signInThroughUi(browser.context, appUrl, ada.email, demoPassword);
-    const set = await page.request.post(`${appUrl}/api/dice-sets`, { data: { name: `Skerry high trio ${tag}`, visibility: "private", dice } });
+    const set = await page.request.post(`${appUrl}/api/dice-sets`, {
+      data: { name: `Skerry high trio ${tag}`, visibility: "private", dice },
+    });
     expect(set.status()).toBe(201);
     setId = (await set.json()).id;
     const phases = emptyLessonInput().phases.map((entry) => ({ ...entry, included: entry.phase !== "Twist" }));
     const lesson = await page.request.post(`${appUrl}/api/lessons`, {
-      data: { ...emptyLessonInput(), title: lessonTitle, classGroup: "8K", status: "ready", diceSetId: setId, groups: 4, rollsPerGroup: 6, phases },
+      data: {
+        ...emptyLessonInput(),
+        title: lessonTitle,
+        classGroup: "8K",
+        status: "ready",
+        diceSetId: setId,
+        groups: 4,
+        rollsPerGroup: 6,
+        phases,
+      },
     });
     expect(lesson.status()).toBe(201);
     lessonId = (await lesson.json()).lesson.id;
@@ -146,7 +157,11 @@ describe("the tally grid in chromium", () => {
     await page.goto(`${appUrl}/app/results/pooled?runIds=${phoneRunId},${paperRunId}&dicePerPlayer=1`);
     await page.getByRole("heading", { name: "Each class’s contribution" }).waitFor();
     const contribution = page.getByRole("table").filter({ hasText: "Share of the pool" });
-    await expect(contribution.getByRole("rowheader").allTextContents()).resolves.toEqual([expect.stringContaining("8K"), expect.stringContaining("8L"), "Pooled"]);
+    await expect(contribution.getByRole("rowheader").allTextContents()).resolves.toEqual([
+      expect.stringContaining("8K"),
+      expect.stringContaining("8L"),
+      "Pooled",
+    ]);
     const pooled = await (await page.request.get(`${appUrl}/api/results/pooled?runIds=${phoneRunId},${paperRunId}&dicePerPlayer=1`)).json();
     const phone = await (await page.request.get(`${appUrl}/api/results/runs/${phoneRunId}`)).json();
     const skuaTern = pooled.pooled.matchups.find((entry: { key: string }) => entry.key === "1:0-1");

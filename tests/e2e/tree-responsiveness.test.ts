@@ -55,7 +55,9 @@ describe("a large tree diagram in chromium", () => {
       record.longTasks = [];
       // The delay before the page handles a key press: from the event's time stamp to its handler.
       document.addEventListener("keydown", (event) => record.inputDelays.push(performance.now() - event.timeStamp), { capture: true });
-      new PerformanceObserver((list) => list.getEntries().forEach((entry) => record.longTasks.push(entry.duration))).observe({ type: "longtask" });
+      new PerformanceObserver((list) => list.getEntries().forEach((entry) => record.longTasks.push(entry.duration))).observe({
+        type: "longtask",
+      });
     });
 
     await chooseOption(page, "Mode", "two dice each");
@@ -81,7 +83,10 @@ describe("a large tree diagram in chromium", () => {
     await page.getByTestId("two-way-totals").waitFor();
     await screenshot(page, "tree-grouped-by-total-laptop");
 
-    await page.locator("label").filter({ has: page.getByRole("radio", { name: "outcome", exact: true }) }).click();
+    await page
+      .locator("label")
+      .filter({ has: page.getByRole("radio", { name: "outcome", exact: true }) })
+      .click();
     await page.locator("figcaption").filter({ hasText: "drawn grouped: by outcome" }).waitFor();
     await screenshot(page, "tree-grouped-by-outcome-laptop");
 

@@ -23,7 +23,10 @@ const prompts = ["Which die would you choose if you went second?", "Why can ever
 const exitTicket = "Write one sentence: why is there no best die in this set?";
 
 async function openRunOf(request: APIRequestContext, fields: Record<string, unknown>) {
-  const set = await request.post(`${appUrl}/api/dice-sets`, { headers, data: { name: "Cliff-top three", description: "", visibility: "private", dice } });
+  const set = await request.post(`${appUrl}/api/dice-sets`, {
+    headers,
+    data: { name: "Cliff-top three", description: "", visibility: "private", dice },
+  });
   expect(set.status()).toBe(201);
   const title = `Wall lesson ${Date.now().toString(36)}`;
   const lesson = await request.post(`${appUrl}/api/lessons`, {
@@ -42,7 +45,10 @@ async function moveTo(request: APIRequestContext, runId: string, phase: string, 
 }
 
 async function simulate(request: APIRequestContext, runId: string, seed: number) {
-  const added = await request.post(`${appUrl}/api/class-runs/${runId}/simulated-groups`, { headers, data: { groups: 3, rollsPerGroup: 40, seed } });
+  const added = await request.post(`${appUrl}/api/class-runs/${runId}/simulated-groups`, {
+    headers,
+    data: { groups: 3, rollsPerGroup: 40, seed },
+  });
   expect(added.status(), await added.text()).toBe(201);
 }
 
@@ -73,7 +79,9 @@ describe("the Wall view tells the lesson's story in order", () => {
     const wall = await browser.context.newPage();
     await wall.goto(`${appUrl}/app/runs/${runId}/wall`);
     await wall.getByTestId("wall-roll-count").filter({ hasText: "120 rolls from 3 groups" }).waitFor();
-    await expect(wall.getByTestId("wall-exact").allTextContents()).resolves.toEqual(Array(3).fill(expect.stringContaining("Shown in Prove")));
+    await expect(wall.getByTestId("wall-exact").allTextContents()).resolves.toEqual(
+      Array(3).fill(expect.stringContaining("Shown in Prove")),
+    );
     // No exact fraction anywhere on the Wall before Prove, though the class's figures are there.
     await expect(wall.locator("body").innerText()).resolves.not.toMatch(/\d+\/\d+/);
     const shares = await wall.getByTestId("wall-share").allTextContents();
@@ -103,9 +111,13 @@ describe("the Wall view tells the lesson's story in order", () => {
     await main.getByRole("heading", { name: /^Main tally: one die each, two players/ }).waitFor();
     await expect(main.getByRole("heading").first().textContent()).resolves.toContain("120 rolls from 3 groups");
     const twist = wall.getByTestId("wall-twist-tally");
-    await expect(twist.getByRole("heading").first().textContent()).resolves.toMatch(/^Twist: two dice each, two players\d+ rolls from \d+ groups$/);
+    await expect(twist.getByRole("heading").first().textContent()).resolves.toMatch(
+      /^Twist: two dice each, two players\d+ rolls from \d+ groups$/,
+    );
     await expect(twist.getByTestId("wall-matchup").count()).resolves.toBeGreaterThan(0);
-    await expect(main.getByTestId("wall-exact").allTextContents()).resolves.toEqual(expect.arrayContaining([expect.stringContaining("4/9 ≈ 0.444")]));
+    await expect(main.getByTestId("wall-exact").allTextContents()).resolves.toEqual(
+      expect.arrayContaining([expect.stringContaining("4/9 ≈ 0.444")]),
+    );
     for (const prompt of prompts) await wall.getByRole("listitem").filter({ hasText: prompt }).waitFor();
     await wall.getByRole("heading", { name: "Exit ticket" }).waitFor();
     await wall.getByText(exitTicket).waitFor();
@@ -120,7 +132,10 @@ describe("the Wall view tells the lesson's story in order", () => {
     await expect(board.getByText("Live", { exact: true }).count()).resolves.toBe(0);
     await board.getByText(/^■?\s*Closed$/).waitFor();
     await expect(board.getByRole("link", { name: "See the results" }).getAttribute("href")).resolves.toBe(`/app/results/${runId}`);
-    await expect(board.getByRole("tab").allTextContents()).resolves.toEqual(["Main tally: one die each, two players", "Twist: two dice each, two players"]);
+    await expect(board.getByRole("tab").allTextContents()).resolves.toEqual([
+      "Main tally: one die each, two players",
+      "Twist: two dice each, two players",
+    ]);
     await screenshot(board, "run-board-closed-laptop");
     await board.setViewportSize(viewports.phone);
     await screenshot(board, "run-board-closed-phone");

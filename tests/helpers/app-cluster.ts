@@ -55,7 +55,16 @@ export type AppProcess = { port: number; url: string; child: ChildProcess };
 /** The real server as its own process (as systemd runs each of deploy/'s instances). */
 export function startAppProcess(port: number, databaseUrl: string, appOrigin: string, extraEnv: Record<string, string> = {}): AppProcess {
   const child = spawn("node", ["--import", "tsx", "server/index.ts"], {
-    env: { ...process.env, DATABASE_URL: databaseUrl, PORT: String(port), HOST: "127.0.0.1", APP_ORIGIN: appOrigin, LOG_LEVEL: "warn", TRUST_PROXY: "loopback", ...extraEnv },
+    env: {
+      ...process.env,
+      DATABASE_URL: databaseUrl,
+      PORT: String(port),
+      HOST: "127.0.0.1",
+      APP_ORIGIN: appOrigin,
+      LOG_LEVEL: "warn",
+      TRUST_PROXY: "loopback",
+      ...extraEnv,
+    },
     stdio: ["ignore", "ignore", "inherit"],
   });
   return { port, url: `http://127.0.0.1:${port}`, child };
@@ -81,4 +90,3 @@ export async function stopAppProcess(app: AppProcess | undefined) {
   app.child.kill("SIGTERM");
   await exited;
 }
-

@@ -14,7 +14,11 @@ export const testDice: SetDie[] = [
   { name: "Guillemot", faces: [0, 4, 4, 4, 4, 8], colour: "plum", pattern: "checks" },
 ];
 
-export type LessonOptions = Partial<Pick<LessonInput, "mode" | "tieRule" | "matchupChoice">> & { phases?: LessonPhaseName[]; dice?: SetDie[]; withoutSet?: boolean };
+export type LessonOptions = Partial<Pick<LessonInput, "mode" | "tieRule" | "matchupChoice">> & {
+  phases?: LessonPhaseName[];
+  dice?: SetDie[];
+  withoutSet?: boolean;
+};
 
 /** A lesson of `ownerId` with its own dice set, written straight into the database (the Lessons screens are not under test here). */
 export async function createLessonFor(ownerEmail: string, options: LessonOptions = {}, database: Database = db): Promise<string> {
@@ -25,10 +29,19 @@ export async function createLessonFor(ownerEmail: string, options: LessonOptions
   const departmentId = membership?.organizationId ?? null;
   const [set] = options.withoutSet
     ? [null]
-    : await db.insert(diceSet).values({ ownerId: owner.id, departmentId, name: "Cliff-top three", dice: options.dice ?? testDice }).returning();
+    : await db
+        .insert(diceSet)
+        .values({ ownerId: owner.id, departmentId, name: "Cliff-top three", dice: options.dice ?? testDice })
+        .returning();
   const base = emptyLessonInput();
   const included = options.phases ?? [...LESSON_PHASES];
-  const { title: _t, classGroup: _c, diceSetId: _d, status: _s, ...plan } = {
+  const {
+    title: _t,
+    classGroup: _c,
+    diceSetId: _d,
+    status: _s,
+    ...plan
+  } = {
     ...base,
     mode: options.mode ?? base.mode,
     tieRule: options.tieRule ?? base.tieRule,
@@ -37,7 +50,15 @@ export async function createLessonFor(ownerEmail: string, options: LessonOptions
   };
   const [row] = await db
     .insert(lesson)
-    .values({ ownerId: owner.id, departmentId, title: `Cliff-top run ${uuidv4().slice(0, 6)}`, classGroup: "8K", status: "ready", diceSetId: set?.id ?? null, plan })
+    .values({
+      ownerId: owner.id,
+      departmentId,
+      title: `Cliff-top run ${uuidv4().slice(0, 6)}`,
+      classGroup: "8K",
+      status: "ready",
+      diceSetId: set?.id ?? null,
+      plan,
+    })
     .returning();
   return row.id;
 }
@@ -85,13 +106,22 @@ export async function joinAsPupil(baseUrl: string, code: string, nickname: strin
 
 /** A roll of the pupil's matchup with the given faces (one list per seat), with a fresh uuid v4 id. */
 export function rollOf(pupil: TestPupil, faces: number[][], extra: Partial<RollPayload> = {}): RollPayload {
-  return { id: uuidv4(), tally: pupil.state.run.tally, matchup: pupil.state.group.matchup!, faces, recordedAt: new Date().toISOString(), ...extra };
+  return {
+    id: uuidv4(),
+    tally: pupil.state.run.tally,
+    matchup: pupil.state.group.matchup!,
+    faces,
+    recordedAt: new Date().toISOString(),
+    ...extra,
+  };
 }
 
 /** A random legal roll of the pupil's matchup (faces drawn from its dice). */
 export function randomRollOf(pupil: TestPupil, random: () => number = Math.random): RollPayload {
   const { run, group } = pupil.state;
-  const faces = group.matchup!.map((dieIndex) => Array.from({ length: run.dicePerPlayer }, () => run.dice[dieIndex].faces[Math.floor(random() * run.dice[dieIndex].faces.length)]));
+  const faces = group.matchup!.map((dieIndex) =>
+    Array.from({ length: run.dicePerPlayer }, () => run.dice[dieIndex].faces[Math.floor(random() * run.dice[dieIndex].faces.length)]),
+  );
   return rollOf(pupil, faces);
 }
 

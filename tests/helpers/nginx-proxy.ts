@@ -21,7 +21,11 @@ export const sleep = (milliseconds: number) => new Promise((resolve) => setTimeo
  * and a process that refuses connections three times is skipped for the next two seconds. Start it once the app
  * processes are ready, or its first probes mark them down.
  */
-export async function startNginx(folder: string, appPorts: number[], listenPort?: number): Promise<{ url: string; stop: () => Promise<void> }> {
+export async function startNginx(
+  folder: string,
+  appPorts: number[],
+  listenPort?: number,
+): Promise<{ url: string; stop: () => Promise<void> }> {
   const binary = ["/usr/sbin/nginx", "/usr/bin/nginx"].find((candidate) => existsSync(candidate)) ?? "nginx";
   const port = listenPort ?? (await freePort());
   const prefix = path.join(folder, "nginx");

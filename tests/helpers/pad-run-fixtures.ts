@@ -19,13 +19,23 @@ export async function openPadTestRun(appUrl: string): Promise<PadTestRun> {
   const owner = demoTeachers.find((entry) => entry.email === demoRunLesson.ownerEmail)!;
   const signIn = await teacher.post("/api/auth/sign-in/email", { data: { email: owner.email, password: demoPassword } });
   if (!signIn.ok()) throw new Error(`sign-in failed: ${signIn.status()}`);
-  const set = await teacher.post("/api/dice-sets", { data: { name: `Sea-cliff three ${Date.now().toString(36)}`, description: "", visibility: "private", dice: padTestDice } });
+  const set = await teacher.post("/api/dice-sets", {
+    data: { name: `Sea-cliff three ${Date.now().toString(36)}`, description: "", visibility: "private", dice: padTestDice },
+  });
   if (set.status() !== 201) throw new Error(`dice set: ${await set.text()}`);
   const lesson = await teacher.post("/api/lessons", {
-    data: { ...emptyLessonInput(), title: `Pad run ${Date.now().toString(36)}`, classGroup: "8K", status: "ready", diceSetId: (await set.json()).id },
+    data: {
+      ...emptyLessonInput(),
+      title: `Pad run ${Date.now().toString(36)}`,
+      classGroup: "8K",
+      status: "ready",
+      diceSetId: (await set.json()).id,
+    },
   });
   if (lesson.status() !== 201) throw new Error(`lesson: ${await lesson.text()}`);
-  const run = await teacher.post("/api/class-runs", { data: { lessonId: ((await lesson.json()) as { lesson: { id: string } }).lesson.id } });
+  const run = await teacher.post("/api/class-runs", {
+    data: { lessonId: ((await lesson.json()) as { lesson: { id: string } }).lesson.id },
+  });
   if (run.status() !== 201) throw new Error(`run: ${await run.text()}`);
   const { id, joinCode } = (await run.json()) as { id: string; joinCode: string };
   return {

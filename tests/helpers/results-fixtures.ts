@@ -33,7 +33,13 @@ export const testDice: SetDie[] = [
   { name: "Gannet", faces: [2, 3, 6, 14, 16, 17], colour: "plum", pattern: "checks" },
 ];
 
-export type FixtureGroup = { nickname: string; matchup: number[]; rolls: number; source?: "phone" | "simulated" | "paper"; undone?: number };
+export type FixtureGroup = {
+  nickname: string;
+  matchup: number[];
+  rolls: number;
+  source?: "phone" | "simulated" | "paper";
+  undone?: number;
+};
 
 export type FixtureRun = {
   ownerEmail: string;
@@ -95,7 +101,9 @@ export async function insertFixtureRun(db: AnyDatabase, fixture: FixtureRun): Pr
     groupIds.push(created.id);
     const rows: (typeof roll.$inferInsert)[] = [];
     for (let index = 0; index < group.rolls; index += 1) {
-      const faces = group.matchup.map((dieIndex) => Array.from({ length: dicePerPlayer }, () => dice[dieIndex].faces[randomBelow(random, dice[dieIndex].faces.length)]));
+      const faces = group.matchup.map((dieIndex) =>
+        Array.from({ length: dicePerPlayer }, () => dice[dieIndex].faces[randomBelow(random, dice[dieIndex].faces.length)]),
+      );
       const totals = faces.map((list) => list.reduce((sum, face) => sum + face, 0));
       const highest = Math.max(...totals);
       const top = totals.flatMap((total, seat) => (total === highest ? [seat] : []));

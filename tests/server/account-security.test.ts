@@ -29,7 +29,11 @@ async function storedUser(email: string) {
 describe("account bodies and names", () => {
   it("refuses a sign-up body over the limit before better-auth reads it, storing nothing", async () => {
     const email = uniqueEmail("huge-name");
-    const response = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", { name: "N".repeat(8 * 1024 * 1024), email, password: strongPassword });
+    const response = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", {
+      name: "N".repeat(8 * 1024 * 1024),
+      email,
+      password: strongPassword,
+    });
     expect(response.status).toBe(413);
     expect(response.body.error.code).toBe("too_large");
     expect(await storedUser(email)).toBeUndefined();
@@ -75,7 +79,10 @@ describe("passwords", () => {
     const weak = await agent.post("/api/auth/change-password", { currentPassword: strongPassword, newPassword: "password12" });
     expect(weak.status).toBe(400);
     expect(weak.body.error.code).toBe("weak_password");
-    const strong = await agent.post("/api/auth/change-password", { currentPassword: strongPassword, newPassword: "harbour-kelp-compass-7" });
+    const strong = await agent.post("/api/auth/change-password", {
+      currentPassword: strongPassword,
+      newPassword: "harbour-kelp-compass-7",
+    });
     expect(strong.status).toBe(200);
   });
 
@@ -100,7 +107,12 @@ describe("forwarded addresses", () => {
     const agent = new HttpAgent(target.baseUrl);
     const statuses: number[] = [];
     for (let i = 0; i < 4; i += 1) {
-      const response = await agent.request("POST", "/api/auth/sign-in/email", { email: uniqueEmail("nobody"), password: "whatever-it-is" }, { "x-forwarded-for": `203.0.113.${i + 1}` });
+      const response = await agent.request(
+        "POST",
+        "/api/auth/sign-in/email",
+        { email: uniqueEmail("nobody"), password: "whatever-it-is" },
+        { "x-forwarded-for": `203.0.113.${i + 1}` },
+      );
       statuses.push(response.status);
     }
     return statuses;
@@ -125,12 +137,24 @@ describe("forwarded addresses", () => {
 describe("account existence", () => {
   it("answers a sign-up with an existing address as it answers a new one, and tells the owner by e-mail", async () => {
     const { email } = await signedUp("existing", "Ines Barlow");
-    const again = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", { name: "Someone Else", email, password: "another-sturdy-phrase-9" });
-    const fresh = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", { name: "Someone Else", email: uniqueEmail("fresh"), password: "another-sturdy-phrase-9" });
+    const again = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", {
+      name: "Someone Else",
+      email,
+      password: "another-sturdy-phrase-9",
+    });
+    const fresh = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", {
+      name: "Someone Else",
+      email: uniqueEmail("fresh"),
+      password: "another-sturdy-phrase-9",
+    });
     expect(again.status).toBe(200);
     expect(again.status).toBe(fresh.status);
     expect(again.text).not.toMatch(/already exists/i);
-    const shape = (body: { token: unknown; user: Record<string, unknown> }) => ({ token: body.token, userKeys: Object.keys(body.user).sort(), name: body.user.name });
+    const shape = (body: { token: unknown; user: Record<string, unknown> }) => ({
+      token: body.token,
+      userKeys: Object.keys(body.user).sort(),
+      name: body.user.name,
+    });
     expect(shape(again.body)).toEqual(shape(fresh.body));
     const mail = await waitForMail(email, /already have an Outroll account/);
     expect(mail.text).toContain("no new account was made");
@@ -138,7 +162,11 @@ describe("account existence", () => {
     // A password over the length limit is refused alike too, before anyone looks the address up.
     const tooLong = "tidal-pool-lantern-".repeat(8);
     const longAgain = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", { name: "Someone Else", email, password: tooLong });
-    const longFresh = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", { name: "Someone Else", email: uniqueEmail("fresh"), password: tooLong });
+    const longFresh = await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", {
+      name: "Someone Else",
+      email: uniqueEmail("fresh"),
+      password: tooLong,
+    });
     expect([longAgain.status, longAgain.body.error]).toEqual([longFresh.status, longFresh.body.error]);
     expect(longAgain.status).toBe(400);
   });
@@ -147,7 +175,10 @@ describe("account existence", () => {
     const { email } = await signedUp("reset-known");
     const unknown = uniqueEmail("reset-unknown");
     const known = await new HttpAgent(app.baseUrl).post("/api/auth/request-password-reset", { email, redirectTo: "/reset-password" });
-    const stranger = await new HttpAgent(app.baseUrl).post("/api/auth/request-password-reset", { email: unknown, redirectTo: "/reset-password" });
+    const stranger = await new HttpAgent(app.baseUrl).post("/api/auth/request-password-reset", {
+      email: unknown,
+      redirectTo: "/reset-password",
+    });
     expect(known.status).toBe(stranger.status);
     expect(known.text).toBe(stranger.text);
     await waitForMail(email, /password/i);

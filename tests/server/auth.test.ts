@@ -76,7 +76,9 @@ describe("sign-in rate limit", () => {
       const agent = new HttpAgent(limited.baseUrl);
       const statuses: number[] = [];
       for (let i = 0; i < 4; i += 1) {
-        statuses.push((await agent.post("/api/auth/sign-in/email", { email: "nobody@outroll-tests.test", password: "whatever-it-is" })).status);
+        statuses.push(
+          (await agent.post("/api/auth/sign-in/email", { email: "nobody@outroll-tests.test", password: "whatever-it-is" })).status,
+        );
       }
       expect(statuses.slice(0, 3).every((status) => status === 401)).toBe(true);
       expect(statuses[3]).toBe(429);

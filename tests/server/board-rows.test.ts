@@ -11,7 +11,14 @@ const dice = [
 ];
 
 const newRollArbitrary = fc
-  .record({ id: fc.uuid(), group: fc.constantFrom("a", "b", "c"), first: fc.nat(3), second: fc.nat(3), flip: fc.boolean(), at: fc.nat(86_400_000) })
+  .record({
+    id: fc.uuid(),
+    group: fc.constantFrom("a", "b", "c"),
+    first: fc.nat(3),
+    second: fc.nat(3),
+    flip: fc.boolean(),
+    at: fc.nat(86_400_000),
+  })
   .map(({ id, group, first, second, flip, at }): NewRoll => {
     const matchup = flip ? [1, 0] : [0, 1];
     const faces = [[dice[matchup[0]].faces[first]], [dice[matchup[1]].faces[second]]];
@@ -48,7 +55,11 @@ describe("poolRowsJson and requestRows", () => {
         }));
         const fromJson = requestRows(poolRowsJson(rolls));
         expect(fromJson).toEqual(expected);
-        const settings = { dice, tieRule: "re-roll-ties" as const, tallies: [{ tally: 1, dicePerPlayer: 1, players: 2, startedAt: "2026-11-30T00:00:00.000Z" }] };
+        const settings = {
+          dice,
+          tieRule: "re-roll-ties" as const,
+          tallies: [{ tally: 1, dicePerPlayer: 1, players: 2, startedAt: "2026-11-30T00:00:00.000Z" }],
+        };
         expect(BoardPool.of(settings, fromJson).result({})).toEqual(BoardPool.of(settings, expected).result({}));
       }),
       { numRuns: 50 },

@@ -24,7 +24,14 @@ afterAll(() => app.close());
 async function lessonWithSet(fields: Record<string, unknown>) {
   const set = await teacher.post("/api/dice-sets", { name: `${marker} set`, description: "", visibility: "private", dice: testDice });
   expect(set.status, set.text).toBe(201);
-  const created = await teacher.post("/api/lessons", { ...emptyLessonInput(), title: `${marker} lesson`, classGroup: "8K", status: "ready", diceSetId: set.body.id, ...fields });
+  const created = await teacher.post("/api/lessons", {
+    ...emptyLessonInput(),
+    title: `${marker} lesson`,
+    classGroup: "8K",
+    status: "ready",
+    diceSetId: set.body.id,
+    ...fields,
+  });
   expect(created.status, created.text).toBe(201);
   return created.body.lesson;
 }
@@ -32,11 +39,19 @@ async function lessonWithSet(fields: Record<string, unknown>) {
 describe("what a class run copies from its lesson for the Wall view", () => {
   it("keeps the lesson's hide-exact setting, prompts and exit ticket, unchanged by later lesson edits", async () => {
     const prompts = ["Which die would you pick against Auk?", "Did the class's figures settle down?"];
-    const created = await lessonWithSet({ hideExactUntilProve: false, discussionPrompts: prompts, exitTicket: "Name a die that beats Razorbill." });
+    const created = await lessonWithSet({
+      hideExactUntilProve: false,
+      discussionPrompts: prompts,
+      exitTicket: "Name a die that beats Razorbill.",
+    });
     expect(created.hideExactUntilProve).toBe(false);
     const opened = await teacher.post("/api/class-runs", { lessonId: created.id });
     expect(opened.status, opened.text).toBe(201);
-    expect(opened.body).toMatchObject({ hideExactUntilProve: false, discussionPrompts: prompts, exitTicket: "Name a die that beats Razorbill." });
+    expect(opened.body).toMatchObject({
+      hideExactUntilProve: false,
+      discussionPrompts: prompts,
+      exitTicket: "Name a die that beats Razorbill.",
+    });
 
     const stored = { body: (await teacher.get(`/api/lessons/${created.id}`)).body.lesson };
     const edited = await teacher.put(`/api/lessons/${created.id}`, {
@@ -53,7 +68,11 @@ describe("what a class run copies from its lesson for the Wall view", () => {
     expect(edited.status, edited.text).toBe(200);
     const board = await teacher.get(`/api/class-runs/${opened.body.id}/board`);
     expect(board.status).toBe(200);
-    expect(board.body.run).toMatchObject({ hideExactUntilProve: false, discussionPrompts: prompts, exitTicket: "Name a die that beats Razorbill." });
+    expect(board.body.run).toMatchObject({
+      hideExactUntilProve: false,
+      discussionPrompts: prompts,
+      exitTicket: "Name a die that beats Razorbill.",
+    });
   });
 
   it("hides exact values by default, also for a lesson saved before the setting existed", async () => {
@@ -96,7 +115,20 @@ describe("a run with a Twist in Results", () => {
       })
       .where(eq(classRun.id, runId));
     await db.insert(roll).values(
-      [[[1, 5], [2, 3]], [[6, 6], [7, 7]], [[5, 1], [4, 3]]].map((faces) => ({
+      [
+        [
+          [1, 5],
+          [2, 3],
+        ],
+        [
+          [6, 6],
+          [7, 7],
+        ],
+        [
+          [5, 1],
+          [4, 3],
+        ],
+      ].map((faces) => ({
         id: crypto.randomUUID(),
         runId,
         groupId: groupIds[0],
@@ -129,7 +161,10 @@ describe("a run with a Twist in Results", () => {
     expect(results.body.pooled.totals.rolls).toBe(15);
     // The main matchup is the main tally's, even were the Twist busier.
     expect(results.body.mainMatchupKey).toBe("1:0-1");
-    const stored = await db.select({ tally: roll.tally }).from(roll).where(and(eq(roll.runId, runId), eq(roll.tally, 2)));
+    const stored = await db
+      .select({ tally: roll.tally })
+      .from(roll)
+      .where(and(eq(roll.runId, runId), eq(roll.tally, 2)));
     expect(stored).toHaveLength(3);
   });
 });

@@ -82,8 +82,15 @@ describe("a server killed in the middle of a class run", () => {
       const ack: GroupJoinAck = await socket.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: `Fault Group ${index + 1}` });
       if (!ack.ok) throw new Error(ack.error.message);
       const memory = new Map<string, string>();
-      const store = keyValueOutboxStore({ getItem: (key) => memory.get(key) ?? null, setItem: (key, value) => void memory.set(key, value) }, "outbox");
-      const outbox = new RollOutbox(store, socketOutboxTransport(socket, () => ack.token, 1_500), { maxInFlight: 4, retryDelayMs: 300 });
+      const store = keyValueOutboxStore(
+        { getItem: (key) => memory.get(key) ?? null, setItem: (key, value) => void memory.set(key, value) },
+        "outbox",
+      );
+      const outbox = new RollOutbox(
+        store,
+        socketOutboxTransport(socket, () => ack.token, 1_500),
+        { maxInFlight: 4, retryDelayMs: 300 },
+      );
       // As on the phone: whatever is kept goes again on every reconnect.
       socket.on("connect", () => outbox.flush());
       const source = mulberry32(1000 + index);
@@ -125,14 +132,19 @@ describe("a server killed in the middle of a class run", () => {
     }
 
     const recorded = phones.flatMap((phone) => phone.recorded);
-    console.log(`fault test: ${recorded.length} rolls recorded, ${savedBeforeKill} stored before the kill, ${keptWhileDown} kept in outboxes while the server was down`);
+    console.log(
+      `fault test: ${recorded.length} rolls recorded, ${savedBeforeKill} stored before the kill, ${keptWhileDown} kept in outboxes while the server was down`,
+    );
     const stored = await db.select({ id: rollTable.id, groupId: rollTable.groupId }).from(rollTable).where(eq(rollTable.runId, run.id));
     expect(savedBeforeKill).toBeGreaterThan(0);
     expect(keptWhileDown).toBeGreaterThan(0);
     expect(stored).toHaveLength(recorded.length);
     expect(new Set(stored.map((row) => row.id))).toEqual(new Set(recorded));
     for (const phone of phones) {
-      const mine = stored.filter((row) => row.groupId === phone.state.group.id).map((row) => row.id).sort();
+      const mine = stored
+        .filter((row) => row.groupId === phone.state.group.id)
+        .map((row) => row.id)
+        .sort();
       expect(mine).toEqual([...phone.recorded].sort());
     }
   });

@@ -50,7 +50,13 @@ const schoolAddress = () => `198.51.100.${nextAddress++}`;
 
 /** A phone's socket, as if behind the school's one address (X-Forwarded-For, trusted from this loopback proxy). */
 async function phoneSocket(address: string): Promise<Socket> {
-  const socket = connect(app.baseUrl, { path: "/socket.io", transports: ["websocket"], forceNew: true, reconnection: false, extraHeaders: { "x-forwarded-for": address } });
+  const socket = connect(app.baseUrl, {
+    path: "/socket.io",
+    transports: ["websocket"],
+    forceNew: true,
+    reconnection: false,
+    extraHeaders: { "x-forwarded-for": address },
+  });
   sockets.push(socket);
   await new Promise<void>((resolve, reject) => {
     socket.once("connect", () => resolve());
@@ -73,7 +79,11 @@ async function moveTo(run: ClassRun, phase: string) {
 
 async function join(run: ClassRun, nickname: string, address: string, attemptId?: string): Promise<TestPupil> {
   const socket = await phoneSocket(address);
-  const ack: GroupJoinAck = await socket.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname, ...(attemptId ? { attemptId } : {}) });
+  const ack: GroupJoinAck = await socket.emitWithAck(EVENTS.groupJoin, {
+    code: run.joinCode,
+    nickname,
+    ...(attemptId ? { attemptId } : {}),
+  });
   if (!ack.ok) throw new Error(`join failed: ${ack.error.code} ${ack.error.message}`);
   return { socket, token: ack.token, state: ack.state };
 }
@@ -86,7 +96,12 @@ function record(pupil: TestPupil, faces: number[][]): Promise<RollRecordAck> {
 }
 
 async function boardSnapshot(run: ClassRun) {
-  const board = connect(app.baseUrl, { path: "/socket.io", transports: ["websocket"], forceNew: true, extraHeaders: { cookie: await sessionCookie(app.baseUrl, teacherEmail, "a-long-password") } });
+  const board = connect(app.baseUrl, {
+    path: "/socket.io",
+    transports: ["websocket"],
+    forceNew: true,
+    extraHeaders: { cookie: await sessionCookie(app.baseUrl, teacherEmail, "a-long-password") },
+  });
   sockets.push(board);
   const ack: BoardSnapshotAck = await board.emitWithAck(EVENTS.boardSnapshot, { runId: run.id });
   if (!ack.ok) throw new Error(ack.error.message);
@@ -104,8 +119,15 @@ describe("phases govern the pads", () => {
     expect(run.phase).toBe("Guess");
     const pupil = await join(run, "Rockpool Rangers", schoolAddress());
     const memory = new Map<string, string>();
-    const store = keyValueOutboxStore({ getItem: (key) => memory.get(key) ?? null, setItem: (key, value) => void memory.set(key, value) }, "outbox");
-    const outbox = new RollOutbox(store, socketOutboxTransport(pupil.socket, () => pupil.token, 2_000), { retryDelayMs: 100 });
+    const store = keyValueOutboxStore(
+      { getItem: (key) => memory.get(key) ?? null, setItem: (key, value) => void memory.set(key, value) },
+      "outbox",
+    );
+    const outbox = new RollOutbox(
+      store,
+      socketOutboxTransport(pupil.socket, () => pupil.token, 2_000),
+      { retryDelayMs: 100 },
+    );
     const refusals: string[] = [];
     outbox.subscribe((event) => {
       if (event.type === "refused") refusals.push(event.error.code);
@@ -164,7 +186,11 @@ describe("joining is safe to repeat", () => {
 
     // Another phone choosing the same nickname with its own attempt is still refused.
     const other = await phoneSocket(address);
-    const taken: GroupJoinAck = await other.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: "Harbour Seals", attemptId: uuidv4() });
+    const taken: GroupJoinAck = await other.emitWithAck(EVENTS.groupJoin, {
+      code: run.joinCode,
+      nickname: "Harbour Seals",
+      attemptId: uuidv4(),
+    });
     expect(taken).toMatchObject({ ok: false, error: { code: "nickname_taken" } });
   });
 
@@ -205,8 +231,14 @@ describe("moderation on the Run board", () => {
     const resumed: GroupResumeAck = await gone.socket.emitWithAck(EVENTS.groupResume, { token: gone.token });
     expect(resumed).toMatchObject({ ok: false, error: { code: "group_removed" } });
     expect(await record(gone, [[4], [4]])).toMatchObject({ ok: false, error: { code: "group_removed" } });
-    expect(await gone.socket.emitWithAck(EVENTS.rollUndo, { token: gone.token, rollId: uuidv4() })).toMatchObject({ ok: false, error: { code: "group_removed" } });
-    expect(await gone.socket.emitWithAck(EVENTS.voteCast, { token: gone.token, dieIndex: 0 })).toMatchObject({ ok: false, error: { code: "group_removed" } });
+    expect(await gone.socket.emitWithAck(EVENTS.rollUndo, { token: gone.token, rollId: uuidv4() })).toMatchObject({
+      ok: false,
+      error: { code: "group_removed" },
+    });
+    expect(await gone.socket.emitWithAck(EVENTS.voteCast, { token: gone.token, dieIndex: 0 })).toMatchObject({
+      ok: false,
+      error: { code: "group_removed" },
+    });
     // Nothing is deleted: the rows stay, marked.
     expect(await keptRolls(run.id)).toBe(7);
     const [row] = await db.select().from(runGroup).where(eq(runGroup.id, gone.state.group.id));
@@ -286,7 +318,9 @@ describe("moderation on the Run board", () => {
     const out = await boardSnapshot(run);
     await teacher.put(`/api/class-runs/${run.id}/groups/${pupil.state.group.id}/left-out`, { leftOut: false });
     const back = await boardSnapshot(run);
-    expect([first.tallies[0].pooled.totals.rolls, out.tallies[0].pooled.totals.rolls, back.tallies[0].pooled.totals.rolls]).toEqual([4, 0, 4]);
+    expect([first.tallies[0].pooled.totals.rolls, out.tallies[0].pooled.totals.rolls, back.tallies[0].pooled.totals.rolls]).toEqual([
+      4, 0, 4,
+    ]);
     expect(out.version).toBeGreaterThan(first.version);
     expect(back.version).toBeGreaterThan(out.version);
   });
@@ -300,11 +334,17 @@ describe("moderation on the Run board", () => {
     const locked = await teacher.put(`/api/class-runs/${run.id}/joining`, { locked: true });
     expect(locked.body).toMatchObject({ joiningLocked: true });
     const phone = await phoneSocket(address);
-    expect(await phone.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: "Boat Yard" })).toMatchObject({ ok: false, error: { code: "joining_locked" } });
+    expect(await phone.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: "Boat Yard" })).toMatchObject({
+      ok: false,
+      error: { code: "joining_locked" },
+    });
     expect((await join(run, "West Slip", address, attemptId)).state.group.id).toBe(first.state.group.id);
     await teacher.put(`/api/class-runs/${run.id}/joining`, { locked: false });
     await join(run, "Boat Yard", address);
-    expect(await phone.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: "Sea Shanties" })).toMatchObject({ ok: false, error: { code: "run_full" } });
+    expect(await phone.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: "Sea Shanties" })).toMatchObject({
+      ok: false,
+      error: { code: "run_full" },
+    });
     // A removed group frees its place.
     await teacher.delete(`/api/class-runs/${run.id}/groups/${first.state.group.id}`);
     expect((await phone.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: "Sea Shanties" })).ok).toBe(true);
@@ -339,23 +379,34 @@ describe("abuse limits", () => {
     // One phone tries to make 60 groups as fast as it can.
     const flooder = await phoneSocket(address);
     const floodJoins: GroupJoinAck[] = await Promise.all(
-      Array.from({ length: 60 }, (_, index) => flooder.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: `Flood ${index + 1}` })),
+      Array.from({ length: 60 }, (_, index) =>
+        flooder.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: `Flood ${index + 1}` }),
+      ),
     );
     const floodTokens = floodJoins.flatMap((ack) => (ack.ok ? [{ token: ack.token, state: ack.state }] : []));
     const floodRefusals = floodJoins.filter((ack) => !ack.ok && ack.error.code === "rate_limited");
 
     // The class: 30 groups, one phone each, all behind the school's address.
-    const nicknames = Array.from({ length: 30 }, (_, index) => `${["North", "South", "East", "West", "Upper", "Lower"][index % 6]} ${["Kites", "Gulls", "Crabs", "Seals", "Terns"][Math.floor(index / 6)]}`);
+    const nicknames = Array.from(
+      { length: 30 },
+      (_, index) =>
+        `${["North", "South", "East", "West", "Upper", "Lower"][index % 6]} ${["Kites", "Gulls", "Crabs", "Seals", "Terns"][Math.floor(index / 6)]}`,
+    );
     const classGroups = await Promise.all(nicknames.map((nickname) => join(run, nickname, address)));
 
     // The flooder sends 400 rolls through its tokens from its one connection while each group records 20.
     const floodRolls = await Promise.all(
       Array.from({ length: 400 }, (_, index) => {
         const owner = floodTokens[index % floodTokens.length];
-        return flooder.emitWithAck(EVENTS.rollRecord, { token: owner.token, roll: randomRollOf({ socket: flooder, ...owner }) }) as Promise<RollRecordAck>;
+        return flooder.emitWithAck(EVENTS.rollRecord, {
+          token: owner.token,
+          roll: randomRollOf({ socket: flooder, ...owner }),
+        }) as Promise<RollRecordAck>;
       }),
     );
-    const classAcks = (await Promise.all(classGroups.map((group) => Promise.all(Array.from({ length: 20 }, () => record(group, [[5], [3]])))))).flat();
+    const classAcks = (
+      await Promise.all(classGroups.map((group) => Promise.all(Array.from({ length: 20 }, () => record(group, [[5], [3]])))))
+    ).flat();
     const seconds = (Date.now() - started) / 1000;
 
     const floodSaved = floodRolls.filter((ack) => ack.ok).length;
@@ -383,14 +434,24 @@ describe("abuse limits", () => {
     const guesser = await phoneSocket(address);
     const answers: GroupJoinAck[] = [];
     for (let index = 0; index < env.CODE_GUESSES_PER_CONNECTION_PER_MINUTE + 2; index += 1) {
-      answers.push(await guesser.emitWithAck(EVENTS.groupJoin, { code: `ZZZZ${"23456789"[index % 8]}${"ABCDEFGH"[Math.floor(index / 8)]}`, nickname: "Guessers" }));
+      answers.push(
+        await guesser.emitWithAck(EVENTS.groupJoin, {
+          code: `ZZZZ${"23456789"[index % 8]}${"ABCDEFGH"[Math.floor(index / 8)]}`,
+          nickname: "Guessers",
+        }),
+      );
     }
-    expect(answers.slice(0, env.CODE_GUESSES_PER_CONNECTION_PER_MINUTE).every((ack) => !ack.ok && ack.error.code === "unknown_code")).toBe(true);
+    expect(answers.slice(0, env.CODE_GUESSES_PER_CONNECTION_PER_MINUTE).every((ack) => !ack.ok && ack.error.code === "unknown_code")).toBe(
+      true,
+    );
     const slowed = answers.at(-1)!;
     expect(slowed).toMatchObject({ ok: false, error: { code: "rate_limited", retryAfterMs: expect.any(Number) } });
     if (!slowed.ok) expect(slowed.error.retryAfterMs!).toBeGreaterThan(1_000);
     // Once slowed, even the right code waits; another phone at the school joins.
-    expect(await guesser.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: "Guessers" })).toMatchObject({ ok: false, error: { code: "rate_limited" } });
+    expect(await guesser.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: "Guessers" })).toMatchObject({
+      ok: false,
+      error: { code: "rate_limited" },
+    });
     await join(run, "Honest Lot", address);
 
     // Per address: many connections from one address share CODE_GUESSES_PER_ADDRESS_PER_MINUTE wrong codes.
@@ -435,8 +496,14 @@ describe("abuse limits", () => {
     const pupil = await join(busy, "Boat Yard", schoolAddress());
     expect((await record(pupil, [[5], [3]])).ok).toBe(true);
     const longAgo = sql`now() - interval '5 hours'`;
-    await db.update(classRun).set({ lastChangeAt: longAgo }).where(and(eq(classRun.id, idle.id)));
-    await db.update(classRun).set({ lastChangeAt: longAgo }).where(and(eq(classRun.id, busy.id)));
+    await db
+      .update(classRun)
+      .set({ lastChangeAt: longAgo })
+      .where(and(eq(classRun.id, idle.id)));
+    await db
+      .update(classRun)
+      .set({ lastChangeAt: longAgo })
+      .where(and(eq(classRun.id, busy.id)));
 
     const [first, second] = await Promise.all([sweepIdleRuns(180), sweepIdleRuns(180)]);
     expect([...first, ...second].filter((id) => id === idle.id)).toHaveLength(1);

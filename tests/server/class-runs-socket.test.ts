@@ -2,13 +2,33 @@ import { and, eq, isNull, sql } from "drizzle-orm";
 import type { Socket } from "socket.io-client";
 import { v4 as uuidv4 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { decodeBoardUpdate, EVENTS, RETRYABLE_ERROR_CODES, type BoardSnapshotAck, type BoardUpdateMessage, type GroupJoinAck, type GroupResumeAck, type RollUndoAck, type VoteCastAck } from "@shared/events";
+import {
+  decodeBoardUpdate,
+  EVENTS,
+  RETRYABLE_ERROR_CODES,
+  type BoardSnapshotAck,
+  type BoardUpdateMessage,
+  type GroupJoinAck,
+  type GroupResumeAck,
+  type RollUndoAck,
+  type VoteCastAck,
+} from "@shared/events";
 import type { BoardSnapshot, ClassRun } from "@shared/schemas/class-runs";
 import { mulberry32 } from "@shared/probability/index";
 import { db } from "../../server/db/client";
 import { roll as rollTable, guessVote } from "../../server/db/schema/index";
 import { signGuestToken } from "../../server/services/guest-token";
-import { createLessonFor, joinAsPupil, openSocket, randomRollOf, record, rollOf, sessionCookie, testDice, type TestPupil } from "../helpers/class-run-fixtures";
+import {
+  createLessonFor,
+  joinAsPupil,
+  openSocket,
+  randomRollOf,
+  record,
+  rollOf,
+  sessionCookie,
+  testDice,
+  type TestPupil,
+} from "../helpers/class-run-fixtures";
 import { createDepartment, type DepartmentFixture } from "../helpers/department-fixtures";
 import { startTestApp, type HttpAgent, type TestApp } from "../helpers/test-app";
 
@@ -74,7 +94,10 @@ describe("joining a class run from a phone", () => {
     const phone = await openSocket(app.baseUrl);
     sockets.push(phone);
     const ack: GroupJoinAck = await phone.emitWithAck(EVENTS.groupJoin, { code: run.joinCode.toLowerCase(), nickname: "kelp crew" });
-    expect(ack).toEqual({ ok: false, error: { code: "nickname_taken", message: "Another group in this run is already called “kelp crew”. Choose another nickname." } });
+    expect(ack).toEqual({
+      ok: false,
+      error: { code: "nickname_taken", message: "Another group in this run is already called “kelp crew”. Choose another nickname." },
+    });
   });
 
   it.each([
@@ -128,7 +151,16 @@ describe("recording rolls", () => {
     const ack = await record(group, roll);
     expect(ack).toEqual({ ok: true, id: roll.id, duplicate: false });
     const [stored] = await storedRolls(run.id);
-    expect(stored).toMatchObject({ id: roll.id, groupId: group.state.group.id, tally: 1, matchup: [0, 1], faces: [[5], [3]], totals: [5, 3], winnerSeat: 0, source: "phone" });
+    expect(stored).toMatchObject({
+      id: roll.id,
+      groupId: group.state.group.id,
+      tally: 1,
+      matchup: [0, 1],
+      faces: [[5], [3]],
+      totals: [5, 3],
+      winnerSeat: 0,
+      source: "phone",
+    });
   });
 
   it("stores a retried roll id once and acknowledges every copy, even two copies in the same batch", async () => {
@@ -148,7 +180,13 @@ describe("recording rolls", () => {
     const group = await pupil(run, "Sea Shanties");
     const ack = await record(group, rollOf(group, [[3], [3]]));
     expect(ack).toEqual({ ok: false, error: { code: "bad_faces", message: "3 is not a face of Auk: its faces are 1, 1, 5, 5, 6, 6." } });
-    const shape = await record(group, rollOf(group, [[5, 5], [3, 3]]));
+    const shape = await record(
+      group,
+      rollOf(group, [
+        [5, 5],
+        [3, 3],
+      ]),
+    );
     expect(shape).toMatchObject({ ok: false, error: { code: "wrong_mode" } });
     const other = await record(group, rollOf(group, [[5], [4]], { matchup: [2, 0] }));
     expect(other).toMatchObject({ ok: false, error: { code: "wrong_matchup" } });
@@ -203,7 +241,10 @@ describe("recording rolls", () => {
     expect((await record(group, rollOf(group, [[1], [2]]))).ok).toBe(true);
     await teacher.post(`/api/class-runs/${run.id}/status`, { status: "closed" });
     const closed = await record(group, rollOf(group, [[5], [2]]));
-    expect(closed).toEqual({ ok: false, error: { code: "run_closed", message: "This class run is closed: it takes no more rolls. Thank you for playing!" } });
+    expect(closed).toEqual({
+      ok: false,
+      error: { code: "run_closed", message: "This class run is closed: it takes no more rolls. Thank you for playing!" },
+    });
     expect(await storedRolls(run.id)).toHaveLength(1);
   });
 
@@ -231,8 +272,21 @@ describe("recording rolls", () => {
     if (!resumed.ok) throw new Error(resumed.error.message);
     const twisted = { ...group, state: resumed.state };
     expect((await record(twisted, rollOf(twisted, [[5], [4]]))).ok).toBe(false);
-    expect((await record(twisted, rollOf(twisted, [[5, 1], [4, 7]]))).ok).toBe(true);
-    const tallies = await db.select({ tally: rollTable.tally, dice: rollTable.dicePerPlayer }).from(rollTable).where(eq(rollTable.runId, run.id));
+    expect(
+      (
+        await record(
+          twisted,
+          rollOf(twisted, [
+            [5, 1],
+            [4, 7],
+          ]),
+        )
+      ).ok,
+    ).toBe(true);
+    const tallies = await db
+      .select({ tally: rollTable.tally, dice: rollTable.dicePerPlayer })
+      .from(rollTable)
+      .where(eq(rollTable.runId, run.id));
     expect(tallies).toEqual([{ tally: 2, dice: 2 }]);
   });
 });
@@ -254,7 +308,10 @@ describe("the Run board over socket.io", () => {
     // Groups join at once, so which matchup each got varies: the undone roll is drawn from its own dice.
     const undone = randomRollOf(groups[0], random);
     expect(await record(groups[0], undone)).toMatchObject({ ok: true });
-    expect(await groups[0].socket.emitWithAck(EVENTS.rollUndo, { token: groups[0].token, rollId: undone.id })).toEqual({ ok: true, id: undone.id });
+    expect(await groups[0].socket.emitWithAck(EVENTS.rollUndo, { token: groups[0].token, rollId: undone.id })).toEqual({
+      ok: true,
+      id: undone.id,
+    });
 
     const board = await openSocket(app.baseUrl, await sessionCookie(app.baseUrl, teacherEmail, "a-long-password"));
     sockets.push(board);
@@ -309,13 +366,19 @@ describe("the Run board over socket.io", () => {
     const run = await openRun();
     const anonymous = await openSocket(app.baseUrl);
     sockets.push(anonymous);
-    expect(await anonymous.emitWithAck(EVENTS.boardSnapshot, { runId: run.id })).toMatchObject({ ok: false, error: { code: "unauthenticated" } });
+    expect(await anonymous.emitWithAck(EVENTS.boardSnapshot, { runId: run.id })).toMatchObject({
+      ok: false,
+      error: { code: "unauthenticated" },
+    });
     const other = await createDepartment(app.baseUrl, "socket-other", 0);
     const cookie = await sessionCookie(app.baseUrl, other.headEmail, "a-long-password");
     const stranger = await openSocket(app.baseUrl, cookie);
     sockets.push(stranger);
     expect(await stranger.emitWithAck(EVENTS.boardSnapshot, { runId: run.id })).toMatchObject({ ok: false, error: { code: "not_found" } });
-    expect(await stranger.emitWithAck(EVENTS.boardSnapshot, { runId: uuidv4() })).toMatchObject({ ok: false, error: { code: "not_found" } });
+    expect(await stranger.emitWithAck(EVENTS.boardSnapshot, { runId: uuidv4() })).toMatchObject({
+      ok: false,
+      error: { code: "not_found" },
+    });
   });
 
   it("sends run:phase and run:status to the run's phones", async () => {

@@ -37,7 +37,11 @@ async function openRun(options: Parameters<typeof createLessonFor>[1] = {}) {
 
 describe("opening a class run", () => {
   it("copies the lesson's set, mode, tie rule and the phases it keeps, with a join code from the look-alike-free alphabet", async () => {
-    const run = await openRun({ mode: { dicePerPlayer: 1, players: 2 }, tieRule: "ties-score-half", phases: ["Guess", "Roll", "Prove", "Reflect"] });
+    const run = await openRun({
+      mode: { dicePerPlayer: 1, players: 2 },
+      tieRule: "ties-score-half",
+      phases: ["Guess", "Roll", "Prove", "Reflect"],
+    });
     expect(run).toMatchObject({
       status: "open",
       phase: "Guess",
@@ -84,7 +88,11 @@ describe("opening a class run", () => {
     const listed = response.body.lessons.find((entry: { id: string }) => entry.id === run.lessonId);
     expect(listed).toMatchObject({ diceSetName: "Cliff-top three", problem: null, openRunId: run.id });
     const runs = await owner.get("/api/class-runs");
-    expect(runs.body.runs.find((entry: { id: string }) => entry.id === run.id)).toMatchObject({ status: "open", groupCount: 0, rollCount: 0 });
+    expect(runs.body.runs.find((entry: { id: string }) => entry.id === run.id)).toMatchObject({
+      status: "open",
+      groupCount: 0,
+      rollCount: 0,
+    });
   });
 });
 
@@ -116,7 +124,9 @@ describe("who may see and change a run", () => {
     expect(colleagueView.body.error.message).toBe("This class run belongs to another teacher.");
     expect((await colleague.post(`/api/class-runs/${run.id}/phase`, { phase: "Roll" })).status).toBe(403);
     expect((await elsewhere.head.get(`/api/class-runs/${run.id}`)).status).toBe(404);
-    expect((await elsewhere.teachers[0].agent.post(`/api/class-runs/${run.id}/simulated-groups`, { groups: 1, rollsPerGroup: 5 })).status).toBe(404);
+    expect(
+      (await elsewhere.teachers[0].agent.post(`/api/class-runs/${run.id}/simulated-groups`, { groups: 1, rollsPerGroup: 5 })).status,
+    ).toBe(404);
     const list = await colleague.get("/api/class-runs");
     expect(list.body.runs.some((entry: { id: string }) => entry.id === run.id)).toBe(false);
   });
@@ -150,10 +160,16 @@ describe("status and phases", () => {
     const skipped = await owner.post(`/api/class-runs/${run.id}/phase`, { phase: "Prove" });
     expect(skipped.status).toBe(422);
     expect(skipped.body.error.message).toBe("This lesson skips the Prove phase.");
-    const [group] = await db.insert(runGroup).values({ runId: run.id, nickname: "Cliff Watchers", matchup: [0, 1] }).returning();
+    const [group] = await db
+      .insert(runGroup)
+      .values({ runId: run.id, nickname: "Cliff Watchers", matchup: [0, 1] })
+      .returning();
     const twist = await owner.post(`/api/class-runs/${run.id}/phase`, { phase: "Twist", twist: "three-players" });
     expect(twist.body).toMatchObject({ phase: "Twist", currentTally: 2, players: 3, dicePerPlayer: 1 });
-    expect(twist.body.tallies.map((tally: { tally: number; players: number }) => [tally.tally, tally.players])).toEqual([[1, 2], [2, 3]]);
+    expect(twist.body.tallies.map((tally: { tally: number; players: number }) => [tally.tally, tally.players])).toEqual([
+      [1, 2],
+      [2, 3],
+    ]);
     const [after] = await db.select().from(runGroup).where(eq(runGroup.id, group.id));
     expect(after.matchup).toEqual([0, 1, 2]);
     const back = await owner.post(`/api/class-runs/${run.id}/phase`, { phase: "Pool" });
@@ -164,12 +180,17 @@ describe("status and phases", () => {
 
   it("assigns a group's matchup, checking it fits the mode and the set", async () => {
     const run = await openRun();
-    const [group] = await db.insert(runGroup).values({ runId: run.id, nickname: "Matchup Makers", matchup: [0, 1] }).returning();
+    const [group] = await db
+      .insert(runGroup)
+      .values({ runId: run.id, nickname: "Matchup Makers", matchup: [0, 1] })
+      .returning();
     const assigned = await owner.put(`/api/class-runs/${run.id}/groups/${group.id}/matchup`, { matchup: [2, 0] });
     expect(assigned.status).toBe(200);
     expect(assigned.body.matchup).toEqual([2, 0]);
     expect((await owner.put(`/api/class-runs/${run.id}/groups/${group.id}/matchup`, { matchup: [1, 1] })).status).toBe(400);
-    expect((await owner.put(`/api/class-runs/${run.id}/groups/${group.id}/matchup`, { matchup: [0, 1, 2] })).body.error.code).toBe("wrong_mode");
+    expect((await owner.put(`/api/class-runs/${run.id}/groups/${group.id}/matchup`, { matchup: [0, 1, 2] })).body.error.code).toBe(
+      "wrong_mode",
+    );
     expect((await owner.put(`/api/class-runs/${run.id}/groups/${group.id}/matchup`, { matchup: [0, 5] })).status).toBe(422);
   });
 });
@@ -180,7 +201,11 @@ describe("the virtual class", () => {
     const response = await owner.post(`/api/class-runs/${run.id}/simulated-groups`, { groups: 3, rollsPerGroup: 400, seed: 42 });
     expect(response.status).toBe(201);
     expect(response.body).toMatchObject({ seed: 42, rolls: 1200 });
-    expect(response.body.groups.map((group: { nickname: string }) => group.nickname)).toEqual(["Virtual group 1", "Virtual group 2", "Virtual group 3"]);
+    expect(response.body.groups.map((group: { nickname: string }) => group.nickname)).toEqual([
+      "Virtual group 1",
+      "Virtual group 2",
+      "Virtual group 3",
+    ]);
     const rolls = await db.select().from(rollTable).where(eq(rollTable.runId, run.id));
     expect(rolls).toHaveLength(1200);
     expect(new Set(rolls.map((entry) => entry.source))).toEqual(new Set(["simulated"]));
@@ -196,7 +221,9 @@ describe("the virtual class", () => {
     const same = await openRun({ phases: ["Roll", "Pool"] });
     await owner.post(`/api/class-runs/${same.id}/simulated-groups`, { groups: 3, rollsPerGroup: 400, seed: 42 });
     const repeat = await owner.get(`/api/class-runs/${same.id}/board`);
-    expect(repeat.body.tallies[0].pooled.matchups.map((entry: { seats: unknown }) => entry.seats)).toEqual(tally.pooled.matchups.map((entry: { seats: unknown }) => entry.seats));
+    expect(repeat.body.tallies[0].pooled.matchups.map((entry: { seats: unknown }) => entry.seats)).toEqual(
+      tally.pooled.matchups.map((entry: { seats: unknown }) => entry.seats),
+    );
   });
 
   it("refuses too many simulated rolls at once and any on a closed run", async () => {
@@ -216,8 +243,17 @@ describe("the Roll pad's code lookup", () => {
     const spaced = `${run.joinCode.slice(0, 3).toLowerCase()} ${run.joinCode.slice(3)}`;
     const found = await anonymous.get(`/api/pad/${encodeURIComponent(spaced)}`);
     expect(found.status).toBe(200);
-    expect(found.body).toEqual({ runId: run.id, title: run.title, classGroup: "8K", status: "open", phase: "Guess", joinCode: run.joinCode });
-    expect((await anonymous.get("/api/pad/AB0DEF")).body.error.fields.code).toEqual(["A join code uses letters and the digits 2 to 9 only."]);
+    expect(found.body).toEqual({
+      runId: run.id,
+      title: run.title,
+      classGroup: "8K",
+      status: "open",
+      phase: "Guess",
+      joinCode: run.joinCode,
+    });
+    expect((await anonymous.get("/api/pad/AB0DEF")).body.error.fields.code).toEqual([
+      "A join code uses letters and the digits 2 to 9 only.",
+    ]);
     await owner.post(`/api/class-runs/${run.id}/status`, { status: "closed" });
     const gone = await anonymous.get(`/api/pad/${run.joinCode}`);
     expect(gone.status).toBe(404);
@@ -243,4 +279,3 @@ describe("the demo class run", () => {
     expect(await db.select().from(rollTable).where(eq(rollTable.runId, run.id))).toHaveLength(300);
   });
 });
-

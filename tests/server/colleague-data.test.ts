@@ -48,7 +48,11 @@ describe("a dice set a colleague's lesson uses", () => {
     expect(await db.query.diceSet.findFirst({ where: eq(diceSet.id, set.body.id) })).toBeDefined();
     expect((await db.query.lesson.findFirst({ where: eq(lesson.id, lessonId) }))?.diceSetId).toBe(set.body.id);
     // Taking the set private would cut the colleague off just the same.
-    const madePrivate = await owner.put(`/api/dice-sets/${set.body.id}`, { ...sharedSet("Breakwater trio"), visibility: "private", version: set.body.version });
+    const madePrivate = await owner.put(`/api/dice-sets/${set.body.id}`, {
+      ...sharedSet("Breakwater trio"),
+      visibility: "private",
+      version: set.body.version,
+    });
     expect(madePrivate.status).toBe(409);
     expect(madePrivate.body.error.code).toBe("set_in_use");
   });
@@ -56,7 +60,12 @@ describe("a dice set a colleague's lesson uses", () => {
   it("still deletes a set only the owner's own lessons use", async () => {
     const owner = department.teachers[0].agent;
     const set = await owner.post("/api/dice-sets", sharedSet("Groyne pair"));
-    const own = await owner.post("/api/lessons", { ...emptyLessonInput(), title: "Groyne lesson", classGroup: "8K", diceSetId: set.body.id });
+    const own = await owner.post("/api/lessons", {
+      ...emptyLessonInput(),
+      title: "Groyne lesson",
+      classGroup: "8K",
+      diceSetId: set.body.id,
+    });
     expect(own.status).toBe(201);
     expect((await owner.delete(`/api/dice-sets/${set.body.id}`)).status).toBe(204);
   });
@@ -77,9 +86,14 @@ describe("shelf proposals", () => {
   it("accepts one of several simultaneous proposals of one lesson and refuses the rest", async () => {
     const teacher = department.teachers[0];
     const lessonId = await createLessonFor(teacher.email);
-    const answers = await Promise.all(Array.from({ length: 6 }, () => teacher.agent.post("/api/shelf/proposals", { lessonId, note: "Twice?" })));
+    const answers = await Promise.all(
+      Array.from({ length: 6 }, () => teacher.agent.post("/api/shelf/proposals", { lessonId, note: "Twice?" })),
+    );
     expect(answers.map((answer) => answer.status).sort()).toEqual([201, 409, 409, 409, 409, 409]);
-    const pending = await db.select().from(shelfProposal).where(and(eq(shelfProposal.lessonId, lessonId), eq(shelfProposal.status, "pending")));
+    const pending = await db
+      .select()
+      .from(shelfProposal)
+      .where(and(eq(shelfProposal.lessonId, lessonId), eq(shelfProposal.status, "pending")));
     expect(pending).toHaveLength(1);
   });
 });

@@ -19,10 +19,37 @@ const hostileDice: SetDie[] = [
 ];
 const hostileNicknames = ["-1+1", "-2+3*7", "\tTabs", "\rReturns", "=Crabs", "@Gulls"];
 
-const rollsTextColumns = ["roll_time", "group", "matchup", "die_1", "faces_1", "die_2", "faces_2", "die_3", "faces_3", "outcome", "winning_die", "source", "simulated", "roll_id"];
+const rollsTextColumns = [
+  "roll_time",
+  "group",
+  "matchup",
+  "die_1",
+  "faces_1",
+  "die_2",
+  "faces_2",
+  "die_3",
+  "faces_3",
+  "outcome",
+  "winning_die",
+  "source",
+  "simulated",
+  "roll_id",
+];
 const rollsNumberColumns = ["tally", "dice_per_player", "total_1", "total_2", "total_3"];
 const summaryTextColumns = ["section", "group", "matchup", "first_die", "tie_rule", "exact_fraction", "exact_decimal", "implausible"];
-const summaryNumberColumns = ["dice_per_player", "players", "rolls", "decided_rolls", "first_die_wins", "first_die_ties", "first_die_losses", "relative_frequency", "wilson_95_lower", "wilson_95_upper", "binomial_p_value"];
+const summaryNumberColumns = [
+  "dice_per_player",
+  "players",
+  "rolls",
+  "decided_rolls",
+  "first_die_wins",
+  "first_die_ties",
+  "first_die_losses",
+  "relative_frequency",
+  "wilson_95_lower",
+  "wilson_95_upper",
+  "binomial_p_value",
+];
 
 let app: TestApp;
 let agent: HttpAgent;
@@ -100,7 +127,12 @@ describe("CSV downloads against spreadsheet formula injection", () => {
 
 describe("export correctness", () => {
   it("writes rolls.csv with no empty line after the header, even for a run without rolls", async () => {
-    const empty = await insertFixtureRun(db, { ownerEmail: tomasz.email, title: `E${crypto.randomUUID().slice(0, 6)} No rolls yet`, classGroup: "8K", groups: [] });
+    const empty = await insertFixtureRun(db, {
+      ownerEmail: tomasz.email,
+      title: `E${crypto.randomUUID().slice(0, 6)} No rolls yet`,
+      classGroup: "8K",
+      groups: [],
+    });
     const response = await agent.get(`/api/results/runs/${empty.runId}/rolls.csv`);
     expect(response.text.replace(/^\ufeff/, "")).toBe(`${rollsExportColumns.join(",")}\r\n`);
     const withRolls = await agent.get(`/api/results/runs/${runId}/rolls.csv`);

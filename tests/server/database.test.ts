@@ -77,7 +77,13 @@ describe("health and readiness", () => {
     const app = await startTestApp();
     try {
       const text = await (await fetch(`${app.baseUrl}/metrics`)).text();
-      for (const name of ["outroll_rolls_acknowledged_total", "outroll_roll_ack_seconds_bucket", "outroll_connected_sockets", "outroll_roll_batcher_queue_depth", "outroll_database_pool_connections"]) {
+      for (const name of [
+        "outroll_rolls_acknowledged_total",
+        "outroll_roll_ack_seconds_bucket",
+        "outroll_connected_sockets",
+        "outroll_roll_batcher_queue_depth",
+        "outroll_database_pool_connections",
+      ]) {
         expect(text).toContain(name);
       }
     } finally {

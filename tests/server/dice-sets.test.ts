@@ -126,12 +126,20 @@ describe("dice sets API", () => {
     expect(response.body.error.fields["dice.1.faces.4"]).toEqual(["Face values must be at most 999."]);
 
     const tooMany = sample("Eleven dice");
-    tooMany.dice = Array.from({ length: 11 }, (_, index) => ({ name: `Tern ${index + 1}`, faces: [index, index + 1], colour: "slate", pattern: "waves" }));
+    tooMany.dice = Array.from({ length: 11 }, (_, index) => ({
+      name: `Tern ${index + 1}`,
+      faces: [index, index + 1],
+      colour: "slate",
+      pattern: "waves",
+    }));
     const many = await owner.post("/api/dice-sets", tooMany);
     expect(many.status).toBe(400);
     expect(many.body.error.fields.dice).toEqual(["A dice set can have at most 10 dice."]);
 
-    const badColour = await owner.post("/api/dice-sets", { ...sample("Odd colour"), dice: [{ ...sample("x").dice[0], colour: "magenta" }, sample("x").dice[1]] });
+    const badColour = await owner.post("/api/dice-sets", {
+      ...sample("Odd colour"),
+      dice: [{ ...sample("x").dice[0], colour: "magenta" }, sample("x").dice[1]],
+    });
     expect(badColour.status).toBe(400);
     expect(badColour.body.error.fields["dice.0.colour"][0]).toMatch(/Choose a colour from the palette/);
 
@@ -178,11 +186,24 @@ describe("dice set files", () => {
     const exported = await owner.get(`/api/dice-sets/${set.id}/file`);
     expect(exported.status).toBe(200);
     expect(exported.headers.get("content-disposition")).toMatch(/^attachment; filename="?round-trip-sea-birds\.outroll-dice\.json"?$/);
-    expect(exported.body).toMatchObject({ format: "outroll-dice-set", version: 1, name: set.name, description: set.description, dice: set.dice });
+    expect(exported.body).toMatchObject({
+      format: "outroll-dice-set",
+      version: 1,
+      name: set.name,
+      description: set.description,
+      dice: set.dice,
+    });
 
     const imported = await colleague.post("/api/dice-sets/import", exported.body);
     expect(imported.status).toBe(201);
-    expect(imported.body).toMatchObject({ name: set.name, description: set.description, dice: set.dice, visibility: "private", isOwner: true, version: 1 });
+    expect(imported.body).toMatchObject({
+      name: set.name,
+      description: set.description,
+      dice: set.dice,
+      visibility: "private",
+      isOwner: true,
+      version: 1,
+    });
 
     const asText = await colleague.request("POST", "/api/dice-sets/import", exported.text, { "content-type": "text/plain" });
     expect(asText.status).toBe(201);
@@ -241,13 +262,25 @@ describe("demo dice sets", () => {
     await ada.signIn("ada.okafor@harbourside.test", demoPassword);
     const adaSees = ((await ada.get("/api/dice-sets")).body.sets as DiceSet[]).map((set) => `${set.name} / ${set.ownerName}`);
     expect(adaSees).toEqual(
-      expect.arrayContaining([`${demoDiceSetNames.threeDice} / Tomasz Reid`, `${demoDiceSetNames.reversing} / Tomasz Reid`, `${demoDiceSetNames.fiveDice} / Ada Okafor`]),
+      expect.arrayContaining([
+        `${demoDiceSetNames.threeDice} / Tomasz Reid`,
+        `${demoDiceSetNames.reversing} / Tomasz Reid`,
+        `${demoDiceSetNames.fiveDice} / Ada Okafor`,
+      ]),
     );
     expect(adaSees).not.toContain("Gull starter (four faces) / Tomasz Reid");
     const tomasz = new HttpAgent(app.baseUrl);
     await tomasz.signIn("tomasz.reid@harbourside.test", demoPassword);
-    const own = ((await tomasz.get("/api/dice-sets")).body.sets as DiceSet[]).filter((set) => set.isOwner).map((set) => `${set.name} (${set.visibility})`);
-    expect(own).toEqual(expect.arrayContaining([`${demoDiceSetNames.threeDice} (department)`, `${demoDiceSetNames.reversing} (department)`, "Gull starter (four faces) (private)"]));
+    const own = ((await tomasz.get("/api/dice-sets")).body.sets as DiceSet[])
+      .filter((set) => set.isOwner)
+      .map((set) => `${set.name} (${set.visibility})`);
+    expect(own).toEqual(
+      expect.arrayContaining([
+        `${demoDiceSetNames.threeDice} (department)`,
+        `${demoDiceSetNames.reversing} (department)`,
+        "Gull starter (four faces) (private)",
+      ]),
+    );
   });
 
   it("seeds nothing twice", async () => {

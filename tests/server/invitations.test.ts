@@ -117,7 +117,13 @@ describe("an invitation by e-mail", () => {
     const visitor = new HttpAgent(app.baseUrl);
     const preview = await visitor.get(`/api/invitations/${id}/preview`);
     expect(preview.status).toBe(200);
-    expect(preview.body).toMatchObject({ email, departmentName: "Maths, invite-ours School", inviterName: "Rowan Head", state: "pending", hasAccount: false });
+    expect(preview.body).toMatchObject({
+      email,
+      departmentName: "Maths, invite-ours School",
+      inviterName: "Rowan Head",
+      state: "pending",
+      hasAccount: false,
+    });
 
     const signUp = await visitor.post("/api/auth/sign-up/email", { name: "Kit Marsh", email, password: "a-long-password" });
     expect(signUp.status).toBe(200);
@@ -151,7 +157,10 @@ describe("an invitation by e-mail", () => {
     const email = uniqueEmail("late");
     await invite(ours.head, email);
     const { id } = await invitationIdFromMail(email);
-    await db.update(invitation).set({ expiresAt: new Date(Date.now() - 60_000) }).where(eq(invitation.id, id));
+    await db
+      .update(invitation)
+      .set({ expiresAt: new Date(Date.now() - 60_000) })
+      .where(eq(invitation.id, id));
 
     const late = new HttpAgent(app.baseUrl);
     await late.post("/api/auth/sign-up/email", { name: "Late Comer", email, password: "a-long-password" });

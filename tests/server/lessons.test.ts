@@ -61,7 +61,11 @@ function pngBytes(): Buffer {
 const pdfBytes = () => Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n", "latin1");
 // JPEG starts with SOI FF D8 and an APP0 "JFIF" segment (ITU-T T.81 / JFIF 1.02).
 const jpegBytes = () =>
-  Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01, 0x01, 0x00, 0x00, 0x01, 0x00, 0x01, 0x00, 0x00]), Buffer.alloc(64), Buffer.from([0xff, 0xd9])]);
+  Buffer.concat([
+    Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01, 0x01, 0x00, 0x00, 0x01, 0x00, 0x01, 0x00, 0x00]),
+    Buffer.alloc(64),
+    Buffer.from([0xff, 0xd9]),
+  ]);
 
 function form(bytes: Buffer, fileName: string, claimedType: string) {
   const data = new FormData();
@@ -78,7 +82,9 @@ beforeAll(async () => {
   };
   const outsider = new HttpAgent(app.baseUrl);
   const outsiderEmail = uniqueEmail("other-department");
-  expect((await outsider.post("/api/auth/sign-up/email", { name: "Morwenna Pike", email: outsiderEmail, password: "a-long-password" })).status).toBe(200);
+  expect(
+    (await outsider.post("/api/auth/sign-up/email", { name: "Morwenna Pike", email: outsiderEmail, password: "a-long-password" })).status,
+  ).toBe(200);
   const outsiderDepartment = await outsider.post("/api/departments", { name: "Maths, Saltmarsh School" });
   expect(outsiderDepartment.status).toBe(201);
   agents = {
@@ -158,7 +164,9 @@ describe("lesson routes: the role matrix", () => {
       expect((await agent.post(`${url}/duplicate`, {})).status, `${who} duplicates`).toBe(codes.write);
       expect((await agent.post(`${url}/archive`, { archived: true })).status, `${who} archives`).toBe(codes.write);
       expect((await agent.delete(url)).status, `${who} deletes`).toBe(codes.write);
-      expect((await agent.postForm(`${url}/attachments`, form(pngBytes(), "grid.png", "image/png"))).status, `${who} uploads`).toBe(codes.write);
+      expect((await agent.postForm(`${url}/attachments`, form(pngBytes(), "grid.png", "image/png"))).status, `${who} uploads`).toBe(
+        codes.write,
+      );
     }
     const stored = await agents.owner.get(url);
     expect(stored.body.lesson).toMatchObject({ title: "Role matrix lesson", version: 1, archivedAt: null, isOwner: true });
@@ -174,7 +182,10 @@ describe("lesson routes: the role matrix", () => {
     for (const [who, agent] of Object.entries({ head: agents.head, colleague: agents.colleague, outsider: agents.outsider })) {
       const list = await agent.get("/api/lessons");
       expect(list.status).toBe(200);
-      expect(list.body.lessons.map((entry: { id: string }) => entry.id), who).not.toContain(mine.id);
+      expect(
+        list.body.lessons.map((entry: { id: string }) => entry.id),
+        who,
+      ).not.toContain(mine.id);
     }
     const own = await agents.owner.get("/api/lessons");
     expect(own.body.lessons.map((entry: { id: string }) => entry.id)).toContain(mine.id);
@@ -248,7 +259,10 @@ describe("creating and editing lessons", () => {
   });
 
   it("refuses an unknown curriculum code", async () => {
-    const response = await agents.owner.post("/api/lessons", lessonInput({ objectives: [{ text: "x", curriculumCode: "7.SP.Z.9" as "7.SP.C.5" }] }));
+    const response = await agents.owner.post(
+      "/api/lessons",
+      lessonInput({ objectives: [{ text: "x", curriculumCode: "7.SP.Z.9" as "7.SP.C.5" }] }),
+    );
     expect(response.status).toBe(400);
     expect(response.body.error.fields["objectives.0.curriculumCode"]).toBeDefined();
   });
@@ -257,7 +271,12 @@ describe("creating and editing lessons", () => {
 describe("the Lessons list, duplicate, archive and delete", () => {
   it("filters by search text, set, class and status, and hides archived lessons unless asked", async () => {
     const tag = crypto.randomUUID().slice(0, 6);
-    const a = await createLessonAs(agents.owner, { title: `Filter ${tag} alpha`, classGroup: "8K", status: "draft", diceSetId: sets.ownPrivate });
+    const a = await createLessonAs(agents.owner, {
+      title: `Filter ${tag} alpha`,
+      classGroup: "8K",
+      status: "draft",
+      diceSetId: sets.ownPrivate,
+    });
     const b = await createLessonAs(agents.owner, { title: `Filter ${tag} beta`, classGroup: "9M", status: "taught" });
     const c = await createLessonAs(agents.owner, { title: `Filter ${tag} gamma_%`, classGroup: "9M", status: "taught" });
     expect((await agents.owner.post(`/api/lessons/${c.id}/archive`, { archived: true })).status).toBe(200);
@@ -280,10 +299,21 @@ describe("the Lessons list, duplicate, archive and delete", () => {
   });
 
   it("duplicates a lesson as a new draft titled as a copy", async () => {
-    const source = await createLessonAs(agents.owner, { title: "Original plan", status: "taught", rollsPerGroup: 44, diceSetId: sets.ownPrivate });
+    const source = await createLessonAs(agents.owner, {
+      title: "Original plan",
+      status: "taught",
+      rollsPerGroup: 44,
+      diceSetId: sets.ownPrivate,
+    });
     const response = await agents.owner.post(`/api/lessons/${source.id}/duplicate`, {});
     expect(response.status).toBe(201);
-    expect(response.body.lesson).toMatchObject({ title: "Original plan (copy)", status: "draft", rollsPerGroup: 44, diceSetId: sets.ownPrivate, version: 1 });
+    expect(response.body.lesson).toMatchObject({
+      title: "Original plan (copy)",
+      status: "draft",
+      rollsPerGroup: 44,
+      diceSetId: sets.ownPrivate,
+      version: 1,
+    });
     expect(response.body.lesson.id).not.toBe(source.id);
   });
 
@@ -367,7 +397,12 @@ describe("attachments", () => {
     for (const entry of cases) {
       const response = await agents.owner.postForm(`/api/lessons/${lessonId}/attachments`, form(entry.bytes, entry.name, entry.claimed));
       expect(response.status, response.text).toBe(201);
-      expect(response.body.attachment).toMatchObject({ fileName: entry.name, mimeType: entry.type, sizeBytes: entry.bytes.length, uploadedByName: ownerAccount.name });
+      expect(response.body.attachment).toMatchObject({
+        fileName: entry.name,
+        mimeType: entry.type,
+        sizeBytes: entry.bytes.length,
+        uploadedByName: ownerAccount.name,
+      });
     }
     const rows = await attachmentRows();
     expect(rows.map((row) => row.mimeType).sort()).toEqual(["application/pdf", "image/jpeg", "image/png"]);
@@ -377,7 +412,10 @@ describe("attachments", () => {
   });
 
   it("serves an attachment's bytes to members of the lesson's department only, with safe headers", async () => {
-    const upload = await agents.owner.postForm(`/api/lessons/${lessonId}/attachments`, form(pngBytes(), "Tide table ‘8K’.png", "image/png"));
+    const upload = await agents.owner.postForm(
+      `/api/lessons/${lessonId}/attachments`,
+      form(pngBytes(), "Tide table ‘8K’.png", "image/png"),
+    );
     const url = `/api/lessons/${lessonId}/attachments/${upload.body.attachment.id}`;
     for (const member of [agents.owner, agents.colleague, agents.head]) {
       const response = await member.get(url);
@@ -396,7 +434,10 @@ describe("attachments", () => {
   });
 
   it("lets only the owner delete an attachment, removing its row and file", async () => {
-    const upload = await agents.owner.postForm(`/api/lessons/${lessonId}/attachments`, form(pdfBytes(), "to-remove.pdf", "application/pdf"));
+    const upload = await agents.owner.postForm(
+      `/api/lessons/${lessonId}/attachments`,
+      form(pdfBytes(), "to-remove.pdf", "application/pdf"),
+    );
     const url = `/api/lessons/${lessonId}/attachments/${upload.body.attachment.id}`;
     const [row] = await db.select().from(lessonAttachment).where(eq(lessonAttachment.id, upload.body.attachment.id));
     expect((await agents.head.delete(url)).status).toBe(403);

@@ -1,7 +1,14 @@
 import { and, eq, isNull, sql } from "drizzle-orm";
 import { io as connect, type Socket } from "socket.io-client";
 import { afterAll, describe, expect, it } from "vitest";
-import { decodeBoardUpdate, EVENTS, type BoardSnapshotAck, type BoardUpdateMessage, type GroupJoinAck, type PadState } from "@shared/events";
+import {
+  decodeBoardUpdate,
+  EVENTS,
+  type BoardSnapshotAck,
+  type BoardUpdateMessage,
+  type GroupJoinAck,
+  type PadState,
+} from "@shared/events";
 import { mulberry32 } from "@shared/probability/index";
 import { keyValueOutboxStore, recordOperation, RollOutbox } from "../../src/features/class-runs/delivery/roll-outbox";
 import { socketOutboxTransport } from "../../src/features/class-runs/delivery/socket-transport";
@@ -65,7 +72,12 @@ describe("two app processes behind nginx on one PostgreSQL", () => {
       const run = opened.body;
 
       // The Run board watches through process A only; most pupils' rolls reach it through the other process.
-      const board = connect(apps[0].url, { transports: ["websocket"], forceNew: true, reconnectionDelay: 200, extraHeaders: { cookie: await sessionCookie(origin, teacher.email, "a-long-password") } });
+      const board = connect(apps[0].url, {
+        transports: ["websocket"],
+        forceNew: true,
+        reconnectionDelay: 200,
+        extraHeaders: { cookie: await sessionCookie(origin, teacher.email, "a-long-password") },
+      });
       sockets.push(board);
       let boardRolls = -1;
       const watch = async () => {
@@ -87,8 +99,15 @@ describe("two app processes behind nginx on one PostgreSQL", () => {
         const ack: GroupJoinAck = await socket.emitWithAck(EVENTS.groupJoin, { code: run.joinCode, nickname: `Harbour ${index + 1}` });
         if (!ack.ok) throw new Error(ack.error.message);
         const memory = new Map<string, string>();
-        const store = keyValueOutboxStore({ getItem: (key) => memory.get(key) ?? null, setItem: (key, value) => void memory.set(key, value) }, "outbox");
-        const outbox = new RollOutbox(store, socketOutboxTransport(socket, () => ack.token, 2_000), { maxInFlight: 4, retryDelayMs: 300 });
+        const store = keyValueOutboxStore(
+          { getItem: (key) => memory.get(key) ?? null, setItem: (key, value) => void memory.set(key, value) },
+          "outbox",
+        );
+        const outbox = new RollOutbox(
+          store,
+          socketOutboxTransport(socket, () => ack.token, 2_000),
+          { maxInFlight: 4, retryDelayMs: 300 },
+        );
         socket.on("connect", () => outbox.flush());
         const source = mulberry32(500 + index);
         phones.push({ socket, state: ack.state, outbox, recorded: [], random: () => source() / 2 ** 32 });
@@ -102,8 +121,16 @@ describe("two app processes behind nginx on one PostgreSQL", () => {
       const recorders = phones.map(async (phone) => {
         const { run: padRun, group } = phone.state;
         while (recording) {
-          const faces = group.matchup!.map((dieIndex) => [padRun.dice[dieIndex].faces[Math.floor(phone.random() * padRun.dice[dieIndex].faces.length)]]);
-          const roll = { id: crypto.randomUUID(), tally: padRun.tally, matchup: group.matchup!, faces, recordedAt: new Date().toISOString() };
+          const faces = group.matchup!.map((dieIndex) => [
+            padRun.dice[dieIndex].faces[Math.floor(phone.random() * padRun.dice[dieIndex].faces.length)],
+          ]);
+          const roll = {
+            id: crypto.randomUUID(),
+            tally: padRun.tally,
+            matchup: group.matchup!,
+            faces,
+            recordedAt: new Date().toISOString(),
+          };
           phone.recorded.push(roll.id);
           phone.outbox.add(recordOperation(roll));
           await sleep(350);
@@ -112,7 +139,12 @@ describe("two app processes behind nginx on one PostgreSQL", () => {
 
       await sleep(2_000);
       const countRolls = async () =>
-        (await cluster!.db.select({ count: sql<number>`count(*)::int` }).from(rollTable).where(and(eq(rollTable.runId, run.id), isNull(rollTable.undoneAt))))[0].count;
+        (
+          await cluster!.db
+            .select({ count: sql<number>`count(*)::int` })
+            .from(rollTable)
+            .where(and(eq(rollTable.runId, run.id), isNull(rollTable.undoneAt)))
+        )[0].count;
       const beforeKill = await countRolls();
       apps[1].child.kill("SIGKILL");
       await new Promise((resolve) => apps[1].child.once("exit", resolve));
@@ -132,14 +164,24 @@ describe("two app processes behind nginx on one PostgreSQL", () => {
       }
 
       const recorded = phones.flatMap((phone) => phone.recorded);
-      const stored = await cluster.db.select({ id: rollTable.id, groupId: rollTable.groupId }).from(rollTable).where(eq(rollTable.runId, run.id));
-      console.log(`two-process fault test: ${recorded.length} rolls recorded, ${beforeKill} stored before the kill, ${beforeRestart} before the PostgreSQL restart`);
+      const stored = await cluster.db
+        .select({ id: rollTable.id, groupId: rollTable.groupId })
+        .from(rollTable)
+        .where(eq(rollTable.runId, run.id));
+      console.log(
+        `two-process fault test: ${recorded.length} rolls recorded, ${beforeKill} stored before the kill, ${beforeRestart} before the PostgreSQL restart`,
+      );
       expect(beforeKill).toBeGreaterThan(0);
       expect(beforeRestart).toBeGreaterThan(beforeKill);
       expect(stored).toHaveLength(recorded.length);
       expect(new Set(stored.map((row) => row.id))).toEqual(new Set(recorded));
       for (const phone of phones) {
-        expect(stored.filter((row) => row.groupId === phone.state.group.id).map((row) => row.id).sort()).toEqual([...phone.recorded].sort());
+        expect(
+          stored
+            .filter((row) => row.groupId === phone.state.group.id)
+            .map((row) => row.id)
+            .sort(),
+        ).toEqual([...phone.recorded].sort());
       }
       // Process A was never restarted by hand: it came through the PostgreSQL restart by itself.
       expect(apps[0].child.exitCode).toBeNull();

@@ -2,7 +2,15 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { decodeBoardUpdate, EVENTS, type BoardSnapshotAck, type BoardUpdateMessage, type RollRecordAck } from "@shared/events";
 import type { SetFinderJob, SetFinderRequestInput, SetFinderSearchSummary } from "@shared/schemas/set-finder";
 import { freePort, sleep, startAppProcess, stopAppProcess, waitUntilReady, type AppProcess } from "../helpers/app-cluster";
-import { createLessonFor, joinAsPupil, openSocket, randomRollOf, record, sessionCookie, type TestPupil } from "../helpers/class-run-fixtures";
+import {
+  createLessonFor,
+  joinAsPupil,
+  openSocket,
+  randomRollOf,
+  record,
+  sessionCookie,
+  type TestPupil,
+} from "../helpers/class-run-fixtures";
 import { signUpAgent } from "../helpers/department-fixtures";
 import { HttpAgent } from "../helpers/test-app";
 
@@ -14,7 +22,11 @@ const ROLL_BURST = 10;
 const cleanups: (() => void)[] = [];
 
 beforeAll(async () => {
-  const settings = { SIGN_IN_LIMIT_PER_MINUTE: String(SIGN_IN_LIMIT), ROLL_BURST_PER_GROUP: String(ROLL_BURST), ROLL_RATE_PER_GROUP: "0.25" };
+  const settings = {
+    SIGN_IN_LIMIT_PER_MINUTE: String(SIGN_IN_LIMIT),
+    ROLL_BURST_PER_GROUP: String(ROLL_BURST),
+    ROLL_RATE_PER_GROUP: "0.25",
+  };
   const [portA, portB] = [await freePort(), await freePort()];
   a = startAppProcess(portA, process.env.DATABASE_URL!, `http://127.0.0.1:${portA}`, settings);
   b = startAppProcess(portB, process.env.DATABASE_URL!, `http://127.0.0.1:${portB}`, settings);
@@ -153,7 +165,10 @@ describe("several app processes on one database", () => {
     b.child.kill("SIGTERM");
     const readiness: number[] = [];
     for (let index = 0; index < 5; index += 1) {
-      const answer = await fetch(`${b.url}/api/ready`).then((response) => response.status, () => 0);
+      const answer = await fetch(`${b.url}/api/ready`).then(
+        (response) => response.status,
+        () => 0,
+      );
       readiness.push(answer);
       if (answer !== 200) break;
       await sleep(20);
@@ -166,7 +181,15 @@ describe("several app processes on one database", () => {
     expect(readiness.at(-1)).not.toBe(200);
     const { roll: rollTable } = await import("../../server/db/schema/index");
     const { inArray } = await import("drizzle-orm");
-    const stored = await db.select({ id: rollTable.id }).from(rollTable).where(inArray(rollTable.id, rolls.map((roll) => roll.id)));
+    const stored = await db
+      .select({ id: rollTable.id })
+      .from(rollTable)
+      .where(
+        inArray(
+          rollTable.id,
+          rolls.map((roll) => roll.id),
+        ),
+      );
     expect(stored).toHaveLength(3);
   });
 });

@@ -30,8 +30,7 @@ describe("the privacy notice's settings", () => {
     const { auth } = await import("../../server/auth");
     expect(auth.options.session?.expiresIn).toBe(SESSION_DAYS * 24 * 60 * 60);
     const organization = auth.options.plugins?.find((plugin) => plugin.id === "organization") as
-      | { options?: { invitationExpiresIn?: number } }
-      | undefined;
+      { options?: { invitationExpiresIn?: number } } | undefined;
     expect(organization?.options?.invitationExpiresIn).toBe(INVITATION_DAYS * 24 * 60 * 60);
   });
 

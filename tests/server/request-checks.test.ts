@@ -31,7 +31,13 @@ const diceSetInput = (name: string) => ({
 
 /** A socket.io handshake with chosen headers; answers "connected" or the refusal's message. */
 function handshake(headers: Record<string, string>): Promise<string> {
-  const socket = connect(app.baseUrl, { path: "/socket.io", transports: ["websocket"], forceNew: true, reconnection: false, extraHeaders: headers });
+  const socket = connect(app.baseUrl, {
+    path: "/socket.io",
+    transports: ["websocket"],
+    forceNew: true,
+    reconnection: false,
+    extraHeaders: headers,
+  });
   return new Promise((resolve) => {
     socket.once("connect", () => {
       socket.disconnect();
@@ -64,7 +70,14 @@ beforeAll(async () => {
   app = await startTestApp();
   tomaszAgent = new HttpAgent(app.baseUrl);
   await tomaszAgent.signIn(tomasz.email, demoPassword);
-  paperRun = (await insertFixtureRun(db, { ownerEmail: tomasz.email, title: `Q${crypto.randomUUID().slice(0, 6)} Paper run`, classGroup: "8K", groups: [] })).runId;
+  paperRun = (
+    await insertFixtureRun(db, {
+      ownerEmail: tomasz.email,
+      title: `Q${crypto.randomUUID().slice(0, 6)} Paper run`,
+      classGroup: "8K",
+      groups: [],
+    })
+  ).runId;
   const lessonId = await createLessonFor(tomasz.email);
   const opened = await tomaszAgent.post("/api/class-runs", { lessonId });
   expect(opened.status).toBe(201);
@@ -86,11 +99,18 @@ describe("requests from another origin", () => {
     });
     expect(plainText.status).toBe(403);
     for (const site of ["same-site", "cross-site"]) {
-      const byMetadata = await tomaszAgent.request("POST", "/api/dice-sets", diceSetInput("Fetch metadata set"), { "sec-fetch-site": site });
+      const byMetadata = await tomaszAgent.request("POST", "/api/dice-sets", diceSetInput("Fetch metadata set"), {
+        "sec-fetch-site": site,
+      });
       expect(byMetadata.status).toBe(403);
       expect(byMetadata.body.error.code).toBe("cross_origin");
     }
-    const signIn = await new HttpAgent(app.baseUrl).request("POST", "/api/auth/sign-in/email", { email: tomasz.email, password: demoPassword }, { origin: otherOrigin });
+    const signIn = await new HttpAgent(app.baseUrl).request(
+      "POST",
+      "/api/auth/sign-in/email",
+      { email: tomasz.email, password: demoPassword },
+      { origin: otherOrigin },
+    );
     expect(signIn.status).toBe(403);
     expect(signIn.body.error.code).toBe("cross_origin");
   });
@@ -122,7 +142,11 @@ describe("text the database cannot store", () => {
       await tomaszAgent.post("/api/dice-sets", diceSetInput("Null\u0000 set")),
       await tomaszAgent.post("/api/dice-sets/import", { ...diceSetInput("Import\u0000"), format: "outroll-dice-set", version: 1 }),
       await tomaszAgent.get("/api/results/runs?lesson=a%00b"),
-      await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", { name: "Nul\u0000 Teacher", email: `nul-${crypto.randomUUID().slice(0, 6)}@outroll-tests.test`, password: "tidal-pool-lantern-42" }),
+      await new HttpAgent(app.baseUrl).post("/api/auth/sign-up/email", {
+        name: "Nul\u0000 Teacher",
+        email: `nul-${crypto.randomUUID().slice(0, 6)}@outroll-tests.test`,
+        password: "tidal-pool-lantern-42",
+      }),
     ];
     for (const response of cases) {
       expect(response.status, response.text).toBe(400);
@@ -153,9 +177,14 @@ describe("uploads", () => {
     expect(response.body.error.code).toBe("invalid_input");
     expect(response.body.error.message).toMatch(/cut off/);
     const lessonId = await createLessonFor(tomasz.email);
-    const attachment = await tomaszAgent.request("POST", `/api/lessons/${lessonId}/attachments`, body.replace("sheets.csv", "worksheet.pdf"), {
-      "content-type": `multipart/form-data; boundary=${boundary}`,
-    });
+    const attachment = await tomaszAgent.request(
+      "POST",
+      `/api/lessons/${lessonId}/attachments`,
+      body.replace("sheets.csv", "worksheet.pdf"),
+      {
+        "content-type": `multipart/form-data; boundary=${boundary}`,
+      },
+    );
     expect(attachment.status).toBe(400);
     expect(attachment.body.error.code).toBe("invalid_input");
   });
@@ -171,7 +200,10 @@ describe("uploads", () => {
       const response = await tomaszAgent.postForm(`/api/results/runs/${paperRun}/paper-import/preview`, csvUpload(bytes));
       expect(response.status, response.text).toBe(200);
       expect(response.body.errors).toEqual([]);
-      expect(response.body.rows.map((row: { group: string; rollNumber: number }) => `${row.group} ${row.rollNumber}`)).toEqual(["Puffins 1", "Puffins 2"]);
+      expect(response.body.rows.map((row: { group: string; rollNumber: number }) => `${row.group} ${row.rollNumber}`)).toEqual([
+        "Puffins 1",
+        "Puffins 2",
+      ]);
     }
   });
 

@@ -55,7 +55,11 @@ beforeAll(async () => {
     await agents[key].signIn(email, demoPassword);
   }
   agents.outsider = new HttpAgent(app.baseUrl);
-  await agents.outsider.post("/api/auth/sign-up/email", { name: "Wren Calder", email: uniqueEmail("results-outsider"), password: "a-long-password" });
+  await agents.outsider.post("/api/auth/sign-up/email", {
+    name: "Wren Calder",
+    email: uniqueEmail("results-outsider"),
+    password: "a-long-password",
+  });
   expect((await agents.outsider.post("/api/departments", { name: "Maths, Saltmarsh School" })).status).toBe(201);
   agents.signedOut = new HttpAgent(app.baseUrl);
 
@@ -130,7 +134,13 @@ describe("Results archive", () => {
     expect(main.rollCount).toBe(40 - 3 + 35 + 30 - 1 + 25);
     expect(main.simulatedRollCount).toBe(25);
     expect(main.groupCount).toBe(4);
-    expect(main).toMatchObject({ classGroup: "8K", diceSetName: "Skerry trio", dieNames: ["Skua", "Tern", "Gannet"], isOwner: true, recordedOn: "phones" });
+    expect(main).toMatchObject({
+      classGroup: "8K",
+      diceSetName: "Skerry trio",
+      dieNames: ["Skua", "Tern", "Gannet"],
+      isOwner: true,
+      recordedOn: "phones",
+    });
   });
 
   it("filters by class, set and dates, and sorts by rolls either way", async () => {
@@ -219,7 +229,9 @@ describe("exports", () => {
     const response = await agents.tomasz.get(`/api/results/runs/${mainRun}/rolls.csv`);
     expect(response.status).toBe(200);
     expect(response.headers.get("content-type")).toBe("text/csv; charset=utf-8");
-    expect(response.headers.get("content-disposition")).toContain(`filename="${marker.toLowerCase()}-no-best-die-skerry-trio_8k_2026-03-12_rolls.csv"`);
+    expect(response.headers.get("content-disposition")).toContain(
+      `filename="${marker.toLowerCase()}-no-best-die-skerry-trio_8k_2026-03-12_rolls.csv"`,
+    );
     const parsed = csvRows(response.text);
     expect(parsed.meta.fields).toEqual([...rollsExportColumns]);
     expect(parsed.data).toHaveLength(await liveRolls(mainRun));
@@ -310,7 +322,7 @@ describe("Paper import", () => {
   const goodRows = [
     ["Puffins", "1", "Skua", "10", "Tern", "9"],
     ["Puffins", "2", "Skua", "1", "Tern", "18"],
-    ["Gulls, \"the loud ones\"", "1", "Tern", "11", "Gannet", "14"],
+    ['Gulls, "the loud ones"', "1", "Tern", "11", "Gannet", "14"],
     ["puffins", "3", "Tern", "4", "Skua", "12"],
   ].map((row) => row.map((cell) => (cell.includes(",") ? `"${cell.replace(/"/g, '""')}"` : cell)));
 
@@ -320,7 +332,13 @@ describe("Paper import", () => {
     expect(preview.status).toBe(200);
     expect(preview.body).toMatchObject({ errors: [], newRows: 4, duplicateRows: 0, newGroups: [], imported: false });
     expect(preview.body.rows.map((row: { row: number }) => row.row)).toEqual([2, 3, 4, 5]);
-    expect(preview.body.rows[0]).toMatchObject({ group: "Puffins", dieNames: ["Skua", "Tern"], faces: [[10], [9]], winner: "Skua", status: "new" });
+    expect(preview.body.rows[0]).toMatchObject({
+      group: "Puffins",
+      dieNames: ["Skua", "Tern"],
+      faces: [[10], [9]],
+      winner: "Skua",
+      status: "new",
+    });
     expect(preview.body.rows[3].group).toBe("Puffins");
     expect(await liveRolls(mainRun)).toBe(before);
 
@@ -328,7 +346,10 @@ describe("Paper import", () => {
     expect(commit.status).toBe(201);
     expect(commit.body).toMatchObject({ imported: true, newRows: 4, duplicateRows: 0 });
     expect(await liveRolls(mainRun)).toBe(before + 4);
-    const paperRows = await db.select({ n: count() }).from(roll).where(and(eq(roll.runId, mainRun), eq(roll.source, "paper")));
+    const paperRows = await db
+      .select({ n: count() })
+      .from(roll)
+      .where(and(eq(roll.runId, mainRun), eq(roll.source, "paper")));
     expect(paperRows[0].n).toBe(4);
 
     const again = await agents.tomasz.postForm(`/api/results/runs/${mainRun}/paper-import`, csvForm(sheet(goodRows)));
@@ -388,17 +409,32 @@ describe("Paper import", () => {
   });
 
   it("creates groups that are new only when the teacher ticks the box", async () => {
-    const rows = [["Herons", "1", "Skua", "10", "Tern", "9"], ["Herons", "2", "Gannet", "17", "Skua", "15"]];
+    const rows = [
+      ["Herons", "1", "Skua", "10", "Tern", "9"],
+      ["Herons", "2", "Gannet", "17", "Skua", "15"],
+    ];
     const refused = await agents.tomasz.postForm(`/api/results/runs/${secondRun}/paper-import/preview`, csvForm(sheet(rows)));
     expect(refused.body.errors).toHaveLength(2);
-    const preview = await agents.tomasz.postForm(`/api/results/runs/${secondRun}/paper-import/preview`, csvForm(sheet(rows), { createGroups: true }));
+    const preview = await agents.tomasz.postForm(
+      `/api/results/runs/${secondRun}/paper-import/preview`,
+      csvForm(sheet(rows), { createGroups: true }),
+    );
     // The second run names its dice differently; these names are the first run's, so they are refused there.
     expect(preview.body.errors.map((entry: { row: number }) => entry.row)).toEqual([2, 3]);
-    const named = [["Herons", "1", "Great skua", "10", "Arctic tern", "9"], ["Herons", "2", "Northern gannet", "17", "great skua", "15"]];
-    const commit = await agents.tomasz.postForm(`/api/results/runs/${secondRun}/paper-import`, csvForm(sheet(named), { createGroups: true }));
+    const named = [
+      ["Herons", "1", "Great skua", "10", "Arctic tern", "9"],
+      ["Herons", "2", "Northern gannet", "17", "great skua", "15"],
+    ];
+    const commit = await agents.tomasz.postForm(
+      `/api/results/runs/${secondRun}/paper-import`,
+      csvForm(sheet(named), { createGroups: true }),
+    );
     expect(commit.status).toBe(201);
     expect(commit.body).toMatchObject({ newRows: 2, newGroups: ["Herons"] });
-    const [group] = await db.select().from(runGroup).where(and(eq(runGroup.runId, secondRun), eq(runGroup.nickname, "Herons")));
+    const [group] = await db
+      .select()
+      .from(runGroup)
+      .where(and(eq(runGroup.runId, secondRun), eq(runGroup.nickname, "Herons")));
     expect(group.source).toBe("paper");
   });
 
@@ -440,7 +476,14 @@ describe("Paper import", () => {
       .orderBy(roll.tally);
     expect(paper).toEqual([
       { tally: 1, dicePerPlayer: 1, faces: [[10], [9]] },
-      { tally: 2, dicePerPlayer: 2, faces: [[10, 15], [9, 4]] },
+      {
+        tally: 2,
+        dicePerPlayer: 2,
+        faces: [
+          [10, 15],
+          [9, 4],
+        ],
+      },
     ]);
     const noSuchTally = await agents.tomasz.postForm(`/api/results/runs/${twisted}/paper-import/preview`, form(oneDie, "3"));
     expect(noSuchTally.status).toBe(422);
@@ -457,17 +500,26 @@ describe("Paper import", () => {
     expect(xlsx.status).toBe(415);
     expect(xlsx.body.error.message).toContain("not CSV");
 
-    const headerless = await agents.tomasz.postForm(`/api/results/runs/${mainRun}/paper-import/preview`, csvForm("Puffins,1,Skua,10,Tern,9\r\n"));
+    const headerless = await agents.tomasz.postForm(
+      `/api/results/runs/${mainRun}/paper-import/preview`,
+      csvForm("Puffins,1,Skua,10,Tern,9\r\n"),
+    );
     expect(headerless.status).toBe(422);
     expect(headerless.body.error.message).toContain("not part of the Paper import format");
 
-    const huge = await agents.tomasz.postForm(`/api/results/runs/${mainRun}/paper-import/preview`, csvForm(sheet([]) + "\r\n" + "x".repeat(600 * 1024)));
+    const huge = await agents.tomasz.postForm(
+      `/api/results/runs/${mainRun}/paper-import/preview`,
+      csvForm(sheet([]) + "\r\n" + "x".repeat(600 * 1024)),
+    );
     expect(huge.status).toBe(413);
 
     const missing = new FormData();
     missing.set("createGroups", "false");
     expect((await agents.tomasz.postForm(`/api/results/runs/${mainRun}/paper-import/preview`, missing)).body.error.code).toBe("no_file");
-    expect((await agents.tomasz.postForm(`/api/results/runs/${mainRun}/paper-import/preview`, csvForm(sheet(goodRows), { name: "sheets.pdf" }))).status).toBe(415);
+    expect(
+      (await agents.tomasz.postForm(`/api/results/runs/${mainRun}/paper-import/preview`, csvForm(sheet(goodRows), { name: "sheets.pdf" })))
+        .status,
+    ).toBe(415);
   });
 
   it("makes a closed paper run from one of the teacher's lessons and imports into it", async () => {
@@ -476,29 +528,62 @@ describe("Paper import", () => {
       .insert(diceSet)
       .values({ ownerId: owner.id, departmentId: owner.departmentId, name: `${marker} Skerry trio`, dice: testDice })
       .returning({ id: diceSet.id });
-    const input = { ...emptyLessonInput(), title: `${marker} Paper lesson`, classGroup: "8K", diceSetId: set.id, mode: { dicePerPlayer: 1 as const, players: 2 as const } };
+    const input = {
+      ...emptyLessonInput(),
+      title: `${marker} Paper lesson`,
+      classGroup: "8K",
+      diceSetId: set.id,
+      mode: { dicePerPlayer: 1 as const, players: 2 as const },
+    };
     const [created] = await db
       .insert(lesson)
-      .values({ ownerId: owner.id, departmentId: owner.departmentId, title: input.title, classGroup: "8K", diceSetId: set.id, plan: lessonPlanFromInput(input) })
+      .values({
+        ownerId: owner.id,
+        departmentId: owner.departmentId,
+        title: input.title,
+        classGroup: "8K",
+        diceSetId: set.id,
+        plan: lessonPlanFromInput(input),
+      })
       .returning({ id: lesson.id });
 
     const lessons = await agents.tomasz.get("/api/results/paper-runs/lessons");
-    expect(lessons.body.lessons.find((entry: { id: string }) => entry.id === created.id)).toMatchObject({ ready: true, diceSetName: `${marker} Skerry trio` });
+    expect(lessons.body.lessons.find((entry: { id: string }) => entry.id === created.id)).toMatchObject({
+      ready: true,
+      diceSetName: `${marker} Skerry trio`,
+    });
     expect((await agents.ada.post("/api/results/paper-runs", { lessonId: created.id })).status).toBe(404);
     expect((await agents.tomasz.post("/api/results/paper-runs", { lessonId: "nope" })).status).toBe(400);
 
     const made = await agents.tomasz.post("/api/results/paper-runs", { lessonId: created.id, taughtOn: "2026-02-02" });
     expect(made.status).toBe(201);
-    expect(made.body).toMatchObject({ title: `${marker} Paper lesson`, classGroup: "8K", rollCount: 0, groupCount: 0, recordedOn: "no rolls yet" });
+    expect(made.body).toMatchObject({
+      title: `${marker} Paper lesson`,
+      classGroup: "8K",
+      rollCount: 0,
+      groupCount: 0,
+      recordedOn: "no rolls yet",
+    });
     const [stored] = await db.select().from(classRun).where(eq(classRun.id, made.body.id));
     expect(stored.status).toBe("closed");
     expect(stored.dice).toEqual(testDice);
 
-    const rows = [["Limpets", "1", "Skua", "10", "Tern", "9"], ["Limpets", "2", "Tern", "18", "Gannet", "2"]];
-    const commit = await agents.tomasz.postForm(`/api/results/runs/${made.body.id}/paper-import`, csvForm(sheet(rows), { createGroups: true }));
+    const rows = [
+      ["Limpets", "1", "Skua", "10", "Tern", "9"],
+      ["Limpets", "2", "Tern", "18", "Gannet", "2"],
+    ];
+    const commit = await agents.tomasz.postForm(
+      `/api/results/runs/${made.body.id}/paper-import`,
+      csvForm(sheet(rows), { createGroups: true }),
+    );
     expect(commit.status).toBe(201);
     const listed = await agents.tomasz.get(`/api/results/runs?lesson=${encodeURIComponent(`${marker} Paper`)}`);
-    expect(listed.body.runs[0]).toMatchObject({ rollCount: 2, paperRollCount: 2, recordedOn: "paper", taughtAt: "2026-02-02T12:00:00.000Z" });
+    expect(listed.body.runs[0]).toMatchObject({
+      rollCount: 2,
+      paperRollCount: 2,
+      recordedOn: "paper",
+      taughtAt: "2026-02-02T12:00:00.000Z",
+    });
   });
 });
 
@@ -516,9 +601,13 @@ describe("pooling across runs", () => {
     expect(skuaTern.rolls).toBe(firstOwn.rolls + secondOwn.rolls);
     expect(skuaTern.seats[0].wins).toBe(firstOwn.seats[0].wins + secondOwn.seats[0].wins);
     for (const entry of pooled.body.pooled.matchups) {
-      const shares = pooled.body.contributions.map((share: { matchups: { key: string; rolls: number; firstSeatWins: number }[] }) => share.matchups.find((own) => own.key === entry.key));
+      const shares = pooled.body.contributions.map((share: { matchups: { key: string; rolls: number; firstSeatWins: number }[] }) =>
+        share.matchups.find((own) => own.key === entry.key),
+      );
       expect(shares.reduce((sum: number, share: { rolls: number } | undefined) => sum + (share?.rolls ?? 0), 0)).toBe(entry.rolls);
-      expect(shares.reduce((sum: number, share: { firstSeatWins: number } | undefined) => sum + (share?.firstSeatWins ?? 0), 0)).toBe(entry.seats[0].wins);
+      expect(shares.reduce((sum: number, share: { firstSeatWins: number } | undefined) => sum + (share?.firstSeatWins ?? 0), 0)).toBe(
+        entry.seats[0].wins,
+      );
     }
     expect(pooled.body.contributions.map((share: { run: { classGroup: string } }) => share.run.classGroup)).toEqual(["8K", "9M"]);
     expect(pooled.body.candidates.map((run: { id: string }) => run.id)).toEqual(expect.arrayContaining([mainRun, secondRun]));
@@ -531,7 +620,9 @@ describe("pooling across runs", () => {
     expect(list.body.runs.find((run: { id: string }) => run.id === secondRun).setKey).toBe(setKey);
     const bySet = await agents.tomasz.get(`/api/results/pooled?setKey=${setKey}`);
     expect(bySet.status).toBe(200);
-    expect(bySet.body.contributions.map((share: { run: { id: string } }) => share.run.id)).toEqual(expect.arrayContaining([mainRun, secondRun]));
+    expect(bySet.body.contributions.map((share: { run: { id: string } }) => share.run.id)).toEqual(
+      expect.arrayContaining([mainRun, secondRun]),
+    );
 
     const headPool = await agents.head.get(`/api/results/pooled?scope=department&runIds=${mainRun},${adaRun}`);
     expect(headPool.status).toBe(200);

@@ -47,7 +47,12 @@ describe("Set finder API", () => {
   });
 
   it("refuses a request outside the limits with a message per field", async () => {
-    const response = await teacher.post("/api/set-finder/searches", { ...smallSearch, diceCount: 7, facesPerDie: 3, faceValues: { kind: "range", min: 1, max: 60 } });
+    const response = await teacher.post("/api/set-finder/searches", {
+      ...smallSearch,
+      diceCount: 7,
+      facesPerDie: 3,
+      faceValues: { kind: "range", min: 1, max: 60 },
+    });
     expect(response.status).toBe(400);
     expect(response.body.error.fields).toMatchObject({
       diceCount: ["The Set finder looks for at most 6 dice."],

@@ -46,7 +46,10 @@ describe("credit for the proposing teacher", () => {
   it("credits the teacher on a template approved from their proposal, beside the head who published it", async () => {
     const [teacher] = ours.teachers;
     const proposalId = await propose(teacher.agent, "Credit: three players");
-    const approved = await ours.head.post(`/api/shelf/proposals/${proposalId}/approve`, { target: "new", changeNote: "First version, from a 9M lesson" });
+    const approved = await ours.head.post(`/api/shelf/proposals/${proposalId}/approve`, {
+      target: "new",
+      changeNote: "First version, from a 9M lesson",
+    });
     expect(approved.status, approved.text).toBe(200);
     const detail = approved.body.template as TemplateDetail;
     expect(detail.template).toMatchObject({ publishedByName: "Rowan Head", proposedByName: "Teacher 1" });
@@ -70,7 +73,11 @@ describe("credit for the proposing teacher", () => {
     expect((published.body as TemplateDetail).template.proposedByName).toBeNull();
 
     const proposalId = await propose(ours.teachers[1].agent, "Credit: more rolls");
-    const approved = await ours.head.post(`/api/shelf/proposals/${proposalId}/approve`, { target: "version", templateId, changeNote: "More rolls" });
+    const approved = await ours.head.post(`/api/shelf/proposals/${proposalId}/approve`, {
+      target: "version",
+      templateId,
+      changeNote: "More rolls",
+    });
     expect(approved.status, approved.text).toBe(200);
     const detail = (await ours.teachers[0].agent.get(`/api/shelf/templates/${templateId}`)).body as TemplateDetail;
     expect(detail.versions.map((v) => [v.version, v.publishedByName, v.proposedByName])).toEqual([
@@ -113,7 +120,11 @@ describe("the count of proposals waiting", () => {
     expect(signedOut.status).toBe(401);
     expect(signedOut.body.error.code).toBe("unauthenticated");
     const lone = new HttpAgent(app.baseUrl);
-    await lone.post("/api/auth/sign-up/email", { name: "Lone Teacher", email: `lone-${crypto.randomUUID().slice(0, 8)}@outroll-tests.test`, password: "a-long-password" });
+    await lone.post("/api/auth/sign-up/email", {
+      name: "Lone Teacher",
+      email: `lone-${crypto.randomUUID().slice(0, 8)}@outroll-tests.test`,
+      password: "a-long-password",
+    });
     const noDepartment = await lone.get("/api/shelf/proposals/waiting");
     expect(noDepartment.status).toBe(403);
     expect(noDepartment.body.error.code).toBe("forbidden");

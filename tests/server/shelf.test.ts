@@ -89,14 +89,24 @@ describe("who may use each shelf route", () => {
       { name: "read a template", method: "GET", path: `/api/shelf/templates/${templateId}` },
       { name: "read a version", method: "GET", path: `/api/shelf/templates/${templateId}/versions/1` },
       { name: "publish", method: "POST", path: "/api/shelf/templates", body: { lessonId: headLessonId, changeNote: "Again" } },
-      { name: "new version", method: "POST", path: `/api/shelf/templates/${templateId}/versions`, body: { lessonId: headLessonId, changeNote: "Next" } },
+      {
+        name: "new version",
+        method: "POST",
+        path: `/api/shelf/templates/${templateId}/versions`,
+        body: { lessonId: headLessonId, changeNote: "Next" },
+      },
       { name: "retire", method: "POST", path: `/api/shelf/templates/${templateId}/retire`, body: {} },
       { name: "restore", method: "POST", path: `/api/shelf/templates/${templateId}/restore`, body: {} },
       { name: "copy", method: "POST", path: `/api/shelf/templates/${templateId}/copy`, body: {} },
       { name: "list proposals", method: "GET", path: "/api/shelf/proposals" },
       { name: "propose", method: "POST", path: "/api/shelf/proposals", body: { lessonId: teacherLessonId } },
       { name: "withdraw", method: "DELETE", path: `/api/shelf/proposals/${proposalId}` },
-      { name: "approve", method: "POST", path: `/api/shelf/proposals/${proposalId}/approve`, body: { target: "new", changeNote: "Approved" } },
+      {
+        name: "approve",
+        method: "POST",
+        path: `/api/shelf/proposals/${proposalId}/approve`,
+        body: { target: "new", changeNote: "Approved" },
+      },
       { name: "decline", method: "POST", path: `/api/shelf/proposals/${proposalId}/decline`, body: { note: "Not yet" } },
     ] as { name: string; method: string; path: string; body?: unknown }[];
 
@@ -157,7 +167,11 @@ describe("who may use each shelf route", () => {
 
   it("answers 403 to a signed-in teacher with no department", async () => {
     const lone = new HttpAgent(app.baseUrl);
-    await lone.post("/api/auth/sign-up/email", { name: "Lone", email: `lone-${crypto.randomUUID().slice(0, 6)}@outroll-tests.test`, password: "a-long-password" });
+    await lone.post("/api/auth/sign-up/email", {
+      name: "Lone",
+      email: `lone-${crypto.randomUUID().slice(0, 6)}@outroll-tests.test`,
+      password: "a-long-password",
+    });
     expect((await lone.get("/api/shelf/templates")).status).toBe(403);
     expect((await lone.post(`/api/shelf/templates/${templateId}/copy`, {})).status).toBe(403);
   });
@@ -181,7 +195,12 @@ describe("template versions", () => {
     const setId = await createSet(head, "private", "Versioned seabirds");
     const source = await createLesson(head, { title: "Tern, Auk, Shag", diceSetId: setId, rollsPerGroup: 20 });
     const first = await publish(head, source.id, "First version: twenty rolls a group");
-    expect(first.template).toMatchObject({ title: "Tern, Auk, Shag", status: "published", currentVersion: 1, diceSetName: "Versioned seabirds" });
+    expect(first.template).toMatchObject({
+      title: "Tern, Auk, Shag",
+      status: "published",
+      currentVersion: 1,
+      diceSetName: "Versioned seabirds",
+    });
     expect(first.versions).toHaveLength(1);
     expect(first.shown.snapshot.lesson.rollsPerGroup).toBe(20);
     expect(first.shown.snapshot.diceSet?.dice.map((d) => d.faces)).toEqual(testDice.map((d) => d.faces));
@@ -233,7 +252,10 @@ describe("template versions", () => {
     const headCopy = await head.post(`/api/shelf/templates/${template.id}/copy`, {});
     expect(headCopy.status).toBe(409);
     expect(headCopy.body.error.code).toBe("template_retired");
-    const newVersion = await head.post(`/api/shelf/templates/${template.id}/versions`, { lessonId: source.id, changeNote: "While retired" });
+    const newVersion = await head.post(`/api/shelf/templates/${template.id}/versions`, {
+      lessonId: source.id,
+      changeNote: "While retired",
+    });
     expect(newVersion.status).toBe(409);
     const retiredList = await head.get("/api/shelf/templates?status=retired");
     expect(retiredList.body.templates.map((t: { id: string }) => t.id)).toContain(template.id);
@@ -246,7 +268,12 @@ describe("template versions", () => {
 describe("copying a template into one's own lessons", () => {
   it("inserts a real draft copy of the chosen version, with its own dice set when the head's set is private", async () => {
     const setId = await createSet(head, "private", "Private seabirds");
-    const source = await createLesson(head, { title: "Copy me", diceSetId: setId, rollsPerGroup: 24, exitTicket: "Which die would you pick second?" });
+    const source = await createLesson(head, {
+      title: "Copy me",
+      diceSetId: setId,
+      rollsPerGroup: 24,
+      exitTicket: "Which die would you pick second?",
+    });
     const { template } = await publish(head, source.id, "First version");
     await editLesson(head, source.id, { rollsPerGroup: 40 });
     await head.post(`/api/shelf/templates/${template.id}/versions`, { lessonId: source.id, changeNote: "Forty rolls" });
@@ -305,7 +332,12 @@ describe("proposals", () => {
     const own = await createLesson(teacher, { title: "Proposed: three players", mode: { dicePerPlayer: 1, players: 3 } });
     const proposed = await teacher.post("/api/shelf/proposals", { lessonId: own.id, note: "Worked well with 9M" });
     expect(proposed.status, proposed.text).toBe(201);
-    expect(proposed.body).toMatchObject({ status: "pending", lessonTitle: "Proposed: three players", isMine: true, note: "Worked well with 9M" });
+    expect(proposed.body).toMatchObject({
+      status: "pending",
+      lessonTitle: "Proposed: three players",
+      isMine: true,
+      note: "Worked well with 9M",
+    });
 
     const twice = await teacher.post("/api/shelf/proposals", { lessonId: own.id });
     expect(twice.status).toBe(409);
@@ -318,10 +350,21 @@ describe("proposals", () => {
     const colleagueView = await colleague.get("/api/shelf/proposals");
     expect(colleagueView.body.proposals.map((p: { id: string }) => p.id)).not.toContain(proposed.body.id);
 
-    const approved = await head.post(`/api/shelf/proposals/${proposed.body.id}/approve`, { target: "new", changeNote: "First version, from a 9M lesson" });
+    const approved = await head.post(`/api/shelf/proposals/${proposed.body.id}/approve`, {
+      target: "new",
+      changeNote: "First version, from a 9M lesson",
+    });
     expect(approved.status, approved.text).toBe(200);
-    expect(approved.body.proposal).toMatchObject({ status: "approved", decisionNote: "First version, from a 9M lesson", decidedByName: "Rowan Head" });
-    expect(approved.body.template.template).toMatchObject({ title: "Proposed: three players", currentVersion: 1, publishedByName: "Rowan Head" });
+    expect(approved.body.proposal).toMatchObject({
+      status: "approved",
+      decisionNote: "First version, from a 9M lesson",
+      decidedByName: "Rowan Head",
+    });
+    expect(approved.body.template.template).toMatchObject({
+      title: "Proposed: three players",
+      currentVersion: 1,
+      publishedByName: "Rowan Head",
+    });
     const stored = await db.select().from(lessonTemplate).where(eq(lessonTemplate.id, approved.body.template.template.id));
     expect(stored[0].sourceLessonId).toBe(own.id);
 
@@ -366,7 +409,9 @@ describe("proposals", () => {
     const proposed = await teacher.post("/api/shelf/proposals", { lessonId: own.id });
     expect((await colleague.delete(`/api/shelf/proposals/${proposed.body.id}`)).status).toBe(404);
     expect((await teacher.delete(`/api/shelf/proposals/${proposed.body.id}`)).status).toBe(204);
-    expect((await head.post(`/api/shelf/proposals/${proposed.body.id}/approve`, { target: "new", changeNote: "Too late" })).status).toBe(404);
+    expect((await head.post(`/api/shelf/proposals/${proposed.body.id}/approve`, { target: "new", changeNote: "Too late" })).status).toBe(
+      404,
+    );
     expect((await colleague.post("/api/shelf/proposals", { lessonId: own.id })).status).toBe(404);
   });
 

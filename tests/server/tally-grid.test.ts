@@ -38,7 +38,11 @@ const rollRow = (group: string, rollNumber: number, first: [string, number], sec
 });
 
 // Limpets typed roll by roll: Skua v Tern, Skua wins rolls 1 and 3 (10 > 9, 12 > 11), Tern wins roll 2 (18 > 1).
-const limpetRolls = [rollRow("Limpets", 1, ["Skua", 10], ["Tern", 9]), rollRow("Limpets", 2, ["Skua", 1], ["Tern", 18]), rollRow("Limpets", 3, ["Skua", 12], ["Tern", 11])];
+const limpetRolls = [
+  rollRow("Limpets", 1, ["Skua", 10], ["Tern", 9]),
+  rollRow("Limpets", 2, ["Skua", 1], ["Tern", 18]),
+  rollRow("Limpets", 3, ["Skua", 12], ["Tern", 11]),
+];
 
 async function rollRowsOf(runId: string) {
   return (await db.select({ n: count() }).from(roll).where(eq(roll.runId, runId)))[0].n;
@@ -63,7 +67,14 @@ beforeAll(async () => {
   const input = { ...emptyLessonInput(), title: `${marker} Paper lesson`, classGroup: "8K", diceSetId: set.id, rollsPerGroup: 20 };
   const [created] = await db
     .insert(lesson)
-    .values({ ownerId: owner.id, departmentId: owner.departmentId, title: input.title, classGroup: "8K", diceSetId: set.id, plan: lessonPlanFromInput(input) })
+    .values({
+      ownerId: owner.id,
+      departmentId: owner.departmentId,
+      title: input.title,
+      classGroup: "8K",
+      diceSetId: set.id,
+      plan: lessonPlanFromInput(input),
+    })
     .returning({ id: lesson.id });
   lessonId = created.id;
   phoneRun = (
@@ -97,7 +108,12 @@ describe("the tally grid: rolls", () => {
   it("answers the grid's dice, tallies, groups and the sheet's planned rows (the lesson's rolls per group)", async () => {
     const grid = await agents.tomasz.get(`/api/results/runs/${paperRun}/tally-grid`);
     expect(grid.status).toBe(200);
-    expect(grid.body.run).toMatchObject({ dieNames: ["Skua", "Tern", "Gannet"], tallies: [{ tally: 1, dicePerPlayer: 1, players: 2 }], isOwner: true, classGroup: "9M" });
+    expect(grid.body.run).toMatchObject({
+      dieNames: ["Skua", "Tern", "Gannet"],
+      tallies: [{ tally: 1, dicePerPlayer: 1, players: 2 }],
+      isOwner: true,
+      classGroup: "9M",
+    });
     expect(grid.body.plannedRolls).toBe(20);
     expect(grid.body.counts).toEqual([]);
   });
@@ -121,11 +137,17 @@ describe("the tally grid: rolls", () => {
   });
 
   it("stores a roll once whether it is typed again or uploaded as CSV (the same ids)", async () => {
-    const again = await agents.tomasz.post(`/api/results/runs/${paperRun}/tally-grid/rolls`, { rows: [...limpetRolls, rollRow("Limpets", 4, ["Skua", 5], ["Tern", 4])] });
+    const again = await agents.tomasz.post(`/api/results/runs/${paperRun}/tally-grid/rolls`, {
+      rows: [...limpetRolls, rollRow("Limpets", 4, ["Skua", 5], ["Tern", 4])],
+    });
     expect(again.status).toBe(201);
     expect(again.body).toMatchObject({ newRows: 1, duplicateRows: 3 });
     const form = new FormData();
-    form.set("file", new Blob(["group,roll,die_1,faces_1,die_2,faces_2\r\nLimpets,4,Skua,5,Tern,4\r\n"], { type: "text/csv" }), "sheet.csv");
+    form.set(
+      "file",
+      new Blob(["group,roll,die_1,faces_1,die_2,faces_2\r\nLimpets,4,Skua,5,Tern,4\r\n"], { type: "text/csv" }),
+      "sheet.csv",
+    );
     const upload = await agents.tomasz.postForm(`/api/results/runs/${paperRun}/paper-import`, form);
     expect(upload.body).toMatchObject({ newRows: 0, duplicateRows: 1 });
     expect(await rollRowsOf(paperRun)).toBe(4);
@@ -148,7 +170,9 @@ describe("the tally grid: counts", () => {
     expect(refused.body.error.fields["row 1"][0]).toContain('no group "Whelks"');
     expect(refused.body.error.fields["row 3"][0]).toContain("cannot tie");
     expect(refused.body.error.fields["row 4"][0]).toContain('"Puffin" is not a die');
-    const negative = await agents.tomasz.put(path, { counts: [{ group: "Limpets", dice: ["Skua", "Tern"], firstWins: -1, ties: 0, secondWins: 1 }] });
+    const negative = await agents.tomasz.put(path, {
+      counts: [{ group: "Limpets", dice: ["Skua", "Tern"], firstWins: -1, ties: 0, secondWins: 1 }],
+    });
     expect(negative.status).toBe(400);
     expect(negative.body.error.code).toBe("invalid_input");
     const twice = await agents.tomasz.put(path, {
@@ -178,7 +202,10 @@ describe("the tally grid: counts", () => {
       ["0-1", 12, 0, 8],
       ["0-2", 6, 0, 9],
     ]);
-    const [razorbills] = await db.select().from(runGroup).where(and(eq(runGroup.runId, paperRun), eq(runGroup.nickname, "Razorbills")));
+    const [razorbills] = await db
+      .select()
+      .from(runGroup)
+      .where(and(eq(runGroup.runId, paperRun), eq(runGroup.nickname, "Razorbills")));
     expect(razorbills.source).toBe("paper");
     expect((await db.select({ n: count() }).from(roll).where(eq(roll.groupId, razorbills.id)))[0].n).toBe(0);
     expect(await rollRowsOf(paperRun)).toBe(4);
@@ -190,7 +217,10 @@ describe("the tally grid: counts", () => {
     const skuaTern = results.body.pooled.matchups.find((entry: { key: string }) => entry.key === "1:0-1");
     // 4 rolls typed one by one (Skua 3 wins, Tern 1) and Razorbills' 20 counted (Skua 12, Tern 8).
     expect(skuaTern).toMatchObject({ rolls: 24, countedRolls: 20, decidedRolls: 24 });
-    expect(skuaTern.seats.map((seat: { wins: number; losses: number }) => [seat.wins, seat.losses])).toEqual([[15, 9], [9, 15]]);
+    expect(skuaTern.seats.map((seat: { wins: number; losses: number }) => [seat.wins, seat.losses])).toEqual([
+      [15, 9],
+      [9, 15],
+    ]);
     expect(skuaTern.frequencyUnderTieRule).toBeCloseTo(15 / 24, 12);
     const outside = wilson(15, 24);
     expect(skuaTern.interval.lower).toBeCloseTo(outside.lower, 9);
@@ -216,10 +246,16 @@ describe("the tally grid: counts", () => {
 
     const summary = await agents.tomasz.get(`/api/results/runs/${paperRun}/summary.csv`);
     const rows = Papa.parse<Record<string, string>>(summary.text.replace(/^\ufeff/, ""), { header: true, skipEmptyLines: true }).data;
-    const row = (section: string, group: string, matchup: string) => rows.find((entry) => entry.section === section && entry.group === group && entry.matchup === matchup)!;
+    const row = (section: string, group: string, matchup: string) =>
+      rows.find((entry) => entry.section === section && entry.group === group && entry.matchup === matchup)!;
     expect(row("matchup", "", "Skua v Tern")).toMatchObject({ rolls: "24", entered_as: "rolls and counts", rolls_from_counts: "20" });
     expect(row("matchup", "", "Skua v Gannet")).toMatchObject({ rolls: "15", entered_as: "counts", rolls_from_counts: "15" });
-    expect(row("group", "Razorbills", "Skua v Tern")).toMatchObject({ rolls: "20", first_die_wins: "12", entered_as: "counts", rolls_from_counts: "20" });
+    expect(row("group", "Razorbills", "Skua v Tern")).toMatchObject({
+      rolls: "20",
+      first_die_wins: "12",
+      entered_as: "counts",
+      rolls_from_counts: "20",
+    });
     expect(row("group", "Limpets", "Skua v Tern")).toMatchObject({ rolls: "4", entered_as: "rolls", rolls_from_counts: "0" });
 
     const workbookResponse = await agents.tomasz.get(`/api/results/runs/${paperRun}/results.xlsx`);
@@ -256,7 +292,9 @@ describe("the tally grid: counts", () => {
       counts: [{ group: "Razorbills", dice: ["Skua", "Tern"], firstWins: 11, ties: 0, secondWins: 9 }],
     });
     expect(saved.body).toMatchObject({ saved: 1, removed: 2 });
-    expect(saved.body.counts).toEqual([expect.objectContaining({ group: "Razorbills", dice: ["Skua", "Tern"], firstWins: 11, ties: 0, secondWins: 9, tally: 1 })]);
+    expect(saved.body.counts).toEqual([
+      expect.objectContaining({ group: "Razorbills", dice: ["Skua", "Tern"], firstWins: 11, ties: 0, secondWins: 9, tally: 1 }),
+    ]);
     const results = await agents.tomasz.get(`/api/results/runs/${paperRun}`);
     expect(results.body.pooled.totals).toMatchObject({ rolls: 24, countedRolls: 20 });
   });
@@ -278,9 +316,17 @@ describe("the tally grid: who may use it", () => {
 
   it("refuses counts for a three-player tally: counts cannot say which seats tied", async () => {
     const trio = (
-      await insertFixtureRun(db, { ownerEmail: tomasz.email, title: `${marker} Trio`, classGroup: "8K", players: 3, groups: [{ nickname: "Crabs", matchup: [0, 1, 2], rolls: 3 }] })
+      await insertFixtureRun(db, {
+        ownerEmail: tomasz.email,
+        title: `${marker} Trio`,
+        classGroup: "8K",
+        players: 3,
+        groups: [{ nickname: "Crabs", matchup: [0, 1, 2], rolls: 3 }],
+      })
     ).runId;
-    const refused = await agents.tomasz.put(`/api/results/runs/${trio}/tally-grid/counts`, { counts: [{ group: "Crabs", dice: ["Skua", "Tern"], firstWins: 1, ties: 0, secondWins: 0 }] });
+    const refused = await agents.tomasz.put(`/api/results/runs/${trio}/tally-grid/counts`, {
+      counts: [{ group: "Crabs", dice: ["Skua", "Tern"], firstWins: 1, ties: 0, secondWins: 0 }],
+    });
     expect(refused.status).toBe(422);
     expect(refused.body.error.code).toBe("counts_need_two_players");
   });

@@ -219,7 +219,11 @@ export async function findGroupByJoinAttempt(executor: Executor, runId: string, 
 
 /** Renames a group; a nickname or look-alike key already in the run raises PostgreSQL's 23505. */
 export async function renameGroup(executor: Executor, groupId: string, nickname: string): Promise<RunGroupRow> {
-  const [row] = await executor.update(runGroup).set({ nickname, nicknameKey: nicknameKey(nickname) }).where(eq(runGroup.id, groupId)).returning();
+  const [row] = await executor
+    .update(runGroup)
+    .set({ nickname, nicknameKey: nicknameKey(nickname) })
+    .where(eq(runGroup.id, groupId))
+    .returning();
   return row;
 }
 
@@ -255,7 +259,10 @@ export async function markGroupFlooded(executor: Executor, groupId: string): Pro
 
 /** Kept rolls of one group (not undone), the figure a removal or leaving out takes off the board. */
 export async function countGroupKeptRolls(executor: Executor, groupId: string): Promise<number> {
-  const [row] = await executor.select({ rolls: count() }).from(roll).where(and(eq(roll.groupId, groupId), isNull(roll.undoneAt)));
+  const [row] = await executor
+    .select({ rolls: count() })
+    .from(roll)
+    .where(and(eq(roll.groupId, groupId), isNull(roll.undoneAt)));
   return row.rolls;
 }
 
@@ -272,7 +279,10 @@ export async function leftOutRollCounts(executor: Executor, runId: string): Prom
 
 /** Phone rolls a run has stored (undone ones too: the roll ceiling counts what phones sent). */
 export async function countPhoneRolls(executor: Executor, runId: string): Promise<number> {
-  const [row] = await executor.select({ rolls: count() }).from(roll).where(and(eq(roll.runId, runId), eq(roll.source, "phone")));
+  const [row] = await executor
+    .select({ rolls: count() })
+    .from(roll)
+    .where(and(eq(roll.runId, runId), eq(roll.source, "phone")));
   return row.rolls;
 }
 
@@ -417,7 +427,15 @@ export async function writeRollBatch(executor: Executor, rolls: NewRoll[]): Prom
   }
   const rest = rolls.filter((entry) => !outcomes.has(entry.id));
   if (rest.length === 0) return outcomes;
-  const existing = await executor.select({ id: roll.id, groupId: roll.groupId }).from(roll).where(inArray(roll.id, rest.map((entry) => entry.id)));
+  const existing = await executor
+    .select({ id: roll.id, groupId: roll.groupId })
+    .from(roll)
+    .where(
+      inArray(
+        roll.id,
+        rest.map((entry) => entry.id),
+      ),
+    );
   const owner = new Map(existing.map((row) => [row.id, row.groupId]));
   for (const entry of rest) {
     const storedFor = owner.get(entry.id);
@@ -439,7 +457,11 @@ export async function insertRolls(executor: Executor, rolls: NewRoll[]): Promise
 }
 
 /** Marks one of a group's rolls undone (its row stays); null when the group has no such roll. */
-export async function markRollUndone(executor: Executor, groupId: string, rollId: string): Promise<{ id: string; runId: string; undoneAt: Date } | null> {
+export async function markRollUndone(
+  executor: Executor,
+  groupId: string,
+  rollId: string,
+): Promise<{ id: string; runId: string; undoneAt: Date } | null> {
   const [row] = await executor
     .update(roll)
     .set({ undoneAt: sql`coalesce(${roll.undoneAt}, now())` })
@@ -495,7 +517,10 @@ export async function runRollsForPooling(executor: Executor, runId: string): Pro
 }
 
 export async function countUndoneRolls(executor: Executor, runId: string): Promise<number> {
-  const [row] = await executor.select({ undone: count() }).from(roll).where(and(eq(roll.runId, runId), isNotNull(roll.undoneAt)));
+  const [row] = await executor
+    .select({ undone: count() })
+    .from(roll)
+    .where(and(eq(roll.runId, runId), isNotNull(roll.undoneAt)));
   return row.undone;
 }
 

@@ -52,7 +52,12 @@ export async function listReadableDiceSets(userId: string, departmentId: string 
 }
 
 /** One set if the teacher may read it, otherwise null. */
-export async function findReadableDiceSet(id: string, userId: string, departmentId: string | null, executor: Executor = db): Promise<DiceSetRow | null> {
+export async function findReadableDiceSet(
+  id: string,
+  userId: string,
+  departmentId: string | null,
+  executor: Executor = db,
+): Promise<DiceSetRow | null> {
   const rows = await executor
     .select(columns)
     .from(diceSet)
@@ -64,7 +69,12 @@ export async function findReadableDiceSet(id: string, userId: string, department
 
 /** One set by id whoever owns it (for messages after a refused update), or null. */
 export async function findDiceSetById(id: string, executor: Executor = db): Promise<DiceSetRow | null> {
-  const rows = await executor.select(columns).from(diceSet).innerJoin(user, eq(diceSet.ownerId, user.id)).where(eq(diceSet.id, id)).limit(1);
+  const rows = await executor
+    .select(columns)
+    .from(diceSet)
+    .innerJoin(user, eq(diceSet.ownerId, user.id))
+    .where(eq(diceSet.id, id))
+    .limit(1);
   return rows[0] ?? null;
 }
 
@@ -106,7 +116,10 @@ export async function updateDiceSetAtVersion(
 
 /** Deletes the owner's set; answers whether a row went. */
 export async function deleteOwnedDiceSet(id: string, ownerId: string, executor: Executor = db): Promise<boolean> {
-  const rows = await executor.delete(diceSet).where(and(eq(diceSet.id, id), eq(diceSet.ownerId, ownerId))).returning({ id: diceSet.id });
+  const rows = await executor
+    .delete(diceSet)
+    .where(and(eq(diceSet.id, id), eq(diceSet.ownerId, ownerId)))
+    .returning({ id: diceSet.id });
   return rows.length > 0;
 }
 
@@ -126,7 +139,11 @@ export async function lockDiceSet(id: string, executor: Executor): Promise<void>
 }
 
 /** Lessons of other teachers than the set's owner that use the set, with their owners' names. */
-export async function listColleagueLessonsUsingSet(id: string, ownerId: string, executor: Executor = db): Promise<{ title: string; ownerName: string }[]> {
+export async function listColleagueLessonsUsingSet(
+  id: string,
+  ownerId: string,
+  executor: Executor = db,
+): Promise<{ title: string; ownerName: string }[]> {
   return executor
     .select({ title: lesson.title, ownerName: user.name })
     .from(lesson)

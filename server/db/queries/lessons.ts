@@ -297,6 +297,10 @@ export async function deleteLessonAttachment(executor: Executor, lessonId: strin
 
 /** An owner's lesson with exactly this title, or null (the demo seed looks before it inserts). */
 export async function findLessonByOwnerAndTitle(executor: Executor, ownerId: string, title: string): Promise<LessonRow | null> {
-  const [row] = await executor.select().from(lesson).where(and(eq(lesson.ownerId, ownerId), eq(lesson.title, title))).limit(1);
+  const [row] = await executor
+    .select()
+    .from(lesson)
+    .where(and(eq(lesson.ownerId, ownerId), eq(lesson.title, title)))
+    .limit(1);
   return row ?? null;
 }

@@ -6,7 +6,11 @@ import { classRun, paperCount, runGroup } from "../schema/index";
 export type PaperCountRow = typeof paperCount.$inferSelect;
 
 /** A run's count rows, every tally, in a steady order; removed groups' rows never, left-out groups' only when asked. */
-export async function listPaperCounts(executor: Executor, runId: string, options: { includeLeftOut?: boolean } = {}): Promise<PaperCountRow[]> {
+export async function listPaperCounts(
+  executor: Executor,
+  runId: string,
+  options: { includeLeftOut?: boolean } = {},
+): Promise<PaperCountRow[]> {
   return executor
     .select()
     .from(paperCount)

@@ -27,7 +27,8 @@ export type ArchiveViewer = { userId: string; departmentId: string | null; whole
 const columnsOfRun = getTableColumns(classRun);
 
 // Rolls that count: not undone, and not of a removed or left-out group.
-const liveRoll = (runId: SQL | typeof classRun.id) => and(eq(roll.runId, runId), isNull(roll.undoneAt), sql`${roll.groupId} not in (${setAsideGroups(runId)})`);
+const liveRoll = (runId: SQL | typeof classRun.id) =>
+  and(eq(roll.runId, runId), isNull(roll.undoneAt), sql`${roll.groupId} not in (${setAsideGroups(runId)})`);
 
 const countOf = (condition: SQL | undefined) => sql<number>`(select count(*)::int from ${roll} where ${condition})`;
 
@@ -76,7 +77,12 @@ export async function listClosedRuns(executor: Executor, viewer: ArchiveViewer, 
 
 /** One class run (any status) with its owner's name and counts, or null. */
 export async function findRunWithCounts(executor: Executor, runId: string): Promise<ResultsRunListRecord | null> {
-  const [row] = await executor.select(columnsWithCounts).from(classRun).innerJoin(user, eq(user.id, classRun.ownerId)).where(eq(classRun.id, runId)).limit(1);
+  const [row] = await executor
+    .select(columnsWithCounts)
+    .from(classRun)
+    .innerJoin(user, eq(user.id, classRun.ownerId))
+    .where(eq(classRun.id, runId))
+    .limit(1);
   return row ?? null;
 }
 
@@ -91,14 +97,26 @@ export async function findResultsRun(executor: Executor, runId: string): Promise
   return row ?? null;
 }
 
-
-
-export type RunGroupRow = { id: string; nickname: string; source: RollSource; matchup: number[] | null; createdAt: Date; leftOutAt: Date | null };
+export type RunGroupRow = {
+  id: string;
+  nickname: string;
+  source: RollSource;
+  matchup: number[] | null;
+  createdAt: Date;
+  leftOutAt: Date | null;
+};
 
 /** Every group of a run the teacher did not remove (removed ones too when asked), in the order they joined. */
 export async function listRunGroups(executor: Executor, runId: string, options: { withRemoved?: boolean } = {}): Promise<RunGroupRow[]> {
   return executor
-    .select({ id: runGroup.id, nickname: runGroup.nickname, source: runGroup.source, matchup: runGroup.matchup, createdAt: runGroup.createdAt, leftOutAt: runGroup.leftOutAt })
+    .select({
+      id: runGroup.id,
+      nickname: runGroup.nickname,
+      source: runGroup.source,
+      matchup: runGroup.matchup,
+      createdAt: runGroup.createdAt,
+      leftOutAt: runGroup.leftOutAt,
+    })
     .from(runGroup)
     .where(and(eq(runGroup.runId, runId), options.withRemoved ? undefined : isNull(runGroup.removedAt)))
     .orderBy(asc(runGroup.createdAt), asc(runGroup.id));
@@ -215,7 +233,14 @@ export async function findOwnLessonWithSet(executor: Executor, ownerId: string, 
 /** The teacher's lessons that are not archived, with their set names and plans, for the paper run picker. */
 export async function listOwnLessonsWithSets(executor: Executor, ownerId: string) {
   return executor
-    .select({ id: lesson.id, title: lesson.title, classGroup: lesson.classGroup, plan: lesson.plan, diceSetName: diceSet.name, dice: diceSet.dice })
+    .select({
+      id: lesson.id,
+      title: lesson.title,
+      classGroup: lesson.classGroup,
+      plan: lesson.plan,
+      diceSetName: diceSet.name,
+      dice: diceSet.dice,
+    })
     .from(lesson)
     .leftJoin(diceSet, eq(diceSet.id, lesson.diceSetId))
     .where(and(eq(lesson.ownerId, ownerId), isNull(lesson.archivedAt)))
@@ -285,7 +310,10 @@ export async function findRollsByIds(executor: Executor, ids: string[]) {
   for (let start = 0; start < ids.length; start += 1000) {
     const slice = ids.slice(start, start + 1000);
     found.push(
-      ...(await executor.select({ id: roll.id, matchup: roll.matchup, faces: roll.faces, undoneAt: roll.undoneAt }).from(roll).where(inArray(roll.id, slice))),
+      ...(await executor
+        .select({ id: roll.id, matchup: roll.matchup, faces: roll.faces, undoneAt: roll.undoneAt })
+        .from(roll)
+        .where(inArray(roll.id, slice))),
     );
   }
   return found;
@@ -323,7 +351,13 @@ export async function insertPaperImport(
   return executor.transaction(async (tx) => {
     const [upload] = await tx
       .insert(paperImport)
-      .values({ runId: values.runId, fileHash: values.fileHash, fileName: values.fileName, rowCount: values.rowCount, importedById: values.importedById })
+      .values({
+        runId: values.runId,
+        fileHash: values.fileHash,
+        fileName: values.fileName,
+        rowCount: values.rowCount,
+        importedById: values.importedById,
+      })
       .onConflictDoNothing({ target: [paperImport.runId, paperImport.fileHash] })
       .returning({ id: paperImport.id });
     if (!upload) return { duplicateFile: true, inserted: 0 };
@@ -354,4 +388,3 @@ export async function insertPaperImport(
     return { duplicateFile: false, inserted };
   });
 }
-

@@ -19,7 +19,10 @@ export async function countActiveSearches(tx: Executor, ownerId: string): Promis
   return row.count;
 }
 
-export async function insertSearch(tx: Executor, values: { id: string; ownerId: string; request: SetFinderRequest; progress: SetFinderProgress; message: string }) {
+export async function insertSearch(
+  tx: Executor,
+  values: { id: string; ownerId: string; request: SetFinderRequest; progress: SetFinderProgress; message: string },
+) {
   await tx.insert(setFinderSearch).values({ ...values, status: "queued", results: [] });
 }
 
@@ -33,7 +36,13 @@ export async function forgetOldSearches(tx: Executor, ownerId: string, keep: num
     .limit(keep);
   await tx
     .delete(setFinderSearch)
-    .where(and(eq(setFinderSearch.ownerId, ownerId), notInArray(setFinderSearch.status, ["queued", "running"]), notInArray(setFinderSearch.id, kept)));
+    .where(
+      and(
+        eq(setFinderSearch.ownerId, ownerId),
+        notInArray(setFinderSearch.status, ["queued", "running"]),
+        notInArray(setFinderSearch.id, kept),
+      ),
+    );
 }
 
 export async function findSearch(tx: Executor, id: string): Promise<SetFinderSearchRow | null> {
@@ -43,7 +52,12 @@ export async function findSearch(tx: Executor, id: string): Promise<SetFinderSea
 
 /** The teacher's searches, newest first. */
 export async function listSearches(tx: Executor, ownerId: string, limit: number): Promise<SetFinderSearchRow[]> {
-  return tx.select().from(setFinderSearch).where(eq(setFinderSearch.ownerId, ownerId)).orderBy(desc(setFinderSearch.startedAt)).limit(limit);
+  return tx
+    .select()
+    .from(setFinderSearch)
+    .where(eq(setFinderSearch.ownerId, ownerId))
+    .orderBy(desc(setFinderSearch.startedAt))
+    .limit(limit);
 }
 
 /** Asks for a search to stop; a search still waiting for a slot ends at once. Answers the row, or null when not the owner's. */
@@ -73,24 +87,42 @@ export type SearchProgressUpdate = {
 export async function writeSearchProgress(tx: Executor, id: string, update: SearchProgressUpdate): Promise<boolean | null> {
   const [row] = await tx
     .update(setFinderSearch)
-    .set({ mode: update.mode, progress: update.progress, results: update.results, complete: update.complete, message: update.message ?? null })
+    .set({
+      mode: update.mode,
+      progress: update.progress,
+      results: update.results,
+      complete: update.complete,
+      message: update.message ?? null,
+    })
     .where(and(eq(setFinderSearch.id, id), eq(setFinderSearch.status, "running")))
     .returning({ cancelRequested: setFinderSearch.cancelRequested });
   return row ? row.cancelRequested : null;
 }
 
 /** Marks a search as taken up by a process (again, after a retry): its progress starts afresh. Null when it was cancelled meanwhile. */
-export async function markSearchRunning(tx: Executor, id: string, progress: SetFinderProgress, message: string): Promise<SetFinderSearchRow | null> {
+export async function markSearchRunning(
+  tx: Executor,
+  id: string,
+  progress: SetFinderProgress,
+  message: string,
+): Promise<SetFinderSearchRow | null> {
   const [row] = await tx
     .update(setFinderSearch)
     .set({ status: "running", progress, results: [], mode: null, complete: false, message })
-    .where(and(eq(setFinderSearch.id, id), inArray(setFinderSearch.status, ["queued", "running"]), eq(setFinderSearch.cancelRequested, false)))
+    .where(
+      and(eq(setFinderSearch.id, id), inArray(setFinderSearch.status, ["queued", "running"]), eq(setFinderSearch.cancelRequested, false)),
+    )
     .returning();
   return row ?? null;
 }
 
 /** Ends a search with its final status. */
-export async function endSearch(tx: Executor, id: string, status: Exclude<SetFinderStatus, "queued" | "running">, update: Partial<SearchProgressUpdate>) {
+export async function endSearch(
+  tx: Executor,
+  id: string,
+  status: Exclude<SetFinderStatus, "queued" | "running">,
+  update: Partial<SearchProgressUpdate>,
+) {
   await tx
     .update(setFinderSearch)
     .set({ ...update, message: update.message ?? null, status, finishedAt: sql`now()` })

@@ -60,10 +60,7 @@ export async function lockTemplate(executor: Executor, id: string, departmentId:
 
 /** Moves a template to its new current version (and the title of that version's lesson). */
 export async function setTemplateCurrentVersion(executor: Executor, id: string, version: number, title: string) {
-  await executor
-    .update(lessonTemplate)
-    .set({ currentVersion: version, title, updatedAt: new Date() })
-    .where(eq(lessonTemplate.id, id));
+  await executor.update(lessonTemplate).set({ currentVersion: version, title, updatedAt: new Date() }).where(eq(lessonTemplate.id, id));
 }
 
 export async function setTemplateStatus(executor: Executor, id: string, status: TemplateStatus) {
@@ -80,7 +77,12 @@ export async function listTemplates(
   status: TemplateStatus,
 ): Promise<TemplateWithCurrentVersion[]> {
   return executor
-    .select({ template: lessonTemplate, current: lessonTemplateVersion, publishedByName: publisher.name, proposedByName: versionProposer.name })
+    .select({
+      template: lessonTemplate,
+      current: lessonTemplateVersion,
+      publishedByName: publisher.name,
+      proposedByName: versionProposer.name,
+    })
     .from(lessonTemplate)
     .innerJoin(
       lessonTemplateVersion,
@@ -95,7 +97,12 @@ export async function listTemplates(
 /** One template of one department with its current version, or null. */
 export async function findTemplate(executor: Executor, id: string, departmentId: string): Promise<TemplateWithCurrentVersion | null> {
   const [row] = await executor
-    .select({ template: lessonTemplate, current: lessonTemplateVersion, publishedByName: publisher.name, proposedByName: versionProposer.name })
+    .select({
+      template: lessonTemplate,
+      current: lessonTemplateVersion,
+      publishedByName: publisher.name,
+      proposedByName: versionProposer.name,
+    })
     .from(lessonTemplate)
     .innerJoin(
       lessonTemplateVersion,

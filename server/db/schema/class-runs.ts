@@ -28,10 +28,14 @@ export const classRun = pgTable(
     dicePerPlayer: integer("dice_per_player").notNull().default(1),
     players: integer("players").notNull().default(2),
     tieRule: text("tie_rule").notNull().default("re-roll-ties"),
-    matchupChoice: text("matchup_choice", { enum: ["assigned", "group-choice"] }).notNull().default("assigned"),
+    matchupChoice: text("matchup_choice", { enum: ["assigned", "group-choice"] })
+      .notNull()
+      .default("assigned"),
     phases: jsonb("phases").$type<string[]>().notNull(),
     phase: text("phase").notNull(),
-    status: text("status", { enum: ["open", "paused", "closed"] }).notNull().default("open"),
+    status: text("status", { enum: ["open", "paused", "closed"] })
+      .notNull()
+      .default("open"),
     joinCode: text("join_code").notNull(),
     // The Twist phase starts a fresh tally; every roll records the tally it belongs to.
     currentTally: integer("current_tally").notNull().default(1),
@@ -55,7 +59,9 @@ export const classRun = pgTable(
     closedAt: timestamp("closed_at", { withTimezone: true }),
   },
   (table) => [
-    uniqueIndex("class_run_open_join_code_idx").on(table.joinCode).where(sql`${table.status} <> 'closed'`),
+    uniqueIndex("class_run_open_join_code_idx")
+      .on(table.joinCode)
+      .where(sql`${table.status} <> 'closed'`),
     index("class_run_owner_id_idx").on(table.ownerId),
     index("class_run_department_id_idx").on(table.departmentId),
   ],
@@ -72,7 +78,9 @@ export const runGroup = pgTable(
     nickname: text("nickname").notNull(),
     // Die indexes (into the run's dice) of the group's matchup, one per player; null until assigned or chosen.
     matchup: jsonb("matchup").$type<number[] | null>(),
-    source: text("source", { enum: ["phone", "simulated", "paper"] }).notNull().default("phone"),
+    source: text("source", { enum: ["phone", "simulated", "paper"] })
+      .notNull()
+      .default("phone"),
     // The nickname's confusable skeleton (shared/class-runs/nickname-rules.ts), so two look-alike nicknames cannot share a run.
     nicknameKey: text("nickname_key"),
     // The phone's id for the join attempt that made the group, so a retried join answers the same group.
@@ -149,14 +157,13 @@ export const roll = pgTable(
     totals: jsonb("totals").$type<number[]>().notNull(),
     // Seat (0, 1, 2) of the player with the highest total; null when the highest total is shared (a tie).
     winnerSeat: integer("winner_seat"),
-    source: text("source", { enum: ["phone", "simulated", "paper"] }).notNull().default("phone"),
+    source: text("source", { enum: ["phone", "simulated", "paper"] })
+      .notNull()
+      .default("phone"),
     paperImportId: uuid("paper_import_id").references(() => paperImport.id, { onDelete: "cascade" }),
     recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull(),
     receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
     undoneAt: timestamp("undone_at", { withTimezone: true }),
   },
-  (table) => [
-    index("roll_run_tally_idx").on(table.runId, table.tally),
-    index("roll_group_id_idx").on(table.groupId),
-  ],
+  (table) => [index("roll_run_tally_idx").on(table.runId, table.tally), index("roll_group_id_idx").on(table.groupId)],
 );

@@ -14,7 +14,9 @@ export const diceSet = pgTable(
     departmentId: text("department_id").references(() => organization.id, { onDelete: "set null" }),
     name: text("name").notNull(),
     description: text("description").notNull().default(""),
-    visibility: text("visibility", { enum: ["private", "department"] }).notNull().default("private"),
+    visibility: text("visibility", { enum: ["private", "department"] })
+      .notNull()
+      .default("private"),
     dice: jsonb("dice").$type<SetDie[]>().notNull(),
     // Optimistic concurrency: an update must name the version it started from.
     version: integer("version").notNull().default(1),

@@ -19,8 +19,5 @@ export const invitation = pgTable(
       .notNull()
       .references(() => user.id, { onDelete: "cascade" }),
   },
-  (table) => [
-    index("invitation_organization_id_idx").on(table.organizationId),
-    index("invitation_email_idx").on(table.email),
-  ],
+  (table) => [index("invitation_organization_id_idx").on(table.organizationId), index("invitation_email_idx").on(table.email)],
 );

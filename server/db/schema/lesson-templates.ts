@@ -11,7 +11,9 @@ export const lessonTemplate = pgTable(
       .notNull()
       .references(() => organization.id, { onDelete: "cascade" }),
     title: text("title").notNull(),
-    status: text("status", { enum: ["published", "retired"] }).notNull().default("published"),
+    status: text("status", { enum: ["published", "retired"] })
+      .notNull()
+      .default("published"),
     currentVersion: integer("current_version").notNull().default(1),
     sourceLessonId: uuid("source_lesson_id"),
     createdById: text("created_by_id")
@@ -57,7 +59,9 @@ export const shelfProposal = pgTable(
       .notNull()
       .references(() => user.id, { onDelete: "cascade" }),
     note: text("note").notNull().default(""),
-    status: text("status", { enum: ["pending", "approved", "declined"] }).notNull().default("pending"),
+    status: text("status", { enum: ["pending", "approved", "declined"] })
+      .notNull()
+      .default("pending"),
     decidedById: text("decided_by_id").references(() => user.id),
     decisionNote: text("decision_note"),
     decidedAt: timestamp("decided_at", { withTimezone: true }),

@@ -17,7 +17,9 @@ export const lesson = pgTable(
     departmentId: text("department_id").references(() => organization.id, { onDelete: "set null" }),
     title: text("title").notNull(),
     classGroup: text("class_group").notNull().default(""),
-    status: text("status", { enum: ["draft", "ready", "taught"] }).notNull().default("draft"),
+    status: text("status", { enum: ["draft", "ready", "taught"] })
+      .notNull()
+      .default("draft"),
     diceSetId: uuid("dice_set_id").references(() => diceSet.id, { onDelete: "set null" }),
     plan: jsonb("plan").$type<Record<string, unknown>>().notNull(),
     version: integer("version").notNull().default(1),

@@ -45,7 +45,11 @@ export function AppLayout() {
   const waitingCount = isHead ? (waiting.data?.waiting ?? 0) : 0;
 
   if (teacher.isPending || (!teacher.data && teacher.isFetching)) {
-    return <p className="p-8 text-lg" role="status">Loading your department…</p>;
+    return (
+      <p className="p-8 text-lg" role="status">
+        Loading your department…
+      </p>
+    );
   }
   if (teacher.isError) {
     return (

@@ -17,7 +17,9 @@ function TemplateRoute({ isHead }: { isHead: boolean }) {
   const { id = "" } = useParams();
   const [params] = useSearchParams();
   const version = Number(params.get("version"));
-  return <TemplateDetailPanel key={id} templateId={id} version={Number.isInteger(version) && version > 0 ? version : null} isHead={isHead} />;
+  return (
+    <TemplateDetailPanel key={id} templateId={id} version={Number.isInteger(version) && version > 0 ? version : null} isHead={isHead} />
+  );
 }
 
 /** The Department shelf: templates and proposals (colleagues and invitations are on the Department page). */

@@ -18,8 +18,8 @@ export function DevMailRoute() {
       <main className="mx-auto max-w-7xl px-4 py-6 sm:px-6">
         <h1 className="text-3xl sm:text-4xl">Local mailbox</h1>
         <p className="mb-6 mt-2 max-w-3xl text-lg text-ink-soft">
-          Every e-mail Outroll sent while no SMTP_URL is set lands in its own fake mail server on this machine, not in anyone&rsquo;s
-          inbox. Newest first; refreshes by itself.
+          Every e-mail Outroll sent while no SMTP_URL is set lands in its own fake mail server on this machine, not in anyone&rsquo;s inbox.
+          Newest first; refreshes by itself.
         </p>
         <ReceivedMailPage />
       </main>

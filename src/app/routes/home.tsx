@@ -20,7 +20,11 @@ function WaitingProposalsPanel() {
     >
       <div>
         <h2 id="waiting-proposals-heading" className="text-xl">
-          {count === 0 ? "No proposals waiting" : count === 1 ? "1 proposal waits for your decision" : `${count} proposals wait for your decision`}
+          {count === 0
+            ? "No proposals waiting"
+            : count === 1
+              ? "1 proposal waits for your decision"
+              : `${count} proposals wait for your decision`}
         </h2>
         <p className="mt-1 text-ink-soft">
           {count === 0
@@ -42,18 +46,12 @@ export function HomeRoute() {
   const firstName = data?.user.name.split(" ")[0] ?? "";
   return (
     <>
-      <PageHeader
-        title={`Welcome, ${firstName}`}
-        lead="Prepare a dice set, plan the lesson, then run it live with your class."
-      />
+      <PageHeader title={`Welcome, ${firstName}`} lead="Prepare a dice set, plan the lesson, then run it live with your class." />
       {data?.role === "head" && <WaitingProposalsPanel />}
       <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
         {visibleProductAreas(Boolean(data?.role)).map((area) => (
           <li key={area.path}>
-            <Link
-              to={area.path}
-              className="block h-full rounded-2xl border-2 border-line bg-shell p-5 hover:border-tide"
-            >
+            <Link to={area.path} className="block h-full rounded-2xl border-2 border-line bg-shell p-5 hover:border-tide">
               <h2 className="text-xl text-tide">{area.label}</h2>
               <p className="mt-1 text-ink-soft">{area.summary}</p>
             </Link>
@@ -62,8 +60,8 @@ export function HomeRoute() {
       </ul>
       <div className="mt-8 max-w-3xl">
         <Alert tone="caution" title="Pupils are minors: keep their data out">
-          Outroll never asks pupils for accounts, names or e-mail addresses. Groups choose a nickname when they join a class
-          run; remind pupils not to use their real names, and do not type pupils&rsquo; names into lesson notes or uploads.{" "}
+          Outroll never asks pupils for accounts, names or e-mail addresses. Groups choose a nickname when they join a class run; remind
+          pupils not to use their real names, and do not type pupils&rsquo; names into lesson notes or uploads.{" "}
           <Link to="/privacy" className="font-bold underline">
             Read the privacy notice
           </Link>

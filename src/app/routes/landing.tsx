@@ -20,7 +20,10 @@ export function LandingRoute() {
         </Link>
         <div className="flex flex-wrap items-center justify-end gap-2">
           {/* A full page load: the Roll pad is a page of its own, not part of the teachers' app. */}
-          <a href="/pad" className="whitespace-nowrap rounded-xl border-2 border-amber-300 px-4 py-2 font-bold text-amber-200 hover:bg-white/10">
+          <a
+            href="/pad"
+            className="whitespace-nowrap rounded-xl border-2 border-amber-300 px-4 py-2 font-bold text-amber-200 hover:bg-white/10"
+          >
             Join a class
           </a>
           <nav aria-label="Account" className="flex gap-2">
@@ -40,9 +43,8 @@ export function LandingRoute() {
             Dice that beat each other in a circle, and a lesson that proves why.
           </h1>
           <p className="mt-6 max-w-2xl text-xl text-sand/85">
-            Outroll helps you choose or design an intransitive dice set, plan the lesson, run it live with pupils&rsquo;
-            phones or paper, pool the class&rsquo;s rolls against the exact probabilities, and share the lesson with your
-            department.
+            Outroll helps you choose or design an intransitive dice set, plan the lesson, run it live with pupils&rsquo; phones or paper,
+            pool the class&rsquo;s rolls against the exact probabilities, and share the lesson with your department.
           </p>
           <div className="mt-8 flex flex-wrap gap-3">
             <Link to="/sign-up" className="rounded-xl bg-amber-400 px-5 py-3 text-lg font-bold text-ink hover:bg-amber-300">
@@ -68,8 +70,8 @@ export function LandingRoute() {
               ))}
             </ol>
             <p className="mt-8 max-w-3xl text-ink-soft">
-              Pupils never make accounts. Groups join a class run with a join code or QR code and choose a nickname;
-              Outroll stores only those nicknames and the rolls.
+              Pupils never make accounts. Groups join a class run with a join code or QR code and choose a nickname; Outroll stores only
+              those nicknames and the rolls.
             </p>
           </div>
         </section>

@@ -48,7 +48,9 @@ function PatternMotif({ pattern, hex }: { pattern: string; hex: string }) {
     case "chevrons":
       return <path d="M1 7 L5 3 L9 7" {...stroke} strokeWidth={1.8} />;
     case "hearts":
-      return <path d="M5 8.4 C1.2 5.8 1.2 2.4 3.3 2.2 C4.3 2.1 4.8 2.8 5 3.4 C5.2 2.8 5.7 2.1 6.7 2.2 C8.8 2.4 8.8 5.8 5 8.4 Z" fill={hex} />;
+      return (
+        <path d="M5 8.4 C1.2 5.8 1.2 2.4 3.3 2.2 C4.3 2.1 4.8 2.8 5 3.4 C5.2 2.8 5.7 2.1 6.7 2.2 C8.8 2.4 8.8 5.8 5 8.4 Z" fill={hex} />
+      );
     case "bars":
       return <rect x="3.6" y="0" width="2.8" height="10" fill={hex} />;
     case "hatching":

@@ -42,7 +42,14 @@ export function ChoiceGroup<T extends string>({
                 checked ? "border-tide bg-tide-light text-ink" : "border-line bg-white text-ink-soft hover:border-ink/40"
               }`}
             >
-              <input type="radio" className="sr-only" name={name} value={option.value} checked={checked} onChange={() => onChange(option.value)} />
+              <input
+                type="radio"
+                className="sr-only"
+                name={name}
+                value={option.value}
+                checked={checked}
+                onChange={() => onChange(option.value)}
+              />
               <span aria-hidden="true" className={`inline-block w-3 text-tide ${checked ? "" : "invisible"}`}>
                 ✓
               </span>

@@ -19,7 +19,10 @@ export function SavedToast({ message, stamp }: { message: string | null; stamp: 
     // Seen, not announced: the editor's own status line says the same to screen readers.
     <div className="pointer-events-none fixed inset-x-0 bottom-4 z-40 flex justify-center px-4" aria-hidden="true">
       {visible && message !== null && (
-        <p data-testid="saved-toast" className="pointer-events-auto rounded-xl border-2 border-tide bg-tide-light px-5 py-3 text-lg font-bold text-ink shadow-lg">
+        <p
+          data-testid="saved-toast"
+          className="pointer-events-auto rounded-xl border-2 border-tide bg-tide-light px-5 py-3 text-lg font-bold text-ink shadow-lg"
+        >
           ✓ {message}
         </p>
       )}

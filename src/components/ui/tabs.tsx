@@ -18,17 +18,28 @@ export function Tabs({
 }) {
   const baseId = useId();
   const refs = useRef<Record<string, HTMLButtonElement | null>>({});
-  const index = Math.max(0, items.findIndex((item) => item.id === selected));
+  const index = Math.max(
+    0,
+    items.findIndex((item) => item.id === selected),
+  );
   const current = items[index];
 
   const move = (event: KeyboardEvent) => {
     const last = items.length - 1;
     const next =
-      event.key === "ArrowRight" ? (index === last ? 0 : index + 1)
-      : event.key === "ArrowLeft" ? (index === 0 ? last : index - 1)
-      : event.key === "Home" ? 0
-      : event.key === "End" ? last
-      : null;
+      event.key === "ArrowRight"
+        ? index === last
+          ? 0
+          : index + 1
+        : event.key === "ArrowLeft"
+          ? index === 0
+            ? last
+            : index - 1
+          : event.key === "Home"
+            ? 0
+            : event.key === "End"
+              ? last
+              : null;
     if (next === null) return;
     event.preventDefault();
     onSelect(items[next].id);

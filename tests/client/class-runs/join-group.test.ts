@@ -23,7 +23,9 @@ describe("the Roll pad's words for a refused join", () => {
   });
 
   it("keeps the server's own message for refusals the pad has no words of its own for", () => {
-    expect(joinRefusalText("nickname_taken", "Another group already uses “Gull Patrol”.")).toBe("Another group already uses “Gull Patrol”.");
+    expect(joinRefusalText("nickname_taken", "Another group already uses “Gull Patrol”.")).toBe(
+      "Another group already uses “Gull Patrol”.",
+    );
   });
 });
 

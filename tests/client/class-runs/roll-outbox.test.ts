@@ -1,6 +1,12 @@
 import { describe, expect, it } from "vitest";
 import type { RollPayload, RollRecordAck, RollUndoAck } from "@shared/events";
-import { keyValueOutboxStore, recordOperation, RollOutbox, undoOperation, type OutboxTransport } from "@/features/class-runs/delivery/roll-outbox";
+import {
+  keyValueOutboxStore,
+  recordOperation,
+  RollOutbox,
+  undoOperation,
+  type OutboxTransport,
+} from "@/features/class-runs/delivery/roll-outbox";
 
 type Call = { kind: "record" | "undo"; id: string; settle: (answer: RollRecordAck | RollUndoAck | Error) => void };
 
@@ -10,8 +16,22 @@ function manualTransport() {
   let connected = true;
   const transport: OutboxTransport = {
     isConnected: () => connected,
-    record: (roll) => new Promise((resolve, reject) => calls.push({ kind: "record", id: roll.id, settle: (answer) => (answer instanceof Error ? reject(answer) : resolve(answer as RollRecordAck)) })),
-    undo: (rollId) => new Promise((resolve, reject) => calls.push({ kind: "undo", id: rollId, settle: (answer) => (answer instanceof Error ? reject(answer) : resolve(answer as RollUndoAck)) })),
+    record: (roll) =>
+      new Promise((resolve, reject) =>
+        calls.push({
+          kind: "record",
+          id: roll.id,
+          settle: (answer) => (answer instanceof Error ? reject(answer) : resolve(answer as RollRecordAck)),
+        }),
+      ),
+    undo: (rollId) =>
+      new Promise((resolve, reject) =>
+        calls.push({
+          kind: "undo",
+          id: rollId,
+          settle: (answer) => (answer instanceof Error ? reject(answer) : resolve(answer as RollUndoAck)),
+        }),
+      ),
   };
   return { transport, calls, setConnected: (value: boolean) => (connected = value) };
 }
@@ -102,7 +122,10 @@ describe("RollOutbox", () => {
 
   it("survives a reload: a new outbox on the same storage finds what was kept", () => {
     const memory = new Map<string, string>();
-    const storage = { getItem: (key: string) => memory.get(key) ?? null, setItem: (key: string, value: string) => void memory.set(key, value) };
+    const storage = {
+      getItem: (key: string) => memory.get(key) ?? null,
+      setItem: (key: string, value: string) => void memory.set(key, value),
+    };
     const offline = manualTransport();
     offline.setConnected(false);
     new RollOutbox(keyValueOutboxStore(storage, "k"), offline.transport).add(recordOperation(roll("kept")));

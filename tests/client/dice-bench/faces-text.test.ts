@@ -39,7 +39,9 @@ describe("naming what is wrong with a die's faces", () => {
   });
 
   it("puts a message about the whole die first", () => {
-    expect(faceErrorMessages({ message: "A die needs at least 2 faces; this one has 1." }, [4])).toEqual(["A die needs at least 2 faces; this one has 1."]);
+    expect(faceErrorMessages({ message: "A die needs at least 2 faces; this one has 1." }, [4])).toEqual([
+      "A die needs at least 2 faces; this one has 1.",
+    ]);
   });
 });
 

@@ -3,11 +3,38 @@ import { assignedMatchup, cycleMatchups } from "@shared/class-results/assigned-m
 
 describe("cycleMatchups", () => {
   it.each([
-    [3, 2, [[0, 1], [1, 2], [2, 0]]],
+    [
+      3,
+      2,
+      [
+        [0, 1],
+        [1, 2],
+        [2, 0],
+      ],
+    ],
     [2, 2, [[0, 1]]],
-    [4, 2, [[0, 1], [1, 2], [2, 3], [3, 0]]],
+    [
+      4,
+      2,
+      [
+        [0, 1],
+        [1, 2],
+        [2, 3],
+        [3, 0],
+      ],
+    ],
     [3, 3, [[0, 1, 2]]],
-    [5, 3, [[0, 1, 2], [1, 2, 3], [2, 3, 4], [3, 4, 0], [4, 0, 1]]],
+    [
+      5,
+      3,
+      [
+        [0, 1, 2],
+        [1, 2, 3],
+        [2, 3, 4],
+        [3, 4, 0],
+        [4, 0, 1],
+      ],
+    ],
   ])("gives %i dice and %i players the neighbouring matchups round the set", (dice, players, expected) => {
     expect(cycleMatchups(dice, players)).toEqual(expected);
   });
@@ -17,6 +44,12 @@ describe("cycleMatchups", () => {
   });
 
   it("hands the matchups out to groups in turn", () => {
-    expect([0, 1, 2, 3, 4].map((group) => assignedMatchup(3, 2, group))).toEqual([[0, 1], [1, 2], [2, 0], [0, 1], [1, 2]]);
+    expect([0, 1, 2, 3, 4].map((group) => assignedMatchup(3, 2, group))).toEqual([
+      [0, 1],
+      [1, 2],
+      [2, 0],
+      [0, 1],
+      [1, 2],
+    ]);
   });
 });

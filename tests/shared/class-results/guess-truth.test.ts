@@ -22,7 +22,14 @@ describe("guessTruth", () => {
 
   it("names the best die when one beats every other", () => {
     // Worked by hand: [5,5,6] beats [1,2,3] always and [4,4,4] always; [4,4,4] beats [1,2,3] always.
-    const truth = guessTruth([{ name: "Low", faces: [1, 2, 3] }, { name: "High", faces: [5, 5, 6] }, { name: "Middle", faces: [4, 4, 4] }], "ties-score-half");
+    const truth = guessTruth(
+      [
+        { name: "Low", faces: [1, 2, 3] },
+        { name: "High", faces: [5, 5, 6] },
+        { name: "Middle", faces: [4, 4, 4] },
+      ],
+      "ties-score-half",
+    );
     expect(truth.bestDieIndex).toBe(1);
     expect(truth.verdicts[1].beatenBy).toBeNull();
     expect(truth.verdicts[0].beatenBy).toMatchObject({ name: "High", fraction: "1" });

@@ -2,8 +2,22 @@ import fc from "fast-check";
 import Fraction from "fraction.js";
 import jStat from "jstat";
 import { describe, expect, it } from "vitest";
-import { binomialPValue, CONVERGENCE_POINTS_MAX, type PoolableRoll, poolRolls, scoreUnderTieRule } from "@shared/class-results/pooled-results";
-import { binomialTest, compareDice, matchupSimulation, TIE_RULES, type TieRule, winProbabilityUnderTieRule, wilsonInterval } from "@shared/probability/index";
+import {
+  binomialPValue,
+  CONVERGENCE_POINTS_MAX,
+  type PoolableRoll,
+  poolRolls,
+  scoreUnderTieRule,
+} from "@shared/class-results/pooled-results";
+import {
+  binomialTest,
+  compareDice,
+  matchupSimulation,
+  TIE_RULES,
+  type TieRule,
+  winProbabilityUnderTieRule,
+  wilsonInterval,
+} from "@shared/probability/index";
 
 // Invented dice for hand-worked examples.
 const dice = [
@@ -85,7 +99,11 @@ describe("poolRolls exact values", () => {
     expect(entry.exact.sharedHighest.fraction).toBe("1/4");
     expect(entry.exact.seatWins.map((value) => value.fraction)).toEqual(["1/4", "1/4", "1/4"]);
     expect(entry.exact.underTieRule?.fraction).toBe("3/8");
-    expect(entry.seats.map((seat) => [seat.wins, seat.ties, seat.losses])).toEqual([[0, 1, 0], [0, 0, 1], [0, 1, 0]]);
+    expect(entry.seats.map((seat) => [seat.wins, seat.ties, seat.losses])).toEqual([
+      [0, 1, 0],
+      [0, 0, 1],
+      [0, 1, 0],
+    ]);
     expect(entry.frequencyUnderTieRule).toBe(0.5);
   });
 
@@ -93,7 +111,10 @@ describe("poolRolls exact values", () => {
     const die = fc.array(fc.integer({ min: 0, max: 9 }), { minLength: 2, maxLength: 6 });
     fc.assert(
       fc.property(die, die, fc.integer({ min: 1, max: 2 }), fc.constantFrom(...TIE_RULES), (a, b, dicePerPlayer, tieRule) => {
-        const set = [{ name: "A", faces: a }, { name: "B", faces: b }];
+        const set = [
+          { name: "A", faces: a },
+          { name: "B", faces: b },
+        ];
         const [entry] = poolRolls({ dice: set, tieRule, rolls: [roll("g", [0, 1], [1, 0], { dicePerPlayer })] }).matchups;
         const engine = compareDice(a, b, { dicePerPlayer });
         expect(entry.exact.win.fraction).toBe(new Fraction(engine.win).toFraction());
@@ -109,7 +130,11 @@ describe("poolRolls exact values", () => {
     const die = fc.array(fc.integer({ min: 0, max: 6 }), { minLength: 2, maxLength: 4 });
     fc.assert(
       fc.property(die, die, die, (a, b, c) => {
-        const set = [{ name: "A", faces: a }, { name: "B", faces: b }, { name: "C", faces: c }];
+        const set = [
+          { name: "A", faces: a },
+          { name: "B", faces: b },
+          { name: "C", faces: c },
+        ];
         const [entry] = poolRolls({ dice: set, tieRule: "re-roll-ties", rolls: [roll("g", [0, 1, 2], [1, 0, 0])] }).matchups;
         const brute = enumerate([a, b, c]);
         expect(entry.exact.win.fraction).toBe(brute.win.toFraction());
@@ -188,7 +213,10 @@ describe("poolRolls counts", () => {
 describe("poolRolls convergence series", () => {
   const a = [1, 5, 5, 5, 5, 7];
   const b = [2, 3, 3, 4, 6, 6];
-  const set = [{ name: "Shag", faces: a }, { name: "Fulmar", faces: b }];
+  const set = [
+    { name: "Shag", faces: a },
+    { name: "Fulmar", faces: b },
+  ];
   const simulation = matchupSimulation(a, b, { rolls: 3000, seed: 2026 });
   const rolls = simulation.rolls.map((entry) => roll("sim", [0, 1], [entry.firstTotal, entry.secondTotal], { source: "simulated" }));
 
@@ -273,7 +301,11 @@ describe("poolRolls group plausibility", () => {
   });
 
   it("gives the same p-value from the floating-point sum as from the engine's whole-number test", () => {
-    for (const [successes, trials, p] of [[1100, 2000, new Fraction(5, 9)], [700, 3000, new Fraction(4115, 15552)], [2500, 5000, new Fraction(1, 2)]] as const) {
+    for (const [successes, trials, p] of [
+      [1100, 2000, new Fraction(5, 9)],
+      [700, 3000, new Fraction(4115, 15552)],
+      [2500, 5000, new Fraction(1, 2)],
+    ] as const) {
       const floating = binomialPValue(successes, trials, p);
       expect(floating.method).toBe("exact binomial test (floating point)");
       expect(floating.pValue).toBeCloseTo(binomialTest(successes, trials, p).pValueNumber, 9);

@@ -77,16 +77,21 @@ function directRunningFrequency(rolls: PoolableRoll[], tieRule: TieRule): (numbe
 describe("RollPool, pooling as rolls come", () => {
   it("gives after every chunk the same figures as pooling all the rolls so far at once", () => {
     fc.assert(
-      fc.property(fc.array(rollArbitrary, { maxLength: 120 }), fc.array(fc.nat(200), { maxLength: 5 }), fc.constantFrom(...TIE_RULES), (rolls, cuts, tieRule) => {
-        const pool = new RollPool(dice, tieRule);
-        const seen: PoolableRoll[] = [];
-        for (const chunk of chunks(rolls, cuts)) {
-          pool.add(chunk);
-          seen.push(...chunk);
-          expect(pool.result()).toEqual(poolRolls({ dice, tieRule, rolls: seen }));
-        }
-        expect(pool.size).toBe(rolls.length);
-      }),
+      fc.property(
+        fc.array(rollArbitrary, { maxLength: 120 }),
+        fc.array(fc.nat(200), { maxLength: 5 }),
+        fc.constantFrom(...TIE_RULES),
+        (rolls, cuts, tieRule) => {
+          const pool = new RollPool(dice, tieRule);
+          const seen: PoolableRoll[] = [];
+          for (const chunk of chunks(rolls, cuts)) {
+            pool.add(chunk);
+            seen.push(...chunk);
+            expect(pool.result()).toEqual(poolRolls({ dice, tieRule, rolls: seen }));
+          }
+          expect(pool.size).toBe(rolls.length);
+        },
+      ),
       { numRuns: 60 },
     );
   });
@@ -124,7 +129,9 @@ describe("RollPool, pooling as rolls come", () => {
         const full = poolRolls({ dice, tieRule, rolls });
         const flat = new RollPool(dice, tieRule, { series: false }).add(rolls).result();
         expect(flat.matchups.map((entry) => entry.convergence)).toEqual(full.matchups.map(() => []));
-        expect(flat.matchups.map(({ convergence: _convergence, ...rest }) => rest)).toEqual(full.matchups.map(({ convergence: _convergence, ...rest }) => rest));
+        expect(flat.matchups.map(({ convergence: _convergence, ...rest }) => rest)).toEqual(
+          full.matchups.map(({ convergence: _convergence, ...rest }) => rest),
+        );
         expect(flat.groups).toEqual(full.groups);
         expect(flat.totals).toEqual(full.totals);
       }),
@@ -166,10 +173,14 @@ describe("BoardPool, a Run board's running pools", () => {
         for (const entry of rolls) perGroup[entry.groupId] = (perGroup[entry.groupId] ?? 0) + 1;
         expect(result.rollsByGroup).toEqual(perGroup);
         for (const [index, { tally }] of tallies.entries()) {
-          const named = rolls.filter((entry) => entry.tally === tally).map((entry) => ({ ...entry, groupNickname: nicknames[entry.groupId as keyof typeof nicknames] ?? entry.groupNickname }));
+          const named = rolls
+            .filter((entry) => entry.tally === tally)
+            .map((entry) => ({ ...entry, groupNickname: nicknames[entry.groupId as keyof typeof nicknames] ?? entry.groupNickname }));
           const own = named.filter((entry) => entry.source !== "simulated");
           expect(result.tallies[index].pooled).toEqual(poolRolls({ dice, tieRule: "ties-score-half", rolls: named }));
-          expect(result.tallies[index].withoutSimulated).toEqual(own.length === named.length ? null : poolRolls({ dice, tieRule: "ties-score-half", rolls: own }));
+          expect(result.tallies[index].withoutSimulated).toEqual(
+            own.length === named.length ? null : poolRolls({ dice, tieRule: "ties-score-half", rolls: own }),
+          );
         }
       }),
       { numRuns: 40 },
@@ -177,7 +188,11 @@ describe("BoardPool, a Run board's running pools", () => {
   });
 
   it("keeps no class-only pool for rolls without simulated ones, and refuses a simulated roll later", () => {
-    const settings = { dice, tieRule: "re-roll-ties" as const, tallies: [{ tally: 1, dicePerPlayer: 1, players: 2, startedAt: "2026-03-03T10:00:00.000Z" }] };
+    const settings = {
+      dice,
+      tieRule: "re-roll-ties" as const,
+      tallies: [{ tally: 1, dicePerPlayer: 1, players: 2, startedAt: "2026-03-03T10:00:00.000Z" }],
+    };
     const rolls = fc.sample(rollArbitrary, { numRuns: 30, seed: 5 }).map((entry) => ({ ...entry, tally: 1, source: "phone" as const }));
     const board = BoardPool.of(settings, rolls);
     expect(board.result({}).tallies[0].withoutSimulated).toBeNull();
@@ -200,44 +215,75 @@ describe("RollPool.addCounts: win/tie/loss counts with no rolls behind them", ()
 
   it("gives every count, frequency, interval and test the same figures as the same rolls added one by one", () => {
     fc.assert(
-      fc.property(fc.nat(30), fc.nat(30), fc.nat(30), fc.boolean(), fc.constantFrom<TieRule>(...TIE_RULES), (firstWins, ties, secondWins, typedSwapped, tieRule) => {
-        // Fulmar (die 0) v Shag (die 1), totals as recorded: 6 v 5 a win for Fulmar, 5 v 5 a tie, 4 v 5 a win for Shag.
-        const rolls: PoolableRoll[] = [];
-        let second = 0;
-        for (let index = 0; index < firstWins; index += 1) rolls.push(rollOf("crew", [0, 1], [6, 5], second++));
-        for (let index = 0; index < ties; index += 1) rolls.push(rollOf("crew", [0, 1], [5, 5], second++));
-        for (let index = 0; index < secondWins; index += 1) rolls.push(rollOf("crew", [0, 1], [4, 5], second++));
-        const byRolls = new RollPool(dice, tieRule).add(rolls).result();
-        const counted = new RollPool(dice, tieRule);
-        counted.addCounts(
-          typedSwapped
-            ? { groupId: "crew", tally: 1, dicePerPlayer: 1, matchup: [1, 0], firstWins: secondWins, ties, secondWins: firstWins, source: "paper" }
-            : { groupId: "crew", tally: 1, dicePerPlayer: 1, matchup: [0, 1], firstWins, ties, secondWins, source: "paper" },
-        );
-        const byCounts = counted.result();
-        const total = firstWins + ties + secondWins;
-        expect(byCounts.totals).toEqual({ ...byRolls.totals, countedRolls: total });
-        expect(byCounts.matchups.length).toBe(byRolls.matchups.length);
-        for (const [index, entry] of byCounts.matchups.entries()) {
-          const { convergence: countedSeries, countedRolls, ...countedFigures } = entry;
-          const { convergence: rolledSeries, countedRolls: none, ...rolledFigures } = byRolls.matchups[index];
-          expect(countedFigures).toEqual(rolledFigures);
-          expect(countedRolls).toBe(total);
-          expect(none).toBe(0);
-          // Counts have no order, so they add no point to the convergence series.
-          expect(countedSeries).toEqual([]);
-          expect(rolledSeries.length).toBeGreaterThan(0);
-        }
-        expect(byCounts.groups.map(({ countedRolls: _counted, ...group }) => group)).toEqual(byRolls.groups.map(({ countedRolls: _counted, ...group }) => group));
-      }),
+      fc.property(
+        fc.nat(30),
+        fc.nat(30),
+        fc.nat(30),
+        fc.boolean(),
+        fc.constantFrom<TieRule>(...TIE_RULES),
+        (firstWins, ties, secondWins, typedSwapped, tieRule) => {
+          // Fulmar (die 0) v Shag (die 1), totals as recorded: 6 v 5 a win for Fulmar, 5 v 5 a tie, 4 v 5 a win for Shag.
+          const rolls: PoolableRoll[] = [];
+          let second = 0;
+          for (let index = 0; index < firstWins; index += 1) rolls.push(rollOf("crew", [0, 1], [6, 5], second++));
+          for (let index = 0; index < ties; index += 1) rolls.push(rollOf("crew", [0, 1], [5, 5], second++));
+          for (let index = 0; index < secondWins; index += 1) rolls.push(rollOf("crew", [0, 1], [4, 5], second++));
+          const byRolls = new RollPool(dice, tieRule).add(rolls).result();
+          const counted = new RollPool(dice, tieRule);
+          counted.addCounts(
+            typedSwapped
+              ? {
+                  groupId: "crew",
+                  tally: 1,
+                  dicePerPlayer: 1,
+                  matchup: [1, 0],
+                  firstWins: secondWins,
+                  ties,
+                  secondWins: firstWins,
+                  source: "paper",
+                }
+              : { groupId: "crew", tally: 1, dicePerPlayer: 1, matchup: [0, 1], firstWins, ties, secondWins, source: "paper" },
+          );
+          const byCounts = counted.result();
+          const total = firstWins + ties + secondWins;
+          expect(byCounts.totals).toEqual({ ...byRolls.totals, countedRolls: total });
+          expect(byCounts.matchups.length).toBe(byRolls.matchups.length);
+          for (const [index, entry] of byCounts.matchups.entries()) {
+            const { convergence: countedSeries, countedRolls, ...countedFigures } = entry;
+            const { convergence: rolledSeries, countedRolls: none, ...rolledFigures } = byRolls.matchups[index];
+            expect(countedFigures).toEqual(rolledFigures);
+            expect(countedRolls).toBe(total);
+            expect(none).toBe(0);
+            // Counts have no order, so they add no point to the convergence series.
+            expect(countedSeries).toEqual([]);
+            expect(rolledSeries.length).toBeGreaterThan(0);
+          }
+          expect(byCounts.groups.map(({ countedRolls: _counted, ...group }) => group)).toEqual(
+            byRolls.groups.map(({ countedRolls: _counted, ...group }) => group),
+          );
+        },
+      ),
       { numRuns: 60 },
     );
   });
 
   it("refuses counts that are not whole numbers from 0, or that are not for two dice", () => {
     const pool = new RollPool(dice, "re-roll-ties");
-    expect(() => pool.addCounts({ groupId: "g", tally: 1, dicePerPlayer: 1, matchup: [0, 1], firstWins: -1, ties: 0, secondWins: 0, source: "paper" })).toThrow(RangeError);
-    expect(() => pool.addCounts({ groupId: "g", tally: 1, dicePerPlayer: 1, matchup: [0, 1, 2], firstWins: 1, ties: 0, secondWins: 0, source: "paper" })).toThrow(RangeError);
+    expect(() =>
+      pool.addCounts({ groupId: "g", tally: 1, dicePerPlayer: 1, matchup: [0, 1], firstWins: -1, ties: 0, secondWins: 0, source: "paper" }),
+    ).toThrow(RangeError);
+    expect(() =>
+      pool.addCounts({
+        groupId: "g",
+        tally: 1,
+        dicePerPlayer: 1,
+        matchup: [0, 1, 2],
+        firstWins: 1,
+        ties: 0,
+        secondWins: 0,
+        source: "paper",
+      }),
+    ).toThrow(RangeError);
     expect(pool.size).toBe(0);
   });
 });

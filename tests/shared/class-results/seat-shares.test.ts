@@ -56,7 +56,18 @@ function bruteForceSeatShares(faces: number[][], tieRule: TieRule): (Fraction | 
 
 describe("padDieOrder", () => {
   it("follows the order the groups play a matchup in, the most played order first", () => {
-    expect(padDieOrder([0, 2], [[2, 0], [0, 1], [2, 0], [0, 2]], 3)).toEqual([2, 0]);
+    expect(
+      padDieOrder(
+        [0, 2],
+        [
+          [2, 0],
+          [0, 1],
+          [2, 0],
+          [0, 2],
+        ],
+        3,
+      ),
+    ).toEqual([2, 0]);
     expect(padDieOrder([0, 1, 2], [[1, 2, 0]], 3)).toEqual([1, 2, 0]);
   });
 
@@ -109,7 +120,14 @@ describe("seatShares", () => {
 });
 
 describe("matchupFromSeat", () => {
-  const rolls = [roll([1, 0], [2, 1]), roll([1, 0], [2, 3]), roll([1, 0], [3, 3]), roll([1, 0], [3, 1]), roll([1, 0], [2, 3]), roll([1, 0], [3, 1])];
+  const rolls = [
+    roll([1, 0], [2, 1]),
+    roll([1, 0], [2, 3]),
+    roll([1, 0], [3, 3]),
+    roll([1, 0], [3, 1]),
+    roll([1, 0], [2, 3]),
+    roll([1, 0], [3, 1]),
+  ];
 
   it("turns a two-player matchup round to the second die: its share, exact value and running series", () => {
     for (const tieRule of ["re-roll-ties", "ties-score-half"] as const) {

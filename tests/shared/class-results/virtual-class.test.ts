@@ -36,7 +36,13 @@ describe("simulatedMatchupRolls", () => {
 });
 
 describe("winnerSeatOf", () => {
-  it.each([[[3, 2], 0], [[2, 5], 1], [[4, 4], null], [[1, 6, 6], null], [[1, 2, 9], 2]])("gives %j the winner %s", (totals, winner) => {
+  it.each([
+    [[3, 2], 0],
+    [[2, 5], 1],
+    [[4, 4], null],
+    [[1, 6, 6], null],
+    [[1, 2, 9], 2],
+  ])("gives %j the winner %s", (totals, winner) => {
     expect(winnerSeatOf(totals as number[])).toBe(winner);
   });
 });

@@ -24,7 +24,11 @@ const plannedSize = (p: number) => Math.floor((z95 * z95) / (4 * (p - 0.5) ** 2)
 
 /** A plan without a Twist and with a 30-minute Roll phase (room for 90 rolls at 3 a minute), unless overridden. */
 function plan(overrides: Partial<LessonInput> = {}): LessonInput {
-  const phases = emptyLessonInput().phases.map((entry) => ({ ...entry, included: entry.phase !== "Twist", minutes: entry.phase === "Roll" ? 30 : entry.minutes }));
+  const phases = emptyLessonInput().phases.map((entry) => ({
+    ...entry,
+    included: entry.phase !== "Twist",
+    minutes: entry.phase === "Roll" ? 30 : entry.minutes,
+  }));
   return { ...emptyLessonInput(), title: "Test", phases, ...overrides };
 }
 
@@ -52,7 +56,12 @@ describe("lessonMaterials: the materials list", () => {
     // so 4 groups hold each die; spares are one per four groups (2).
     const result = lessonMaterials(plan({ groups: 8 }), gardner);
     expect(result.mainMatchupSource).toBe("cycle");
-    expect(result.games).toEqual([["A", "B"], ["B", "C"], ["C", "D"], ["D", "A"]]);
+    expect(result.games).toEqual([
+      ["A", "B"],
+      ["B", "C"],
+      ["C", "D"],
+      ["D", "A"],
+    ]);
     expect(result.materials.dice).toEqual(["A", "B", "C", "D"].map((name) => ({ name, forGroups: 4, spares: 2, total: 6 })));
     expect(result.materials.totalDice).toBe(24);
     expect(result.materials.recordingSheets).toEqual({ perGroup: 1, forGroups: 8, spares: 2, total: 10, rowsPerSheet: 30 });
@@ -60,7 +69,12 @@ describe("lessonMaterials: the materials list", () => {
 
   it("gives every group the whole set when groups choose their matchups", () => {
     const result = lessonMaterials(plan({ groups: 5, matchupChoice: "group-choice" }), gardner);
-    expect(result.materials.dice.map((entry) => [entry.forGroups, entry.spares])).toEqual([[5, 2], [5, 2], [5, 2], [5, 2]]);
+    expect(result.materials.dice.map((entry) => [entry.forGroups, entry.spares])).toEqual([
+      [5, 2],
+      [5, 2],
+      [5, 2],
+      [5, 2],
+    ]);
   });
 
   it("doubles every die for two dice each, and for a Twist round played two dice each", () => {
@@ -74,7 +88,12 @@ describe("lessonMaterials: the materials list", () => {
 
   it("seats three players round the cycle in trios of neighbours", () => {
     const result = lessonMaterials(plan({ groups: 4, mode: { dicePerPlayer: 1, players: 3 } }), gardner);
-    expect(result.games).toEqual([["A", "B", "C"], ["B", "C", "D"], ["C", "D", "A"], ["D", "A", "B"]]);
+    expect(result.games).toEqual([
+      ["A", "B", "C"],
+      ["B", "C", "D"],
+      ["C", "D", "A"],
+      ["D", "A", "B"],
+    ]);
     // Each die is in 3 of the 4 trios.
     expect(result.materials.dice.map((entry) => entry.forGroups)).toEqual([3, 3, 3, 3]);
   });
@@ -169,7 +188,10 @@ describe("lessonMaterials: is the class's pooled result convincing?", () => {
   });
 
   it("finds no winner to show when every matchup is even", () => {
-    const same = [{ name: "One", faces: [1, 2, 3] }, { name: "Two", faces: [1, 2, 3] }];
+    const same = [
+      { name: "One", faces: [1, 2, 3] },
+      { name: "Two", faces: [1, 2, 3] },
+    ];
     const result = lessonMaterials(plan(), same);
     expect(result.verdict.status).toBe("no-winner");
     expect(result.mainMatchupSource).toBe("none");
@@ -184,7 +206,11 @@ describe("lessonMaterials: is the class's pooled result convincing?", () => {
     ];
     const result = lessonMaterials(plan({ groups: 3 }), transitive);
     expect(result.mainMatchupSource).toBe("beats");
-    expect(result.verdict.matchups.map((entry) => `${entry.winner}>${entry.loser}`).sort()).toEqual(["High>Low", "High>Middle", "Middle>Low"]);
+    expect(result.verdict.matchups.map((entry) => `${entry.winner}>${entry.loser}`).sort()).toEqual([
+      "High>Low",
+      "High>Middle",
+      "Middle>Low",
+    ]);
   });
 });
 
@@ -236,7 +262,10 @@ describe("lessonMaterials: the rolls verdict within the Roll phase", () => {
 
   it("does not check the time when the lesson has no Roll phase", () => {
     const noRoll = plan({ groups: 4, rollsPerGroup: 500 });
-    const result = lessonMaterials({ ...noRoll, phases: noRoll.phases.map((entry) => (entry.phase === "Roll" ? { ...entry, included: false } : entry)) }, gardner);
+    const result = lessonMaterials(
+      { ...noRoll, phases: noRoll.phases.map((entry) => (entry.phase === "Roll" ? { ...entry, included: false } : entry)) },
+      gardner,
+    );
     expect(result.verdict.budget).toBeNull();
     expect(result.verdict.fitsTime).toBe(true);
     expect(result.materials.recordingSheets.rowsPerSheet).toBe(500);
@@ -246,8 +275,16 @@ describe("lessonMaterials: the rolls verdict within the Roll phase", () => {
 describe("lessonMaterials: the main cycle of a set with many cycles", () => {
   // Ten dice of our own (random faces summing to 39, seed 216): the first 500 cycles listed hold none through every die stronger than 17/36.
   const crowded = [
-    [1, 3, 7, 8, 10, 10], [3, 3, 4, 8, 10, 11], [1, 3, 6, 6, 11, 12], [3, 7, 7, 7, 7, 8], [5, 5, 5, 6, 8, 10],
-    [3, 3, 5, 9, 9, 10], [1, 4, 6, 7, 9, 12], [2, 2, 3, 8, 12, 12], [1, 2, 3, 10, 11, 12], [1, 2, 3, 11, 11, 11],
+    [1, 3, 7, 8, 10, 10],
+    [3, 3, 4, 8, 10, 11],
+    [1, 3, 6, 6, 11, 12],
+    [3, 7, 7, 7, 7, 8],
+    [5, 5, 5, 6, 8, 10],
+    [3, 3, 5, 9, 9, 10],
+    [1, 4, 6, 7, 9, 12],
+    [2, 2, 3, 8, 12, 12],
+    [1, 2, 3, 10, 11, 12],
+    [1, 2, 3, 11, 11, 11],
   ].map((faces, index) => ({ name: `Die ${index + 1}`, faces }));
 
   it("plays round the strongest cycle through every die, not just the strongest of the first 500 listed", () => {
@@ -260,7 +297,10 @@ describe("lessonMaterials: the main cycle of a set with many cycles", () => {
     const result = lessonMaterials(plan({ groups: 10 }), crowded);
     expect(result.mainMatchupSource).toBe("cycle");
     const weakestPlayed = result.games
-      .map(([winner, loser]) => complete.matrix[crowded.findIndex((die) => die.name === winner)][crowded.findIndex((die) => die.name === loser)]!.win)
+      .map(
+        ([winner, loser]) =>
+          complete.matrix[crowded.findIndex((die) => die.name === winner)][crowded.findIndex((die) => die.name === loser)]!.win,
+      )
       .reduce((least, win) => (win.lt(least) ? win : least));
     expect(weakestPlayed.equals(strongest.weakestWin)).toBe(true);
   });

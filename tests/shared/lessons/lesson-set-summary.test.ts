@@ -50,6 +50,7 @@ describe("lessonSetSummary", () => {
     }
     expect(changed.length).toBeGreaterThan(0);
     expect(summary.twoDiceChanges).toHaveLength(changed.length);
-    for (const [first, second] of changed) expect(summary.twoDiceChanges.some((sentence) => sentence.includes(first) && sentence.includes(second))).toBe(true);
+    for (const [first, second] of changed)
+      expect(summary.twoDiceChanges.some((sentence) => sentence.includes(first) && sentence.includes(second))).toBe(true);
   });
 });

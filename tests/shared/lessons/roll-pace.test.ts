@@ -13,7 +13,12 @@ describe("the Roll phase's time budget", () => {
     expect(rollPhaseBudget(null, { dicePerPlayer: 1, players: 2 })).toBeNull();
     expect(rollPhaseBudget(0, { dicePerPlayer: 1, players: 2 })).toBeNull();
     expect(rollPhaseMinutes([{ phase: "Roll", included: false, minutes: 20 }])).toBeNull();
-    expect(rollPhaseMinutes([{ phase: "Guess", included: true, minutes: 5 }, { phase: "Roll", included: true, minutes: 20 }])).toBe(20);
+    expect(
+      rollPhaseMinutes([
+        { phase: "Guess", included: true, minutes: 5 },
+        { phase: "Roll", included: true, minutes: 20 },
+      ]),
+    ).toBe(20);
   });
 
   it("says whether a class has time for a matchup's pooled rolls, how many groups would, or that it is too close", () => {

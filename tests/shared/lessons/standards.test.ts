@@ -6,8 +6,24 @@ describe("built-in curriculum standards", () => {
   it("holds the Common Core probability codes 7.SP.C.5–8 and HSS-CP.A.1–B.9", () => {
     // Code list of the Common Core State Standards for Mathematics, grade 7 SP cluster C and high-school S-CP (from memory).
     const wanted = [
-      "7.SP.C.5", "7.SP.C.6", "7.SP.C.7", "7.SP.C.7a", "7.SP.C.7b", "7.SP.C.8", "7.SP.C.8a", "7.SP.C.8b", "7.SP.C.8c",
-      "HSS-CP.A.1", "HSS-CP.A.2", "HSS-CP.A.3", "HSS-CP.A.4", "HSS-CP.A.5", "HSS-CP.B.6", "HSS-CP.B.7", "HSS-CP.B.8", "HSS-CP.B.9",
+      "7.SP.C.5",
+      "7.SP.C.6",
+      "7.SP.C.7",
+      "7.SP.C.7a",
+      "7.SP.C.7b",
+      "7.SP.C.8",
+      "7.SP.C.8a",
+      "7.SP.C.8b",
+      "7.SP.C.8c",
+      "HSS-CP.A.1",
+      "HSS-CP.A.2",
+      "HSS-CP.A.3",
+      "HSS-CP.A.4",
+      "HSS-CP.A.5",
+      "HSS-CP.B.6",
+      "HSS-CP.B.7",
+      "HSS-CP.B.8",
+      "HSS-CP.B.9",
     ];
     for (const code of wanted) expect(curriculumStandardByCode(code)?.label, code).toBe(code);
   });

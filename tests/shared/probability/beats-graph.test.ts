@@ -15,7 +15,11 @@ describe("matchupRelation", () => {
 
 describe("beatsGraph", () => {
   it("draws an edge only where the row die beats the column die", () => {
-    const dice = [[5, 5], [1, 2], [3, 3]];
+    const dice = [
+      [5, 5],
+      [1, 2],
+      [3, 3],
+    ];
     const matrix = dice.map((a, i) => dice.map((b, j) => (i === j ? null : compareDice(a, b))));
     // By hand: [5,5] beats both; [3,3] beats [1,2].
     expect(beatsGraph(matrix)).toEqual([[1, 2], [], [1]]);

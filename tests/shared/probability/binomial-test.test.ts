@@ -16,8 +16,14 @@ function referencePValue(successes: number, trials: number, p: number): number {
 
 const cases: [number, number, [number, number]][] = [];
 for (const trials of [1, 6, 10, 25, 60]) {
-  for (const p of [[1, 2], [1, 3], [1, 6], [5, 9]] as [number, number][]) {
-    for (const successes of new Set([0, 1, Math.floor(trials / 3), Math.floor(trials / 2), trials - 1, trials])) if (successes >= 0) cases.push([successes, trials, p]);
+  for (const p of [
+    [1, 2],
+    [1, 3],
+    [1, 6],
+    [5, 9],
+  ] as [number, number][]) {
+    for (const successes of new Set([0, 1, Math.floor(trials / 3), Math.floor(trials / 2), trials - 1, trials]))
+      if (successes >= 0) cases.push([successes, trials, p]);
   }
 }
 
@@ -37,7 +43,11 @@ describe("binomialTest", () => {
     expect(result.expected.equals(500)).toBe(true);
   });
 
-  it.each([[11, 10], [0, 0], [1, 5001]])("refuses %s successes in %s trials", (successes, trials) => {
+  it.each([
+    [11, 10],
+    [0, 0],
+    [1, 5001],
+  ])("refuses %s successes in %s trials", (successes, trials) => {
     expect(() => binomialTest(successes, trials)).toThrow(RangeError);
   });
 });
@@ -48,7 +58,14 @@ describe("binomialTestPValue", () => {
   });
 
   it("gives the exact test's number without reducing its fraction, out to a thousand rolls at p = 15/36", () => {
-    for (const [successes, trials] of [[0, 1], [3, 7], [60, 150], [190, 400], [401, 1000], [1000, 1000]]) {
+    for (const [successes, trials] of [
+      [0, 1],
+      [3, 7],
+      [60, 150],
+      [190, 400],
+      [401, 1000],
+      [1000, 1000],
+    ]) {
       const exact = binomialTest(successes, trials, new Fraction(15, 36)).pValueNumber;
       const quick = binomialTestPValue(successes, trials, new Fraction(15, 36));
       expect(Math.abs(quick - exact)).toBeLessThanOrEqual(1e-12 * Math.max(exact, Number.MIN_VALUE));

@@ -29,20 +29,18 @@ describe("chiSquareUpperTail", () => {
 });
 
 describe("chiSquareGoodnessOfFit", () => {
-  it.each([
-    [[10, 12, 8, 9, 11, 10]],
-    [[30, 2, 7, 9, 11, 1]],
-    [[5, 5]],
-    [[0, 0, 17, 3, 4, 1, 9, 0]],
-  ])("matches Pearson's statistic and jstat's p-value for counts %j", (counts) => {
-    // Pearson (1900): Σ (O − E)²/E with E = total / faces, df = faces − 1; p-value from jstat.chisquare.cdf.
-    const expected = counts.reduce((sum, count) => sum + count, 0) / counts.length;
-    const statistic = counts.reduce((sum, count) => sum + (count - expected) ** 2 / expected, 0);
-    const result = chiSquareGoodnessOfFit(counts);
-    expect(result.statisticNumber).toBeCloseTo(statistic, 10);
-    expect(result.degreesOfFreedom).toBe(counts.length - 1);
-    expect(result.pValue).toBeCloseTo(1 - jStat.chisquare.cdf(statistic, counts.length - 1), 10);
-  });
+  it.each([[[10, 12, 8, 9, 11, 10]], [[30, 2, 7, 9, 11, 1]], [[5, 5]], [[0, 0, 17, 3, 4, 1, 9, 0]]])(
+    "matches Pearson's statistic and jstat's p-value for counts %j",
+    (counts) => {
+      // Pearson (1900): Σ (O − E)²/E with E = total / faces, df = faces − 1; p-value from jstat.chisquare.cdf.
+      const expected = counts.reduce((sum, count) => sum + count, 0) / counts.length;
+      const statistic = counts.reduce((sum, count) => sum + (count - expected) ** 2 / expected, 0);
+      const result = chiSquareGoodnessOfFit(counts);
+      expect(result.statisticNumber).toBeCloseTo(statistic, 10);
+      expect(result.degreesOfFreedom).toBe(counts.length - 1);
+      expect(result.pValue).toBeCloseTo(1 - jStat.chisquare.cdf(statistic, counts.length - 1), 10);
+    },
+  );
 
   it.each([[[4]], [[0, 0, 0]], [[1, -2, 3]], [[1.5, 2]]])("refuses counts %j", (counts) => {
     expect(() => chiSquareGoodnessOfFit(counts)).toThrow(RangeError);

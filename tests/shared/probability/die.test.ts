@@ -7,14 +7,12 @@ const messagesFor = (faces: unknown): string[] => {
 };
 
 describe("dieFacesSchema", () => {
-  it.each([
-    [[2, 2, 6, 6, 7, 7]],
-    [[-99, 999]],
-    [Array.from({ length: 60 }, (_, index) => index)],
-    [[5, 5]],
-  ])("accepts a valid die %j", (faces) => {
-    expect(dieFacesSchema.safeParse(faces).success).toBe(true);
-  });
+  it.each([[[2, 2, 6, 6, 7, 7]], [[-99, 999]], [Array.from({ length: 60 }, (_, index) => index)], [[5, 5]]])(
+    "accepts a valid die %j",
+    (faces) => {
+      expect(dieFacesSchema.safeParse(faces).success).toBe(true);
+    },
+  );
 
   it.each([
     ["an empty die", [], /empty/],

@@ -28,7 +28,10 @@ describe("regularizedGammaLower", () => {
     expect(regularizedGammaLower(a, x) + regularizedGammaUpper(a, x)).toBeCloseTo(1, 12);
   });
 
-  it.each([[0, 1], [1, -1]])("refuses a = %s, x = %s", (a, x) => {
+  it.each([
+    [0, 1],
+    [1, -1],
+  ])("refuses a = %s, x = %s", (a, x) => {
     expect(() => regularizedGammaUpper(a, x)).toThrow(RangeError);
   });
 });

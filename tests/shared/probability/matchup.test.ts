@@ -49,26 +49,43 @@ describe("compareDice", () => {
   });
 
   it("always gives win + tie + loss = 1", () => {
-    fc.assert(fc.property(die, die, fc.integer({ min: 1, max: 6 }), (a, b, k) => {
-      const result = compareDice(a, b, { dicePerPlayer: k });
-      expect(result.win.add(result.tie).add(result.loss).equals(1)).toBe(true);
-    }), { numRuns: 60 });
+    fc.assert(
+      fc.property(die, die, fc.integer({ min: 1, max: 6 }), (a, b, k) => {
+        const result = compareDice(a, b, { dicePerPlayer: k });
+        expect(result.win.add(result.tie).add(result.loss).equals(1)).toBe(true);
+      }),
+      { numRuns: 60 },
+    );
   });
 
   it("swaps win and loss when the dice swap", () => {
-    fc.assert(fc.property(die, die, dicePerPlayer, (a, b, k) => {
-      const forward = compareDice(a, b, { dicePerPlayer: k });
-      const backward = compareDice(b, a, { dicePerPlayer: k });
-      expect(forward.win.equals(backward.loss) && forward.loss.equals(backward.win) && forward.tie.equals(backward.tie)).toBe(true);
-    }));
+    fc.assert(
+      fc.property(die, die, dicePerPlayer, (a, b, k) => {
+        const forward = compareDice(a, b, { dicePerPlayer: k });
+        const backward = compareDice(b, a, { dicePerPlayer: k });
+        expect(forward.win.equals(backward.loss) && forward.loss.equals(backward.win) && forward.tie.equals(backward.tie)).toBe(true);
+      }),
+    );
   });
 
   it("does not change when a constant is added to every face of both dice", () => {
-    fc.assert(fc.property(fc.array(fc.integer({ min: -40, max: 400 }), { minLength: 2, maxLength: 7 }), fc.array(fc.integer({ min: -40, max: 400 }), { minLength: 2, maxLength: 7 }), fc.integer({ min: -59, max: 599 }), dicePerPlayer, (a, b, shift, k) => {
-      const plain = compareDice(a, b, { dicePerPlayer: k });
-      const shifted = compareDice(a.map((face) => face + shift), b.map((face) => face + shift), { dicePerPlayer: k });
-      expect([plain.win, plain.tie].map(String)).toEqual([shifted.win, shifted.tie].map(String));
-    }));
+    fc.assert(
+      fc.property(
+        fc.array(fc.integer({ min: -40, max: 400 }), { minLength: 2, maxLength: 7 }),
+        fc.array(fc.integer({ min: -40, max: 400 }), { minLength: 2, maxLength: 7 }),
+        fc.integer({ min: -59, max: 599 }),
+        dicePerPlayer,
+        (a, b, shift, k) => {
+          const plain = compareDice(a, b, { dicePerPlayer: k });
+          const shifted = compareDice(
+            a.map((face) => face + shift),
+            b.map((face) => face + shift),
+            { dicePerPlayer: k },
+          );
+          expect([plain.win, plain.tie].map(String)).toEqual([shifted.win, shifted.tie].map(String));
+        },
+      ),
+    );
   });
 
   it("finds no three dice that each beat the next with probability above (√5 − 1)/2", () => {
@@ -76,15 +93,28 @@ describe("compareDice", () => {
     // p ≤ (√5 − 1)/2 ⇔ (2p + 1)² ≤ 5, checked exactly with fractions.
     const withinBound = (p: Fraction): boolean => p.mul(2).add(1).pow(2).lte(5);
     const bigDie = fc.array(fc.integer({ min: 1, max: 18 }), { minLength: 2, maxLength: 10 });
-    fc.assert(fc.property(bigDie, bigDie, bigDie, (a, b, c) => {
-      const links = [compareDice(a, b).win, compareDice(b, c).win, compareDice(c, a).win];
-      expect(links.some(withinBound)).toBe(true);
-    }), { numRuns: 2000 });
+    fc.assert(
+      fc.property(bigDie, bigDie, bigDie, (a, b, c) => {
+        const links = [compareDice(a, b).win, compareDice(b, c).win, compareDice(c, a).win];
+        expect(links.some(withinBound)).toBe(true);
+      }),
+      { numRuns: 2000 },
+    );
     // Dice splitting 1 … 3m between them with distinct values are where the near-extreme sets live.
-    const split = fc.integer({ min: 2, max: 8 }).chain((m) => fc.shuffledSubarray(Array.from({ length: 3 * m }, (_, index) => index + 1), { minLength: 3 * m, maxLength: 3 * m }).map((values) => [values.slice(0, m), values.slice(m, 2 * m), values.slice(2 * m)]));
-    fc.assert(fc.property(split, ([a, b, c]) => {
-      expect([compareDice(a, b).win, compareDice(b, c).win, compareDice(c, a).win].some(withinBound)).toBe(true);
-    }), { numRuns: 2000 });
+    const split = fc.integer({ min: 2, max: 8 }).chain((m) =>
+      fc
+        .shuffledSubarray(
+          Array.from({ length: 3 * m }, (_, index) => index + 1),
+          { minLength: 3 * m, maxLength: 3 * m },
+        )
+        .map((values) => [values.slice(0, m), values.slice(m, 2 * m), values.slice(2 * m)]),
+    );
+    fc.assert(
+      fc.property(split, ([a, b, c]) => {
+        expect([compareDice(a, b).win, compareDice(b, c).win, compareDice(c, a).win].some(withinBound)).toBe(true);
+      }),
+      { numRuns: 2000 },
+    );
   });
 
   it("refuses a die that fails validation", () => {

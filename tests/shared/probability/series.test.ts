@@ -10,10 +10,16 @@ const matchupFrom = (win: number, tie: number, loss: number): MatchupResult => {
   const total = win + tie + loss;
   return { win: new Fraction(win, total), tie: new Fraction(tie, total), loss: new Fraction(loss, total) };
 };
-const weights = fc.tuple(fc.integer({ min: 0, max: 12 }), fc.integer({ min: 0, max: 12 }), fc.integer({ min: 0, max: 12 })).filter(([w, t, l]) => w + l > 0 && w + t + l > 0);
+const weights = fc
+  .tuple(fc.integer({ min: 0, max: 12 }), fc.integer({ min: 0, max: 12 }), fc.integer({ min: 0, max: 12 }))
+  .filter(([w, t, l]) => w + l > 0 && w + t + l > 0);
 
 /** Brute force: play out all 3^N roll sequences, scoring points exactly as each tie rule says. */
-function seriesByEnumeration(result: MatchupResult, games: number, rule: "ties-score-half" | "ties-score-nothing"): { win: Fraction; draw: Fraction } {
+function seriesByEnumeration(
+  result: MatchupResult,
+  games: number,
+  rule: "ties-score-half" | "ties-score-nothing",
+): { win: Fraction; draw: Fraction } {
   let win = new Fraction(0);
   let draw = new Fraction(0);
   const play = (played: number, mine: Fraction, theirs: Fraction, chance: Fraction): void => {
@@ -34,28 +40,38 @@ function seriesByEnumeration(result: MatchupResult, games: number, rule: "ties-s
 describe("seriesOutcome", () => {
   it("wins a best-of-3 re-roll series with p²(3 − 2p)", () => {
     // Any probability textbook: win two of three, P = p³ + 3p²(1 − p), with p = P(win | no tie).
-    fc.assert(fc.property(weights, ([w, t, l]) => {
-      const p = new Fraction(w, w + l);
-      expect(seriesOutcome(matchupFrom(w, t, l), 3, "re-roll-ties").win.equals(p.pow(2).mul(p.mul(-2).add(3)))).toBe(true);
-    }));
+    fc.assert(
+      fc.property(weights, ([w, t, l]) => {
+        const p = new Fraction(w, w + l);
+        expect(seriesOutcome(matchupFrom(w, t, l), 3, "re-roll-ties").win.equals(p.pow(2).mul(p.mul(-2).add(3)))).toBe(true);
+      }),
+    );
   });
 
   it.each([1, 5, 11, 51, 101])("matches jstat's binomial distribution for a re-roll best-of-%i", (games) => {
     // jstat.binomial.cdf: P(series win) = 1 − P(at most (N − 1)/2 decided wins).
-    for (const [w, t, l] of [[5, 1, 3], [11, 6, 19], [2, 0, 1], [7, 3, 7]]) {
+    for (const [w, t, l] of [
+      [5, 1, 3],
+      [11, 6, 19],
+      [2, 0, 1],
+      [7, 3, 7],
+    ]) {
       const exact = seriesOutcome(matchupFrom(w, t, l), games, "re-roll-ties").win.valueOf();
       expect(exact).toBeCloseTo(1 - jStat.binomial.cdf((games - 1) / 2, games, w / (w + l)), 10);
     }
   });
 
   it.each(["ties-score-half", "ties-score-nothing"] as const)("matches playing out every sequence of rolls under %s", (rule) => {
-    fc.assert(fc.property(weights, fc.constantFrom(1, 3, 5, 7), ([w, t, l], games) => {
-      const result = matchupFrom(w, t, l);
-      const exact = seriesOutcome(result, games, rule);
-      const brute = seriesByEnumeration(result, games, rule);
-      expect(exact.win.equals(brute.win) && exact.draw.equals(brute.draw)).toBe(true);
-      expect(exact.win.add(exact.draw).add(exact.loss).equals(1)).toBe(true);
-    }), { numRuns: 25 });
+    fc.assert(
+      fc.property(weights, fc.constantFrom(1, 3, 5, 7), ([w, t, l], games) => {
+        const result = matchupFrom(w, t, l);
+        const exact = seriesOutcome(result, games, rule);
+        const brute = seriesByEnumeration(result, games, rule);
+        expect(exact.win.equals(brute.win) && exact.draw.equals(brute.draw)).toBe(true);
+        expect(exact.win.add(exact.draw).add(exact.loss).equals(1)).toBe(true);
+      }),
+      { numRuns: 25 },
+    );
   });
 
   it("never draws a re-roll series", () => {

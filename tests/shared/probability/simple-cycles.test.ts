@@ -14,17 +14,26 @@ function cyclesByPermutation(successors: number[][]): string[] {
   return found.sort();
 }
 
-const graph = fc.integer({ min: 1, max: 7 }).chain((size) =>
-  fc.array(fc.array(fc.boolean(), { minLength: size, maxLength: size }), { minLength: size, maxLength: size }).map((rows) =>
-    rows.map((row, from) => row.flatMap((edge, to) => (edge && to !== from ? [to] : []))),
-  ),
-);
+const graph = fc
+  .integer({ min: 1, max: 7 })
+  .chain((size) =>
+    fc
+      .array(fc.array(fc.boolean(), { minLength: size, maxLength: size }), { minLength: size, maxLength: size })
+      .map((rows) => rows.map((row, from) => row.flatMap((edge, to) => (edge && to !== from ? [to] : [])))),
+  );
 
 describe("simpleCycles", () => {
   it("finds every cycle a brute-force search over vertex orders finds", () => {
-    fc.assert(fc.property(graph, (successors) => {
-      expect(simpleCycles(successors).cycles.map((cycle) => cycle.join(",")).sort()).toEqual(cyclesByPermutation(successors));
-    }), { numRuns: 300 });
+    fc.assert(
+      fc.property(graph, (successors) => {
+        expect(
+          simpleCycles(successors)
+            .cycles.map((cycle) => cycle.join(","))
+            .sort(),
+        ).toEqual(cyclesByPermutation(successors));
+      }),
+      { numRuns: 300 },
+    );
   });
 
   it.each([3, 4, 5, 6])("finds Σ C(n, l)·(l − 1)! cycles in the complete directed graph on %i vertices", (size) => {

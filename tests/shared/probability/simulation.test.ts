@@ -28,7 +28,10 @@ describe("matchupSimulation", () => {
     const rolls = 40_000;
     const run = matchupSimulation(a, b, { rolls, seed: 2718 });
     const exact = compareDice(a, b);
-    for (const [frequency, p] of [[run.winFrequency[rolls - 1], exact.win.valueOf()], [run.tieFrequency[rolls - 1], exact.tie.valueOf()]]) {
+    for (const [frequency, p] of [
+      [run.winFrequency[rolls - 1], exact.win.valueOf()],
+      [run.tieFrequency[rolls - 1], exact.tie.valueOf()],
+    ]) {
       expect(Math.abs(frequency - p)).toBeLessThan(4.5 * Math.sqrt((p * (1 - p)) / rolls));
     }
     expect(run.decidedWinFrequency[rolls - 1]).toBeCloseTo(run.counts.win / (run.counts.win + run.counts.loss), 12);

@@ -28,7 +28,10 @@ function strongestByPermutation(weights: (Fraction | null)[][]): Fraction | null
 
 const weightedGraph = fc.integer({ min: 2, max: 7 }).chain((size) =>
   fc
-    .array(fc.array(fc.option(fc.integer({ min: 1, max: 35 }), { nil: null, freq: 3 }), { minLength: size, maxLength: size }), { minLength: size, maxLength: size })
+    .array(fc.array(fc.option(fc.integer({ min: 1, max: 35 }), { nil: null, freq: 3 }), { minLength: size, maxLength: size }), {
+      minLength: size,
+      maxLength: size,
+    })
     .map((rows) => rows.map((row, from) => row.map((weight, to) => (weight === null || to === from ? null : new Fraction(weight, 36))))),
 );
 
@@ -53,7 +56,13 @@ describe("strongestHamiltonianCycle", () => {
 
   it("answers null for a graph with no cycle through every vertex", () => {
     const w = new Fraction(2, 3);
-    expect(strongestHamiltonianCycle([[null, w, null], [null, null, w], [null, null, null]])).toBeNull();
+    expect(
+      strongestHamiltonianCycle([
+        [null, w, null],
+        [null, null, w],
+        [null, null, null],
+      ]),
+    ).toBeNull();
   });
 });
 
@@ -68,7 +77,10 @@ describe("analyzeSet: the strongest cycle through every die", () => {
       fc.property(diceSet, (dice) => {
         const everyCycle = analyzeSet(dice, { dicePerPlayer: 1, cycleLimit: 1_000_000 }).levels[0];
         expect(everyCycle.cyclesComplete).toBe(true);
-        const strongestListed = everyCycle.hamiltonianCycles.reduce<Fraction | null>((best, cycle) => (best === null || cycle.weakestWin.gt(best) ? cycle.weakestWin : best), null);
+        const strongestListed = everyCycle.hamiltonianCycles.reduce<Fraction | null>(
+          (best, cycle) => (best === null || cycle.weakestWin.gt(best) ? cycle.weakestWin : best),
+          null,
+        );
         const cut = analyzeSet(dice, { dicePerPlayer: 1, cycleLimit: 1 }).levels[0];
         if (strongestListed === null) {
           expect(cut.strongestHamiltonianCycle).toBeNull();

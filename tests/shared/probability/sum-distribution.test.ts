@@ -29,11 +29,15 @@ describe("sumDistribution", () => {
   it("matches listing every roll for invented dice", () => {
     // Brute force: scripts/bench/naive.ts lists all faces^count rolls.
     fc.assert(
-      fc.property(fc.array(fc.integer({ min: -99, max: 999 }), { minLength: 2, maxLength: 6 }), fc.integer({ min: 1, max: 4 }), (faces, count) => {
-        const exact = [...sumDistribution(faces, count)].map(([value, p]) => [value, p.toFraction()]);
-        const naive = [...naiveSumDistribution(faces, count)].map(([value, p]) => [value, p.toFraction()]);
-        expect(exact).toEqual(naive);
-      }),
+      fc.property(
+        fc.array(fc.integer({ min: -99, max: 999 }), { minLength: 2, maxLength: 6 }),
+        fc.integer({ min: 1, max: 4 }),
+        (faces, count) => {
+          const exact = [...sumDistribution(faces, count)].map(([value, p]) => [value, p.toFraction()]);
+          const naive = [...naiveSumDistribution(faces, count)].map(([value, p]) => [value, p.toFraction()]);
+          expect(exact).toEqual(naive);
+        },
+      ),
       { numRuns: 60 },
     );
   });

@@ -16,13 +16,16 @@ describe("twoWayTable", () => {
   });
 
   it("adds up by outcome to the brute-force matchup", () => {
-    fc.assert(fc.property(die, die, fc.integer({ min: 1, max: 2 }), (a, b, k) => {
-      const table = twoWayTable(a, b, { dicePerPlayer: k });
-      const naive = naiveMatchup(a, b, k);
-      const byOutcome = { win: new Fraction(0), tie: new Fraction(0), loss: new Fraction(0) };
-      table.cells.flat().forEach((cell) => (byOutcome[cell.outcome] = byOutcome[cell.outcome].add(cell.probability)));
-      expect([byOutcome.win, byOutcome.tie, byOutcome.loss].map(String)).toEqual([naive.win, naive.tie, naive.loss].map(String));
-      expect(table.totals.win.equals(naive.win)).toBe(true);
-    }), { numRuns: 40 });
+    fc.assert(
+      fc.property(die, die, fc.integer({ min: 1, max: 2 }), (a, b, k) => {
+        const table = twoWayTable(a, b, { dicePerPlayer: k });
+        const naive = naiveMatchup(a, b, k);
+        const byOutcome = { win: new Fraction(0), tie: new Fraction(0), loss: new Fraction(0) };
+        table.cells.flat().forEach((cell) => (byOutcome[cell.outcome] = byOutcome[cell.outcome].add(cell.probability)));
+        expect([byOutcome.win, byOutcome.tie, byOutcome.loss].map(String)).toEqual([naive.win, naive.tie, naive.loss].map(String));
+        expect(table.totals.win.equals(naive.win)).toBe(true);
+      }),
+      { numRuns: 40 },
+    );
   });
 });

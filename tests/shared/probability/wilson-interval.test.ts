@@ -4,7 +4,8 @@ import { wilsonInterval } from "@shared/probability/wilson-interval";
 
 const cases: [number, number, number][] = [];
 for (const trials of [1, 10, 37, 200, 5000]) {
-  for (const share of [0, 0.13, 0.5, 0.71, 1]) for (const confidence of [0.8, 0.9, 0.95, 0.99]) cases.push([Math.round(share * trials), trials, confidence]);
+  for (const share of [0, 0.13, 0.5, 0.71, 1])
+    for (const confidence of [0.8, 0.9, 0.95, 0.99]) cases.push([Math.round(share * trials), trials, confidence]);
 }
 
 describe("wilsonInterval", () => {
@@ -26,7 +27,12 @@ describe("wilsonInterval", () => {
     for (const bound of [lower, upper]) expect(Math.abs(31 / 50 - bound)).toBeCloseTo(z * Math.sqrt((bound * (1 - bound)) / 50), 9);
   });
 
-  it.each([[11, 10], [-1, 10], [3, 0], [2.5, 10]])("refuses %s successes in %s trials", (successes, trials) => {
+  it.each([
+    [11, 10],
+    [-1, 10],
+    [3, 0],
+    [2.5, 10],
+  ])("refuses %s successes in %s trials", (successes, trials) => {
     expect(() => wilsonInterval(successes, trials)).toThrow(RangeError);
   });
 });

@@ -32,7 +32,9 @@ describe("classFindings", () => {
     expect(mainMatchup(pooled)?.label).toBe("Skua v Tern");
     const [first] = classFindings(pooled, names);
     // 6/10 − 5/9 = 0.0444…, so "within 0.045".
-    expect(first).toBe("After 10 rolls of Skua v Tern, with ties re-rolled, the class estimate of Skua's chance of winning is 0.600, within 0.045 of the exact 5/9 (0.556).");
+    expect(first).toBe(
+      "After 10 rolls of Skua v Tern, with ties re-rolled, the class estimate of Skua's chance of winning is 0.600, within 0.045 of the exact 5/9 (0.556).",
+    );
   });
 
   it("says 'equal to' when the estimate is the exact value", () => {
@@ -64,9 +66,12 @@ describe("classFindings", () => {
 });
 
 describe("groupInterval", () => {
-  it.each(["re-roll-ties", "ties-score-half", "ties-score-nothing"] as const)("for a single group equals poolRolls' interval of the matchup (%s)", (tieRule) => {
-    const tie: PoolableRoll = { ...rolls("a", [0, 1], 1, 0)[0], totals: [9, 9], winnerSeat: null };
-    const pooled = poolRolls({ dice, tieRule, rolls: [...rolls("a", [0, 1], 12, 7), tie, tie] });
-    expect(groupInterval(pooled.groups[0], tieRule)).toEqual(pooled.matchups[0].interval);
-  });
+  it.each(["re-roll-ties", "ties-score-half", "ties-score-nothing"] as const)(
+    "for a single group equals poolRolls' interval of the matchup (%s)",
+    (tieRule) => {
+      const tie: PoolableRoll = { ...rolls("a", [0, 1], 1, 0)[0], totals: [9, 9], winnerSeat: null };
+      const pooled = poolRolls({ dice, tieRule, rolls: [...rolls("a", [0, 1], 12, 7), tie, tie] });
+      expect(groupInterval(pooled.groups[0], tieRule)).toEqual(pooled.matchups[0].interval);
+    },
+  );
 });

@@ -20,7 +20,14 @@ describe("csvLines", () => {
   });
 
   it("writes numbers as numbers, negative ones included, and fixes the decimals asked for", () => {
-    const text = csvLines(["total", "share"], [{ total: -2, share: 0.492 }, { total: 7, share: 0.68125 }], { header: true, decimals: { share: 4 } });
+    const text = csvLines(
+      ["total", "share"],
+      [
+        { total: -2, share: 0.492 },
+        { total: 7, share: 0.68125 },
+      ],
+      { header: true, decimals: { share: 4 } },
+    );
     expect(text).toBe("total,share\r\n-2,0.4920\r\n7,0.6813\r\n");
   });
 
@@ -31,7 +38,14 @@ describe("csvLines", () => {
 
   it("reads back, with the apostrophe taken off, exactly the text written", () => {
     const cells = ["=Crabs", "-2+3*7", "@x", "'quoted", "plain", "'"];
-    const parsed = Papa.parse<string[]>(csvLines(["cell"], cells.map((cell) => ({ cell })), { header: false }).trimEnd(), { skipEmptyLines: false });
+    const parsed = Papa.parse<string[]>(
+      csvLines(
+        ["cell"],
+        cells.map((cell) => ({ cell })),
+        { header: false },
+      ).trimEnd(),
+      { skipEmptyLines: false },
+    );
     expect(parsed.data.map(([cell]) => unescapeFormulaCell(cell))).toEqual(cells);
     expect(cells.filter((cell) => FORMULA_START.test(cell))).toHaveLength(3);
   });

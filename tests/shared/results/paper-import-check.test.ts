@@ -1,5 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { checkPaperImportHeader, checkPaperImportRows, winnerSeatOfTotals, type PaperImportContext } from "@shared/results/paper-import-check";
+import {
+  checkPaperImportHeader,
+  checkPaperImportRows,
+  winnerSeatOfTotals,
+  type PaperImportContext,
+} from "@shared/results/paper-import-check";
 import { paperImportColumns } from "@shared/schemas/paper-import";
 
 const dice = [
@@ -7,7 +12,13 @@ const dice = [
   { name: "Tern", faces: [4, 7, 8, 9, 11, 18] },
   { name: "Gannet", faces: [2, 3, 6, 14, 16, 17] },
 ];
-const context: PaperImportContext = { dice, dicePerPlayer: 1, players: 2, groups: [{ id: "g1", nickname: "Puffins" }], createGroups: false };
+const context: PaperImportContext = {
+  dice,
+  dicePerPlayer: 1,
+  players: 2,
+  groups: [{ id: "g1", nickname: "Puffins" }],
+  createGroups: false,
+};
 const row = (cells: string[], number = 2) => ({
   row: number,
   cells: Object.fromEntries(paperImportColumns.map((column, index) => [column, cells[index] ?? ""])),
@@ -34,7 +45,9 @@ describe("checkPaperImportRows", () => {
   it("turns a good row into a roll with the run's die indexes, totals and winner", () => {
     const { rolls, errors } = checkPaperImportRows(context, [row(["puffins", "1", "tern", "11", "Skua", "10"])]);
     expect(errors).toEqual([]);
-    expect(rolls).toEqual([{ row: 2, group: "Puffins", groupId: "g1", rollNumber: 1, matchup: [1, 0], faces: [[11], [10]], totals: [11, 10], winnerSeat: 0 }]);
+    expect(rolls).toEqual([
+      { row: 2, group: "Puffins", groupId: "g1", rollNumber: 1, matchup: [1, 0], faces: [[11], [10]], totals: [11, 10], winnerSeat: 0 },
+    ]);
   });
 
   it.each([
@@ -76,7 +89,15 @@ describe("checkPaperImportRows", () => {
     const three = { ...context, players: 3, dicePerPlayer: 2 };
     const good = checkPaperImportRows(three, [row(["Puffins", "1", "Skua", "10+15", "Tern", "9 + 18", "Gannet", "2+3"])]);
     expect(good.errors).toEqual([]);
-    expect(good.rolls[0]).toMatchObject({ faces: [[10, 15], [9, 18], [2, 3]], totals: [25, 27, 5], winnerSeat: 1 });
+    expect(good.rolls[0]).toMatchObject({
+      faces: [
+        [10, 15],
+        [9, 18],
+        [2, 3],
+      ],
+      totals: [25, 27, 5],
+      winnerSeat: 1,
+    });
     const missing = checkPaperImportRows(three, [row(["Puffins", "1", "Skua", "10+15", "Tern", "9+18"])]);
     expect(missing.errors[0].messages.join(" ")).toContain("This run has three players");
   });

@@ -1,5 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { RECORDING_SHEET_ROWS_MAX, RECORDING_SHEET_ROWS_PER_PAGE, recordingSheetColumns, recordingSheetPages, recordingSheetPlanFromParams } from "@shared/results/recording-sheet-layout";
+import {
+  RECORDING_SHEET_ROWS_MAX,
+  RECORDING_SHEET_ROWS_PER_PAGE,
+  recordingSheetColumns,
+  recordingSheetPages,
+  recordingSheetPlanFromParams,
+} from "@shared/results/recording-sheet-layout";
 
 describe("the group recording sheet follows the lesson", () => {
   it.each([
@@ -28,7 +34,15 @@ describe("the group recording sheet follows the lesson", () => {
   });
 
   it("reads the plan from the print address, ignoring values out of range", () => {
-    expect(recordingSheetPlanFromParams(new URLSearchParams("rolls=30&players=3&dice=2"))).toEqual({ rolls: 30, players: 3, dicePerPlayer: 2 });
-    expect(recordingSheetPlanFromParams(new URLSearchParams("rolls=0&players=4&dice=x"))).toEqual({ rolls: 20, players: 2, dicePerPlayer: 1 });
+    expect(recordingSheetPlanFromParams(new URLSearchParams("rolls=30&players=3&dice=2"))).toEqual({
+      rolls: 30,
+      players: 3,
+      dicePerPlayer: 2,
+    });
+    expect(recordingSheetPlanFromParams(new URLSearchParams("rolls=0&players=4&dice=x"))).toEqual({
+      rolls: 20,
+      players: 2,
+      dicePerPlayer: 1,
+    });
   });
 });

@@ -34,7 +34,10 @@ function tallies(): BoardSnapshot["tallies"] {
 }
 
 describe("board:update on the wire", () => {
-  const base = { runId: "run", version: 7, undoneRolls: 0, generatedAt: "2026-04-01T09:01:00.000Z" } as unknown as Omit<BoardSnapshot, "tallies">;
+  const base = { runId: "run", version: 7, undoneRolls: 0, generatedAt: "2026-04-01T09:01:00.000Z" } as unknown as Omit<
+    BoardSnapshot,
+    "tallies"
+  >;
 
   it("gives back the same tallies from the bytes Node receives (a Buffer) and from a browser's ArrayBuffer", () => {
     const pooled = tallies();

@@ -2,9 +2,12 @@ import { describe, expect, it } from "vitest";
 import { joinCodeSchema, nicknameProblem, nicknameSchema } from "@shared/schemas/class-runs";
 
 describe("group nicknames", () => {
-  it.each(["Rockpool Rangers", "Gull Patrol", "Essex Lions", "Dickens Fans", "Cocktail Crew", "Group 717", "Team 12!", "Kelp & Co."])("accepts %j", (nickname) => {
-    expect(nicknameProblem(nickname)).toBeNull();
-  });
+  it.each(["Rockpool Rangers", "Gull Patrol", "Essex Lions", "Dickens Fans", "Cocktail Crew", "Group 717", "Team 12!", "Kelp & Co."])(
+    "accepts %j",
+    (nickname) => {
+      expect(nicknameProblem(nickname)).toBeNull();
+    },
+  );
 
   it.each([
     ["A", "at least 2 characters"],

@@ -28,7 +28,12 @@ describe("dice set file", () => {
   });
 
   it("lists every problem with where it is", () => {
-    const checked = checkDiceSetFile({ format: "outroll-dice-set", version: 2, name: "", dice: [{ name: "Puffin", faces: [1.5, 2], colour: "teal", pattern: "dots" }] });
+    const checked = checkDiceSetFile({
+      format: "outroll-dice-set",
+      version: 2,
+      name: "",
+      dice: [{ name: "Puffin", faces: [1.5, 2], colour: "teal", pattern: "dots" }],
+    });
     expect(checked.ok).toBe(false);
     if (checked.ok) return;
     expect(checked.issues).toEqual([

@@ -16,12 +16,18 @@ const originalPalette = [
 
 describe("the die palette", () => {
   it("still accepts every colour and pattern of the original palette, so old sets and files load", () => {
-    for (const [colour, pattern] of originalPalette) expect(setDieSchema.safeParse({ name: "Gannet", faces: [1, 2, 3], colour, pattern }).success).toBe(true);
+    for (const [colour, pattern] of originalPalette)
+      expect(setDieSchema.safeParse({ name: "Gannet", faces: [1, 2, 3], colour, pattern }).success).toBe(true);
     const oldFile = {
       format: "outroll-dice-set",
       version: 1,
       name: "Tern ladder",
-      dice: originalPalette.map(([colour, pattern], index) => ({ name: `Tern ${index + 1}`, faces: [index, index + 2, index + 4], colour, pattern })),
+      dice: originalPalette.map(([colour, pattern], index) => ({
+        name: `Tern ${index + 1}`,
+        faces: [index, index + 2, index + 4],
+        colour,
+        pattern,
+      })),
     };
     const checked = checkDiceSetFile(oldFile);
     expect(checked.ok).toBe(true);
@@ -29,7 +35,8 @@ describe("the die palette", () => {
 
   it("offers the usual dice colours", () => {
     const colours = diePalette.map((entry) => entry.colour);
-    for (const usual of ["red", "blue", "green", "yellow", "white", "black", "orange", "purple", "pink", "grey"]) expect(colours).toContain(usual);
+    for (const usual of ["red", "blue", "green", "yellow", "white", "black", "orange", "purple", "pink", "grey"])
+      expect(colours).toContain(usual);
   });
 
   it("gives every colour a pattern of its own, so no die is told apart by colour alone", () => {

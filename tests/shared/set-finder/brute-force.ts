@@ -38,12 +38,16 @@ const keyOf = (faces: number[][]) =>
 
 /**
  * Every set of distinct dice meeting the request's property, by brute force: all dice, all sets, all cyclic orders, every matchup
- * through the engine's compareDice, dice with every face equal left out when the request refuses them. Sets that are value shifts of each other count once (shifted down so the lowest face is the range's minimum).
+ * through the engine's compareDice, dice with every face equal left out when the request refuses them. Sets that are value shifts of
+ * each other count once (shifted down so the lowest face is the range's minimum).
  */
 export function bruteForceSets(request: SetFinderRequest): BruteForceSet[] {
   const values =
     request.faceValues.kind === "range"
-      ? Array.from({ length: request.faceValues.max - request.faceValues.min + 1 }, (_, index) => (request.faceValues as { min: number }).min + index)
+      ? Array.from(
+          { length: request.faceValues.max - request.faceValues.min + 1 },
+          (_, index) => (request.faceValues as { min: number }).min + index,
+        )
       : [...request.faceValues.values].sort((a, b) => a - b);
   const dice = allDice(values, request.facesPerDie).filter((die) => !request.refuseAllEqualFaces || die.some((face) => face !== die[0]));
   const size = dice.length;

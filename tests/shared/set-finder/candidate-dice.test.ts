@@ -12,7 +12,10 @@ describe("candidate dice", () => {
     [2, 12, 13],
   ])("counts dice with sorted faces as multisets: %i values, %i faces → %i (stars and bars, C(v+f−1, f))", (values, faces, expected) => {
     expect(candidateDieCount(values, faces)).toBe(expected);
-    const pool = buildDicePool(Array.from({ length: values }, (_, index) => index + 1), faces);
+    const pool = buildDicePool(
+      Array.from({ length: values }, (_, index) => index + 1),
+      faces,
+    );
     expect(pool.size).toBe(expected);
     const seen = new Set<string>();
     for (let die = 0; die < pool.size; die += 1) {

@@ -54,7 +54,12 @@ function dieShapeDigest(faces: number[]): string {
 describe("demo dice sets", () => {
   it("Kittiwake trio: three six-faced dice in one cycle, each win 7/12, never a tie", () => {
     const [puffin, gannet, skua] = facesOf(demoDiceSetNames.threeDice);
-    for (const [a, b] of [[puffin, gannet], [gannet, skua], [skua, puffin]]) expect(win(a, b).win.equals(new Fraction(7, 12))).toBe(true);
+    for (const [a, b] of [
+      [puffin, gannet],
+      [gannet, skua],
+      [skua, puffin],
+    ])
+      expect(win(a, b).win.equals(new Fraction(7, 12))).toBe(true);
     expect(noTies([puffin, gannet, skua])).toBe(true);
     const level = analyzeSet(setNamed(demoDiceSetNames.threeDice).dice, { dicePerPlayer: 1 }).levels[0];
     expect(level.hamiltonianCycles.map((cycle) => cycle.dice)).toEqual([["Puffin", "Gannet", "Skua"]]);
@@ -65,7 +70,11 @@ describe("demo dice sets", () => {
     const dice = facesOf(demoDiceSetNames.reversing);
     const [fulmar, tern, guillemot] = dice;
     expect([win(fulmar, tern).win, win(tern, guillemot).win, win(guillemot, fulmar).win].map(String)).toEqual(["0.(6)", "0.(6)", "0.(5)"]);
-    for (const [a, b] of [[fulmar, tern], [tern, guillemot], [guillemot, fulmar]]) {
+    for (const [a, b] of [
+      [fulmar, tern],
+      [tern, guillemot],
+      [guillemot, fulmar],
+    ]) {
       expect(beats(a, b)).toBe(true);
       expect(beats(b, a, 2)).toBe(true);
     }
@@ -87,7 +96,9 @@ describe("demo dice sets", () => {
     expect(noTies(dice)).toBe(true);
     for (let x = 0; x < 5; x += 1) {
       for (let y = x + 1; y < 5; y += 1) {
-        const answer = [0, 1, 2, 3, 4].some((z) => z !== x && z !== y && [1, 2].some((k) => beats(dice[z], dice[x], k) && beats(dice[z], dice[y], k)));
+        const answer = [0, 1, 2, 3, 4].some(
+          (z) => z !== x && z !== y && [1, 2].some((k) => beats(dice[z], dice[x], k) && beats(dice[z], dice[y], k)),
+        );
         expect(answer, `against ${x} and ${y}`).toBe(true);
       }
     }
@@ -111,7 +122,8 @@ describe("demo dice sets", () => {
     for (const demo of demoDiceSets) {
       const colours = demo.input.dice.map((die) => die.colour);
       expect(new Set(colours).size).toBe(colours.length);
-      for (const die of demo.input.dice) expect(die.name).not.toMatch(/^(teal|amber|plum|slate|coral|moss|ocean|sand|red|blue|green|yellow)/i);
+      for (const die of demo.input.dice)
+        expect(die.name).not.toMatch(/^(teal|amber|plum|slate|coral|moss|ocean|sand|red|blue|green|yellow)/i);
     }
   });
 });

@@ -28,7 +28,10 @@ function bruteEquivalent(property: SetFinderRequest["property"], x: number[][], 
   const n = x.length;
   const asked = askedMatchups(property, n);
   return Array.from({ length: n }, (_unused, shift) => shift).some((shift) =>
-    asked.every(([first, second, dicePerPlayer]) => naiveCounts(x[first], x[second], dicePerPlayer) === naiveCounts(y[(first + shift) % n], y[(second + shift) % n], dicePerPlayer)),
+    asked.every(
+      ([first, second, dicePerPlayer]) =>
+        naiveCounts(x[first], x[second], dicePerPlayer) === naiveCounts(y[(first + shift) % n], y[(second + shift) % n], dicePerPlayer),
+    ),
   );
 }
 
@@ -37,7 +40,13 @@ function bruteClasses(property: SetFinderRequest["property"], found: FoundSet[])
   const classes: FoundSet[][] = [];
   for (const result of found) {
     const faces = result.dice.map((die) => die.faces);
-    const home = classes.find((members) => bruteEquivalent(property, members[0].dice.map((die) => die.faces), faces));
+    const home = classes.find((members) =>
+      bruteEquivalent(
+        property,
+        members[0].dice.map((die) => die.faces),
+        faces,
+      ),
+    );
     if (home) home.push(result);
     else classes.push([result]);
   }
@@ -47,14 +56,19 @@ function bruteClasses(property: SetFinderRequest["property"], found: FoundSet[])
 describe("collapseEquivalentSets against a brute-force equivalence", { timeout: 120_000 }, () => {
   it.each([
     ["three four-faced dice, values 1 to 5, one cycle", request({})],
-    ["three four-faced dice, values 1 to 6, reversing with two dice each", request({ property: "reversing-cycle", faceValues: { kind: "range", min: 1, max: 6 } })],
+    [
+      "three four-faced dice, values 1 to 6, reversing with two dice each",
+      request({ property: "reversing-cycle", faceValues: { kind: "range", min: 1, max: 6 } }),
+    ],
     ["four four-faced dice, values 1 to 5, one cycle", request({ diceCount: 4 })],
   ])("keeps one set per class, the best of it, with the rest counted as variants: %s", (_label, search) => {
     const every = searchDiceSets(search, undefined, undefined, { collapseVariants: false }).results;
     const classes = bruteClasses(search.property, every);
     expect(classes.some((members) => members.length > 1)).toBe(true);
     const collapsed = collapseEquivalentSets(search.property, every);
-    expect(collapsed.map((result) => setKey(result.dice.map((die) => die.faces)))).toEqual(classes.map((members) => setKey(members[0].dice.map((die) => die.faces))));
+    expect(collapsed.map((result) => setKey(result.dice.map((die) => die.faces)))).toEqual(
+      classes.map((members) => setKey(members[0].dice.map((die) => die.faces))),
+    );
     expect(collapsed.map((result) => result.variants)).toEqual(classes.map((members) => members.length - 1));
   });
 
@@ -64,7 +78,13 @@ describe("collapseEquivalentSets against a brute-force equivalence", { timeout: 
     expect(outcome.results.length).toBe(8);
     for (const [index, result] of outcome.results.entries()) {
       for (const later of outcome.results.slice(index + 1)) {
-        expect(bruteEquivalent(search.property, result.dice.map((die) => die.faces), later.dice.map((die) => die.faces))).toBe(false);
+        expect(
+          bruteEquivalent(
+            search.property,
+            result.dice.map((die) => die.faces),
+            later.dice.map((die) => die.faces),
+          ),
+        ).toBe(false);
       }
     }
     expect(outcome.results.some((result) => (result.variants ?? 0) > 0)).toBe(true);
@@ -75,7 +95,13 @@ describe("refusing dice whose faces are all equal", { timeout: 60_000 }, () => {
   const hasEqualFacedDie = (dice: { faces: number[] }[]) => dice.some((die) => die.faces.every((face) => face === die.faces[0]));
 
   const search = (refuseAllEqualFaces?: boolean) =>
-    request({ diceCount: 4, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 7 }, maxResults: 10, ...(refuseAllEqualFaces === undefined ? {} : { refuseAllEqualFaces }) });
+    request({
+      diceCount: 4,
+      facesPerDie: 6,
+      faceValues: { kind: "range", min: 1, max: 7 },
+      maxResults: 10,
+      ...(refuseAllEqualFaces === undefined ? {} : { refuseAllEqualFaces }),
+    });
 
   it("leaves such dice out by default", () => {
     expect(search().refuseAllEqualFaces).toBe(true);

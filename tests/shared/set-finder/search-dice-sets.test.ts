@@ -35,7 +35,11 @@ function expectSameAsBruteForce(search: SetFinderRequest) {
   expect(found.map((result) => result.score)).toEqual(expectedTop.map((set) => set.strength.valueOf()));
   if (found.length === 0) return outcome;
   const lastStrength = expectedTop[expectedTop.length - 1].strength;
-  const above = (sets: { key: string; strength: Fraction }[]) => sets.filter((set) => set.strength.gt(lastStrength)).map((set) => set.key).sort();
+  const above = (sets: { key: string; strength: Fraction }[]) =>
+    sets
+      .filter((set) => set.strength.gt(lastStrength))
+      .map((set) => set.key)
+      .sort();
   expect(above(found.map((result) => ({ key: keyOfResult(result.dice), strength: new Fraction(result.score) })))).toEqual(above(brute));
   const byKey = new Map(brute.map((set) => [set.key, set]));
   for (const result of found) {
@@ -100,10 +104,18 @@ describe("searchDiceSets bounds and checks", { timeout: 60_000 }, () => {
   });
 
   it("finds Efron's four dice, shifted, as the strongest four six-faced dice with values 1 to 8", () => {
-    // Efron's dice (Gardner, Scientific American, December 1970; faces from memory) win 2/3 round the cycle; 2/3 is also Usiskin's bound for four dice (from memory).
-    const efron = [[0, 0, 4, 4, 4, 4], [3, 3, 3, 3, 3, 3], [2, 2, 2, 2, 6, 6], [1, 1, 1, 5, 5, 5]].map((die) => die.map((face) => face + 1));
+    // Efron's dice (Gardner, Scientific American, December 1970; faces from memory) win 2/3 round the cycle; 2/3 is also Usiskin's bound
+    // for four dice (from memory).
+    const efron = [
+      [0, 0, 4, 4, 4, 4],
+      [3, 3, 3, 3, 3, 3],
+      [2, 2, 2, 2, 6, 6],
+      [1, 1, 1, 5, 5, 5],
+    ].map((die) => die.map((face) => face + 1));
     // One of Efron's dice shows the same value on every face, so this search has to allow such dice.
-    const outcome = searchDiceSets(request({ diceCount: 4, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 8 }, maxResults: 3, refuseAllEqualFaces: false }));
+    const outcome = searchDiceSets(
+      request({ diceCount: 4, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 8 }, maxResults: 3, refuseAllEqualFaces: false }),
+    );
     expect(outcome.complete).toBe(true);
     expect(outcome.results[0].figures.weakestCycleWin).toBe("2/3");
     expect(keyOfResult(outcome.results[0].dice)).toBe(setKey(efron));
@@ -112,9 +124,14 @@ describe("searchDiceSets bounds and checks", { timeout: 60_000 }, () => {
 
   it("reports progress that only grows and ends at the whole space", () => {
     const updates: SetFinderUpdate[] = [];
-    const outcome = searchDiceSets(request({ facesPerDie: 5, faceValues: { kind: "range", min: 1, max: 8 } }), (update) => updates.push(update), () => false, {
-      progressIntervalMs: 0,
-    });
+    const outcome = searchDiceSets(
+      request({ facesPerDie: 5, faceValues: { kind: "range", min: 1, max: 8 } }),
+      (update) => updates.push(update),
+      () => false,
+      {
+        progressIntervalMs: 0,
+      },
+    );
     expect(updates.length).toBeGreaterThan(5);
     updates.slice(1).forEach((update, index) => expect(update.progress.examined).toBeGreaterThanOrEqual(updates[index].progress.examined));
     for (const update of updates) expect(update.progress.fraction).toBeGreaterThanOrEqual(0);
@@ -124,7 +141,12 @@ describe("searchDiceSets bounds and checks", { timeout: 60_000 }, () => {
 
   it("stops when asked and says the results are not proven best", () => {
     let calls = 0;
-    const outcome = searchDiceSets(request({ diceCount: 4, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 8 } }), undefined, () => ++calls > 3, { warmUpSeconds: 0 });
+    const outcome = searchDiceSets(
+      request({ diceCount: 4, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 8 } }),
+      undefined,
+      () => ++calls > 3,
+      { warmUpSeconds: 0 },
+    );
     expect(outcome.complete).toBe(false);
     expect(outcome.message).toMatch(/Stopped on request/);
     expect(outcome.progress.fraction).toBeLessThan(1);
@@ -132,19 +154,29 @@ describe("searchDiceSets bounds and checks", { timeout: 60_000 }, () => {
 
   it("stops at the time budget, by the clock it is given", () => {
     let clock = 0;
-    const outcome = searchDiceSets(request({ diceCount: 4, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 8 }, timeBudgetSeconds: 2 }), undefined, undefined, {
-      warmUpSeconds: 0,
-      now: () => (clock += 20),
-    });
+    const outcome = searchDiceSets(
+      request({ diceCount: 4, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 8 }, timeBudgetSeconds: 2 }),
+      undefined,
+      undefined,
+      {
+        warmUpSeconds: 0,
+        now: () => (clock += 20),
+      },
+    );
     expect(outcome.complete).toBe(false);
     expect(outcome.message).toMatch(/Stopped at the time budget/);
   });
 
   it("switches to a randomized search for a request with too many candidate dice and says so", () => {
     let clock = 0;
-    const outcome = searchDiceSets(request({ diceCount: 3, facesPerDie: 12, faceValues: { kind: "range", min: 1, max: 12 }, seed: 4, timeBudgetSeconds: 5 }), undefined, undefined, {
-      now: () => (clock += 50),
-    });
+    const outcome = searchDiceSets(
+      request({ diceCount: 3, facesPerDie: 12, faceValues: { kind: "range", min: 1, max: 12 }, seed: 4, timeBudgetSeconds: 5 }),
+      undefined,
+      undefined,
+      {
+        now: () => (clock += 50),
+      },
+    );
     expect(outcome.mode).toBe("randomized");
     expect(outcome.message).toMatch(/randomized local search/);
     expect(outcome.results.length).toBeGreaterThan(0);
@@ -166,7 +198,11 @@ describe("randomizedSearch", { timeout: 30_000 }, () => {
     const best = Math.max(...[...brute.values()].map((set) => set.strength.valueOf()));
     const top = new TopList("strongest-cycle", 5);
     let evaluations = 0;
-    randomizedSearch(search, allowedFaceValues(search.faceValues), true, top, { shouldStop: () => ++evaluations > 400, onTick: () => {}, seed: 9 });
+    randomizedSearch(search, allowedFaceValues(search.faceValues), true, top, {
+      shouldStop: () => ++evaluations > 400,
+      onTick: () => {},
+      seed: 9,
+    });
     expect(top.list().length).toBe(5);
     for (const candidate of top.list()) {
       const twin = brute.get(candidate.key);
@@ -180,11 +216,17 @@ describe("randomizedSearch", { timeout: 30_000 }, () => {
     const search = request({ allowTies: false, facesPerDie: 6, faceValues: { kind: "range", min: 1, max: 12 }, maxResults: 20 });
     const top = new TopList("strongest-cycle", 20);
     let evaluations = 0;
-    randomizedSearch(search, allowedFaceValues(search.faceValues), true, top, { shouldStop: () => ++evaluations > 300, onTick: () => {}, seed: 2 });
+    randomizedSearch(search, allowedFaceValues(search.faceValues), true, top, {
+      shouldStop: () => ++evaluations > 300,
+      onTick: () => {},
+      seed: 2,
+    });
     expect(top.list().length).toBeGreaterThan(0);
     for (const candidate of top.list()) {
       const used = candidate.faces.map((die) => new Set(die));
-      used.forEach((values, index) => used.slice(index + 1).forEach((other) => expect([...values].some((value) => other.has(value))).toBe(false)));
+      used.forEach((values, index) =>
+        used.slice(index + 1).forEach((other) => expect([...values].some((value) => other.has(value))).toBe(false)),
+      );
     }
   });
 });

@@ -5,7 +5,10 @@ import { runBoardQueryOptions } from "./get-run-board";
 
 /** Adds the virtual class: simulated groups with seeded rolls. */
 export function addSimulatedGroups({ runId, ...input }: SimulatedGroupsInput & { runId: string }) {
-  return api.post<{ seed: number; rolls: number; groups: BoardGroup[] }>(`/api/class-runs/${encodeURIComponent(runId)}/simulated-groups`, input);
+  return api.post<{ seed: number; rolls: number; groups: BoardGroup[] }>(
+    `/api/class-runs/${encodeURIComponent(runId)}/simulated-groups`,
+    input,
+  );
 }
 
 export function useAddSimulatedGroups(runId: string) {

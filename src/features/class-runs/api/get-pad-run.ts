@@ -1,7 +1,8 @@
 import { useEffect, useState } from "react";
 import type { PadRunPreview } from "@shared/schemas/class-runs";
 
-export type PadRunLookup = { status: "idle" } | { status: "pending" } | { status: "found"; run: PadRunPreview } | { status: "failed"; message: string };
+export type PadRunLookup =
+  { status: "idle" } | { status: "pending" } | { status: "found"; run: PadRunPreview } | { status: "failed"; message: string };
 
 /** The open run behind a join code, shown on the Roll pad before a group joins (no account needed). */
 export async function getPadRun(code: string): Promise<PadRunPreview> {
@@ -11,7 +12,8 @@ export async function getPadRun(code: string): Promise<PadRunPreview> {
   } catch {
     throw new Error("The class run could not be reached. Check the Wi-Fi and try again.");
   }
-  const body = (await response.json().catch(() => null)) as (PadRunPreview & { error?: { message?: string; retryAfterMs?: number } }) | null;
+  const body = (await response.json().catch(() => null)) as
+    (PadRunPreview & { error?: { message?: string; retryAfterMs?: number } }) | null;
   if (!response.ok || !body) throw new Error(body?.error?.message ?? "The class run could not be reached.");
   return body;
 }

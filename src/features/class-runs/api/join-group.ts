@@ -57,9 +57,17 @@ export async function joinGroup({ code, nickname }: { code: string; nickname: st
           await wait(1_000 * attempt);
           continue;
         }
-        throw new JoinRefusedError("offline", "The phone could not reach the class run. Check the Wi-Fi and try again: your group is not lost.");
+        throw new JoinRefusedError(
+          "offline",
+          "The phone could not reach the class run. Check the Wi-Fi and try again: your group is not lost.",
+        );
       }
-      if (!ack.ok) throw new JoinRefusedError(ack.error.code, joinRefusalText(ack.error.code, ack.error.message, ack.error.retryAfterMs), ack.error.retryAfterMs);
+      if (!ack.ok)
+        throw new JoinRefusedError(
+          ack.error.code,
+          joinRefusalText(ack.error.code, ack.error.message, ack.error.retryAfterMs),
+          ack.error.retryAfterMs,
+        );
       sessionStorage.removeItem(ATTEMPT_KEY);
       return { token: ack.token, runId: ack.state.run.id, groupId: ack.state.group.id, nickname: ack.state.group.nickname, code };
     }

@@ -10,5 +10,8 @@ export function setRunJoining({ runId, locked }: { runId: string; locked: boolea
 
 export function useSetRunJoining() {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: setRunJoining, onSuccess: (run) => queryClient.invalidateQueries({ queryKey: runBoardQueryOptions(run.id).queryKey }) });
+  return useMutation({
+    mutationFn: setRunJoining,
+    onSuccess: (run) => queryClient.invalidateQueries({ queryKey: runBoardQueryOptions(run.id).queryKey }),
+  });
 }

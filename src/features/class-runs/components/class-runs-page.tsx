@@ -27,14 +27,22 @@ function OpenFromLesson() {
   if (lessons.data.lessons.length === 0) {
     return (
       <Alert tone="info" title="No lessons yet">
-        Plan a lesson around a dice set in <Link className="font-bold underline" to="/app/lessons">Lessons</Link>, then open a class run of it here.
+        Plan a lesson around a dice set in{" "}
+        <Link className="font-bold underline" to="/app/lessons">
+          Lessons
+        </Link>
+        , then open a class run of it here.
       </Alert>
     );
   }
   const ordered = [...lessons.data.lessons].sort((a, b) => Number(b.id === wanted) - Number(a.id === wanted));
   return (
     <div className="flex flex-col gap-3">
-      {open.error && <Alert tone="error" title="The run was not opened">{open.error.message}</Alert>}
+      {open.error && (
+        <Alert tone="error" title="The run was not opened">
+          {open.error.message}
+        </Alert>
+      )}
       <label className="flex max-w-md flex-col gap-1 font-bold">
         Most groups that may join
         <span className="text-sm font-normal text-ink-soft">
@@ -54,11 +62,12 @@ function OpenFromLesson() {
       </label>
       <ul className="grid gap-3 md:grid-cols-2">
         {ordered.map((lesson) => (
-          <li key={lesson.id} className={`flex flex-col gap-2 rounded-2xl border-2 bg-shell p-4 ${lesson.id === wanted ? "border-tide" : "border-line"}`}>
+          <li
+            key={lesson.id}
+            className={`flex flex-col gap-2 rounded-2xl border-2 bg-shell p-4 ${lesson.id === wanted ? "border-tide" : "border-line"}`}
+          >
             <h3 className="text-lg">{lesson.title}</h3>
-            <p className="text-ink-soft">
-              {[lesson.classGroup, lesson.diceSetName ?? "No dice set"].filter(Boolean).join(" · ")}
-            </p>
+            <p className="text-ink-soft">{[lesson.classGroup, lesson.diceSetName ?? "No dice set"].filter(Boolean).join(" · ")}</p>
             {lesson.problem ? (
               <p className="text-sm font-bold text-alarm">
                 <span aria-hidden="true">⚠ </span>
@@ -69,7 +78,9 @@ function OpenFromLesson() {
                 <Button
                   busy={open.isPending && open.variables?.lessonId === lesson.id}
                   disabled={!cap.success}
-                  onClick={() => open.mutate({ lessonId: lesson.id, groupCap: cap.data }, { onSuccess: (run) => navigate(`/app/runs/${run.id}`) })}
+                  onClick={() =>
+                    open.mutate({ lessonId: lesson.id, groupCap: cap.data }, { onSuccess: (run) => navigate(`/app/runs/${run.id}`) })
+                  }
                 >
                   Open a class run
                 </Button>
@@ -98,13 +109,27 @@ function RunsTable() {
         <caption className="sr-only">Your class runs</caption>
         <thead>
           <tr className="border-b-2 border-line">
-            <th scope="col" className="px-3 py-2">Run</th>
-            <th scope="col" className="px-3 py-2">Status</th>
-            <th scope="col" className="px-3 py-2">Phase</th>
-            <th scope="col" className="px-3 py-2">Join code</th>
-            <th scope="col" className="px-3 py-2 text-right">Groups</th>
-            <th scope="col" className="px-3 py-2 text-right">Rolls</th>
-            <th scope="col" className="px-3 py-2">Opened</th>
+            <th scope="col" className="px-3 py-2">
+              Run
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Status
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Phase
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Join code
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Groups
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Rolls
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Opened
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -136,11 +161,14 @@ function RunsTable() {
 export function ClassRunsPage() {
   return (
     <>
-      <PageHeader title="Class runs" lead="Run a lesson live: groups join on phones with a code, record their rolls, and the Run board pools them beside the exact chances." />
+      <PageHeader
+        title="Class runs"
+        lead="Run a lesson live: groups join on phones with a code, record their rolls, and the Run board pools them beside the exact chances."
+      />
       <div className="mb-6 max-w-3xl">
         <Alert tone="caution" title="Before you start">
-          Pupils need only a browser on the same network as Outroll: no app and no account. Ask each group for a made-up
-          nickname; Outroll stores nicknames and rolls, nothing about the pupils themselves, until you delete the run.{" "}
+          Pupils need only a browser on the same network as Outroll: no app and no account. Ask each group for a made-up nickname; Outroll
+          stores nicknames and rolls, nothing about the pupils themselves, until you delete the run.{" "}
           <Link to="/privacy" className="font-bold underline">
             Privacy notice
           </Link>

@@ -15,7 +15,17 @@ export function frequencyMeaning(entry: PooledMatchup, tieRule: string): string 
  * Running relative frequency against the number of rolls, with the exact value as a dashed line and the 95% band
  * around it (normal approximation, common practice) in which a fair class's frequency usually stays.
  */
-export function ConvergenceChart({ entry, tieRule, large = false, showExact = true }: { entry: PooledMatchup; tieRule: string; large?: boolean; showExact?: boolean }) {
+export function ConvergenceChart({
+  entry,
+  tieRule,
+  large = false,
+  showExact = true,
+}: {
+  entry: PooledMatchup;
+  tieRule: string;
+  large?: boolean;
+  showExact?: boolean;
+}) {
   const exact = showExact ? (entry.exact.underTieRule?.value ?? null) : null;
   // The band is centred on the exact value, so it is left out with it.
   const data = entry.convergence.map((point) => ({
@@ -27,7 +37,11 @@ export function ConvergenceChart({ entry, tieRule, large = false, showExact = tr
   const font = large ? 22 : 13;
   return (
     <figure className="flex flex-col gap-2">
-      <div className={large ? "h-[42vh]" : "h-64"} role="img" aria-label={`Convergence chart: ${frequencyMeaning(entry, tieRule)} after each roll${showExact ? `, with the exact value ${entry.exact.underTieRule?.fraction ?? "none"}` : ""}.`}>
+      <div
+        className={large ? "h-[42vh]" : "h-64"}
+        role="img"
+        aria-label={`Convergence chart: ${frequencyMeaning(entry, tieRule)} after each roll${showExact ? `, with the exact value ${entry.exact.underTieRule?.fraction ?? "none"}` : ""}.`}
+      >
         <ResponsiveContainer width="100%" height="100%">
           <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: large ? 28 : 20, left: 0 }}>
             <CartesianGrid stroke={large ? "#3b4f63" : "#d8cfc0"} strokeDasharray="2 4" />
@@ -38,9 +52,30 @@ export function ConvergenceChart({ entry, tieRule, large = false, showExact = tr
               tick={{ fontSize: font, fill: large ? "#ffffff" : "#3b4f63" }}
               label={{ value: "Rolls", position: "insideBottom", offset: -12, fontSize: font, fill: large ? "#ffffff" : "#12263a" }}
             />
-            <YAxis domain={[0, 1]} ticks={[0, 0.25, 0.5, 0.75, 1]} tick={{ fontSize: font, fill: large ? "#ffffff" : "#3b4f63" }} width={large ? 70 : 44} />
-            {!large && <Tooltip formatter={(value) => (Array.isArray(value) ? value.map((part) => Number(part).toFixed(3)).join(" to ") : Number(value).toFixed(3))} />}
-            {showExact && <Area dataKey="band" name="95% band around the exact value" stroke="none" fill={colours.band} fillOpacity={large ? 0.35 : 0.55} isAnimationActive={false} connectNulls />}
+            <YAxis
+              domain={[0, 1]}
+              ticks={[0, 0.25, 0.5, 0.75, 1]}
+              tick={{ fontSize: font, fill: large ? "#ffffff" : "#3b4f63" }}
+              width={large ? 70 : 44}
+            />
+            {!large && (
+              <Tooltip
+                formatter={(value) =>
+                  Array.isArray(value) ? value.map((part) => Number(part).toFixed(3)).join(" to ") : Number(value).toFixed(3)
+                }
+              />
+            )}
+            {showExact && (
+              <Area
+                dataKey="band"
+                name="95% band around the exact value"
+                stroke="none"
+                fill={colours.band}
+                fillOpacity={large ? 0.35 : 0.55}
+                isAnimationActive={false}
+                connectNulls
+              />
+            )}
             {exact !== null && <ReferenceLine y={exact} stroke={colours.exact} strokeWidth={large ? 4 : 2} strokeDasharray="8 5" />}
             <Line
               dataKey="frequency"
@@ -80,7 +115,10 @@ export function ConvergenceChart({ entry, tieRule, large = false, showExact = tr
       </ul>
       <figcaption className={large ? "text-2xl" : "text-sm text-ink-soft"}>
         {frequencyMeaning(entry, tieRule)} after each of {entry.rolls} rolls
-        {showExact && entry.exact.underTieRule ? `; exact value ${entry.exact.underTieRule.fraction} ≈ ${entry.exact.underTieRule.decimal}` : ""}.
+        {showExact && entry.exact.underTieRule
+          ? `; exact value ${entry.exact.underTieRule.fraction} ≈ ${entry.exact.underTieRule.decimal}`
+          : ""}
+        .
       </figcaption>
     </figure>
   );

@@ -9,13 +9,20 @@ export function GroupStateMarks({ group }: { group: BoardGroup }) {
   return (
     <>
       {group.leftOut && (
-        <span className="mt-1 block w-fit rounded-lg border-2 border-line bg-white px-2 text-sm font-bold text-ink-soft" data-testid="left-out-mark">
+        <span
+          className="mt-1 block w-fit rounded-lg border-2 border-line bg-white px-2 text-sm font-bold text-ink-soft"
+          data-testid="left-out-mark"
+        >
           Left out of the figures
         </span>
       )}
       {group.floodedAt && (
-        <span className="mt-1 block w-fit rounded-lg border-2 border-beacon bg-beacon-light px-2 text-sm font-bold" data-testid="flood-mark">
-          <span aria-hidden="true">⚑ </span>Sent rolls too fast at {new Date(group.floodedAt).toLocaleTimeString("en-GB", { timeStyle: "short" })}
+        <span
+          className="mt-1 block w-fit rounded-lg border-2 border-beacon bg-beacon-light px-2 text-sm font-bold"
+          data-testid="flood-mark"
+        >
+          <span aria-hidden="true">⚑ </span>Sent rolls too fast at{" "}
+          {new Date(group.floodedAt).toLocaleTimeString("en-GB", { timeStyle: "short" })}
         </span>
       )}
     </>
@@ -102,8 +109,8 @@ export function GroupActions({ run, group }: { run: ClassRun; group: BoardGroup 
         onCancel={() => setRemoving(false)}
         onConfirm={() => remove.mutate({ runId: run.id, groupId: group.id }, { onSettled: () => setRemoving(false) })}
       >
-        The group leaves the board and every figure, and its phone can record no more. Its rolls stay stored, unseen. To keep
-        the group playing but not counted, choose Leave out instead.
+        The group leaves the board and every figure, and its phone can record no more. Its rolls stay stored, unseen. To keep the group
+        playing but not counted, choose Leave out instead.
       </ConfirmDialog>
     </div>
   );

@@ -18,7 +18,12 @@ function DeliveryStatus({ snapshot }: { snapshot: PadSnapshot }) {
   const settled = snapshot.connected && snapshot.waiting === 0;
   const tone = settled ? "bg-tide-light text-ink" : "bg-beacon-light text-ink";
   return (
-    <span role="status" aria-live="polite" data-testid="delivery-status" className={`whitespace-nowrap rounded-full px-3 py-1 text-base font-bold ${tone}`}>
+    <span
+      role="status"
+      aria-live="polite"
+      data-testid="delivery-status"
+      className={`whitespace-nowrap rounded-full px-3 py-1 text-base font-bold ${tone}`}
+    >
       {settled && <span aria-hidden="true">✓ </span>}
       {deliveryStatusText(snapshot.connected, snapshot.waiting)}
     </span>
@@ -39,7 +44,11 @@ const ROLL_PHASES: readonly RunPhase[] = ["Roll", "Twist"];
 
 function LookAtTheBoard({ phase, waiting }: { phase: RunPhase; waiting: number }) {
   return (
-    <section aria-labelledby="board-heading" className="flex flex-col gap-3 rounded-2xl border-4 border-tide bg-tide-light p-4" data-testid="look-at-board">
+    <section
+      aria-labelledby="board-heading"
+      className="flex flex-col gap-3 rounded-2xl border-4 border-tide bg-tide-light p-4"
+      data-testid="look-at-board"
+    >
       <h2 id="board-heading" className="text-2xl">
         {phase}: eyes on the board
       </h2>
@@ -147,7 +156,12 @@ function MatchupChooser({ state, connection }: { state: PadState; connection: Pa
 }
 
 function scoreOf(log: LocalRoll[], tally: number, matchup: number[]) {
-  const kept = log.filter((entry) => entry.tally === tally && entry.matchup.join() === matchup.join() && (entry.state === "waiting" || entry.state === "saved" || entry.state === "undoing"));
+  const kept = log.filter(
+    (entry) =>
+      entry.tally === tally &&
+      entry.matchup.join() === matchup.join() &&
+      (entry.state === "waiting" || entry.state === "saved" || entry.state === "undoing"),
+  );
   const wins = matchup.map(() => 0);
   let ties = 0;
   for (const entry of kept) {
@@ -174,7 +188,10 @@ function RecordPanel({ state, connection, snapshot }: { state: PadState; connect
   const complete = faces.every((seat) => seat.every((face) => face !== null));
   const paused = state.run.status === "paused";
   const score = scoreOf(snapshot.log, state.run.tally, matchup);
-  const recent = snapshot.log.filter((entry) => entry.tally === state.run.tally).slice(-4).reverse();
+  const recent = snapshot.log
+    .filter((entry) => entry.tally === state.run.tally)
+    .slice(-4)
+    .reverse();
   const names = matchup.map((index) => dieLabel(state, index));
   const summary = complete ? faces.map((seat) => (seat as number[]).reduce((sum, face) => sum + face, 0)).join(" v ") : "";
 
@@ -207,7 +224,12 @@ function RecordPanel({ state, connection, snapshot }: { state: PadState; connect
               {die.name}
             </legend>
             {faces[seat].map((picked, slot) => (
-              <div key={slot} role="group" aria-label={perPlayer === 2 ? `${die.name}, die ${slot + 1}` : die.name} className="flex flex-wrap gap-2">
+              <div
+                key={slot}
+                role="group"
+                aria-label={perPlayer === 2 ? `${die.name}, die ${slot + 1}` : die.name}
+                className="flex flex-wrap gap-2"
+              >
                 {perPlayer === 2 && <span className="w-full text-base font-bold text-ink-soft">Die {slot + 1}</span>}
                 {values.map((value, valueIndex) => (
                   <button
@@ -261,7 +283,10 @@ function RecordPanel({ state, connection, snapshot }: { state: PadState; connect
           <h3 className="text-lg">Latest rolls</h3>
           <ol className="mt-1 flex flex-col gap-1 text-base">
             {recent.map((entry) => (
-              <li key={entry.id} className={`flex justify-between gap-2 rounded-lg px-2 py-1 ${entry.state === "refused" ? "bg-alarm-light" : "bg-sand"}`}>
+              <li
+                key={entry.id}
+                className={`flex justify-between gap-2 rounded-lg px-2 py-1 ${entry.state === "refused" ? "bg-alarm-light" : "bg-sand"}`}
+              >
                 <span className={entry.state === "undone" ? "line-through" : ""}>
                   {entry.totals.join(" v ")} · {entry.winnerSeat === null ? "tie" : `${names[entry.winnerSeat]} wins`}
                 </span>
@@ -286,8 +311,8 @@ export function GroupPad({ session, onLeave }: { session: PadSession; onLeave: (
     return (
       <PadFrame>
         <Alert tone="caution" title="Your teacher removed this group">
-          The group “{nickname}” is no longer in this class run, so this phone has forgotten it. If that was a mistake, join again
-          with a new nickname.
+          The group “{nickname}” is no longer in this class run, so this phone has forgotten it. If that was a mistake, join again with a
+          new nickname.
         </Alert>
         <Button className="min-h-14 text-xl" onClick={onLeave}>
           Join the class again
@@ -325,7 +350,14 @@ export function GroupPad({ session, onLeave }: { session: PadSession; onLeave: (
         </Alert>
       );
   } else {
-    body = <RecordPanel key={`${padState.run.tally}-${padState.group.matchup.join("-")}`} state={padState} connection={connection} snapshot={snapshot} />;
+    body = (
+      <RecordPanel
+        key={`${padState.run.tally}-${padState.group.matchup.join("-")}`}
+        state={padState}
+        connection={connection}
+        snapshot={snapshot}
+      />
+    );
   }
 
   return (
@@ -340,9 +372,11 @@ export function GroupPad({ session, onLeave }: { session: PadSession; onLeave: (
           </p>
         )}
       </div>
-      {snapshot.notice && snapshot.waiting > 0 && (!padState || padState.run.phase === "Guess" || ROLL_PHASES.includes(padState.run.phase)) && (
-        <p className="text-base text-ink-soft">{snapshot.notice}</p>
-      )}
+      {snapshot.notice &&
+        snapshot.waiting > 0 &&
+        (!padState || padState.run.phase === "Guess" || ROLL_PHASES.includes(padState.run.phase)) && (
+          <p className="text-base text-ink-soft">{snapshot.notice}</p>
+        )}
       {body}
       <p className="text-sm text-ink-soft">
         Outroll keeps only your group’s nickname and rolls. Please do not type real names.{" "}

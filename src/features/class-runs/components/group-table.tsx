@@ -20,9 +20,14 @@ export function GroupTable({ snapshot, pooled, canManage }: { snapshot: BoardSna
   const { run } = snapshot;
   const assign = useAssignGroupMatchup(run.id);
   const options = run.players <= run.dice.length ? cycleMatchups(run.dice.length, run.players) : [];
-  const label = (matchup: number[] | null) => (matchup ? matchup.map((index) => run.dice[index]?.name ?? "?").join(" v ") : "Not chosen yet");
+  const label = (matchup: number[] | null) =>
+    matchup ? matchup.map((index) => run.dice[index]?.name ?? "?").join(" v ") : "Not chosen yet";
   if (snapshot.groups.length === 0) {
-    return <p className="rounded-2xl border-2 border-dashed border-line p-6 text-ink-soft">No groups yet. Groups appear here as they join with the code.</p>;
+    return (
+      <p className="rounded-2xl border-2 border-dashed border-line p-6 text-ink-soft">
+        No groups yet. Groups appear here as they join with the code.
+      </p>
+    );
   }
   return (
     <div className="flex flex-col gap-3">
@@ -32,13 +37,27 @@ export function GroupTable({ snapshot, pooled, canManage }: { snapshot: BoardSna
           <caption className="sr-only">Groups in this class run</caption>
           <thead>
             <tr className="border-b-2 border-line">
-              <th scope="col" className="px-3 py-2">Group</th>
-              <th scope="col" className="px-3 py-2">Matchup</th>
-              <th scope="col" className="px-3 py-2 text-right">Rolls</th>
-              <th scope="col" className="px-3 py-2">Vote</th>
-              <th scope="col" className="px-3 py-2 text-right">Share (die)</th>
-              <th scope="col" className="px-3 py-2 text-right">p-value</th>
-              <th scope="col" className="px-3 py-2">Check</th>
+              <th scope="col" className="px-3 py-2">
+                Group
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Matchup
+              </th>
+              <th scope="col" className="px-3 py-2 text-right">
+                Rolls
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Vote
+              </th>
+              <th scope="col" className="px-3 py-2 text-right">
+                Share (die)
+              </th>
+              <th scope="col" className="px-3 py-2 text-right">
+                p-value
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Check
+              </th>
               {canManage && (
                 <th scope="col" className="px-3 py-2">
                   Moderate
@@ -51,7 +70,11 @@ export function GroupTable({ snapshot, pooled, canManage }: { snapshot: BoardSna
               const tests = pooled.groups.filter((entry) => entry.groupId === group.id);
               const flagged = tests.some((entry) => entry.test.implausible);
               return (
-                <tr key={group.id} data-testid="group-row" className={`border-b border-line/60 align-top ${flagged ? "bg-alarm-light" : ""} ${group.leftOut ? "text-ink-soft" : ""}`}>
+                <tr
+                  key={group.id}
+                  data-testid="group-row"
+                  className={`border-b border-line/60 align-top ${flagged ? "bg-alarm-light" : ""} ${group.leftOut ? "text-ink-soft" : ""}`}
+                >
                   <th scope="row" className="px-3 py-2">
                     <span className="block font-bold">{group.nickname}</span>
                     <span className="text-sm text-ink-soft">{sourceLabels[group.source]}</span>
@@ -65,7 +88,9 @@ export function GroupTable({ snapshot, pooled, canManage }: { snapshot: BoardSna
                           className="min-h-11 rounded-lg border-2 border-line bg-white px-2 text-base"
                           value={group.matchup?.join("-") ?? ""}
                           disabled={assign.isPending}
-                          onChange={(event) => assign.mutate({ runId: run.id, groupId: group.id, matchup: event.target.value.split("-").map(Number) })}
+                          onChange={(event) =>
+                            assign.mutate({ runId: run.id, groupId: group.id, matchup: event.target.value.split("-").map(Number) })
+                          }
                         >
                           {!group.matchup && <option value="">Not chosen yet</option>}
                           {group.matchup && !options.some((option) => option.join("-") === group.matchup!.join("-")) && (
@@ -94,7 +119,13 @@ export function GroupTable({ snapshot, pooled, canManage }: { snapshot: BoardSna
                         ))}
                   </td>
                   <td className="px-3 py-2 text-right tabular-nums">
-                    {tests.length === 0 ? "–" : tests.map((entry) => <span key={entry.matchupKey} className="block">{pValueText(entry.test.pValue)}</span>)}
+                    {tests.length === 0
+                      ? "–"
+                      : tests.map((entry) => (
+                          <span key={entry.matchupKey} className="block">
+                            {pValueText(entry.test.pValue)}
+                          </span>
+                        ))}
                   </td>
                   <td className="px-3 py-2">
                     {tests.map((entry) =>
@@ -121,8 +152,8 @@ export function GroupTable({ snapshot, pooled, canManage }: { snapshot: BoardSna
         </table>
       </div>
       <p className="text-sm text-ink-soft">
-        Plausibility: an exact two-sided binomial test of each group’s wins for the first die of its matchup against the exact
-        chance; a group is flagged when p &lt; {IMPLAUSIBLE_P_VALUE}. About one honest group in a hundred is flagged by chance.
+        Plausibility: an exact two-sided binomial test of each group’s wins for the first die of its matchup against the exact chance; a
+        group is flagged when p &lt; {IMPLAUSIBLE_P_VALUE}. About one honest group in a hundred is flagged by chance.
       </p>
     </div>
   );

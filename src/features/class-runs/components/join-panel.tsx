@@ -39,8 +39,8 @@ export function JoinPanel({ run, size = "board" }: { run: ClassRun; size?: "boar
       </p>
       {isLoopbackAddress(url) && !wall && (
         <Alert tone="caution" title="Phones cannot reach this address">
-          This address names this computer only. Start Outroll with HOST=0.0.0.0 and APP_ORIGIN set to this computer’s
-          address on the school network (docs/user-guide.md: What pupils’ phones need), then open the board at that address.
+          This address names this computer only. Start Outroll with HOST=0.0.0.0 and APP_ORIGIN set to this computer’s address on the school
+          network (docs/user-guide.md: What pupils’ phones need), then open the board at that address.
         </Alert>
       )}
     </div>

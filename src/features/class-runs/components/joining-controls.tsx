@@ -17,15 +17,20 @@ export function JoiningControls({ snapshot, canManage }: { snapshot: BoardSnapsh
         </span>
       </p>
       {canManage && run.status !== "closed" && (
-        <Button variant="secondary" className="self-start" busy={joining.isPending} onClick={() => joining.mutate({ runId: run.id, locked: !run.joiningLocked })}>
+        <Button
+          variant="secondary"
+          className="self-start"
+          busy={joining.isPending}
+          onClick={() => joining.mutate({ runId: run.id, locked: !run.joiningLocked })}
+        >
           {run.joiningLocked ? "Unlock joining" : "Lock joining"}
         </Button>
       )}
       {joining.error && <Alert tone="error">{joining.error.message}</Alert>}
       {run.rollCeilingReachedAt && (
         <Alert tone="caution" title="This run has taken all the rolls it can">
-          Phones sent {run.rollCeiling.toLocaleString("en-GB")} rolls, far more than a class records; the run takes no more.
-          Check the groups flagged for sending rolls too fast, and remove or leave out any that spoiled the figures.
+          Phones sent {run.rollCeiling.toLocaleString("en-GB")} rolls, far more than a class records; the run takes no more. Check the
+          groups flagged for sending rolls too fast, and remove or leave out any that spoiled the figures.
         </Alert>
       )}
     </div>

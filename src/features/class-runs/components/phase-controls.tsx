@@ -27,7 +27,8 @@ export function PhaseControls({ run }: { run: ClassRun }) {
   const closed = run.status === "closed";
   const index = run.phases.indexOf(run.phase);
   const next = run.phases[index + 1] as RunPhase | undefined;
-  const move = (target: RunPhase) => phase.mutate({ runId: run.id, phase: target, ...(target === "Twist" && !twistStarted ? { twist } : {}) });
+  const move = (target: RunPhase) =>
+    phase.mutate({ runId: run.id, phase: target, ...(target === "Twist" && !twistStarted ? { twist } : {}) });
 
   return (
     <section aria-labelledby="phases-heading" className="flex flex-col gap-3 rounded-2xl border-2 border-line bg-shell p-4">

@@ -4,7 +4,8 @@ import { tieRuleLabels } from "@shared/schemas/lessons";
 import type { TieRule } from "@shared/probability/index";
 import { ConvergenceChart } from "./convergence-chart";
 
-export const decimal = (value: number | null | undefined, places = 3) => (value === null || value === undefined ? "–" : value.toFixed(places));
+export const decimal = (value: number | null | undefined, places = 3) =>
+  value === null || value === undefined ? "–" : value.toFixed(places);
 
 function modeText(entry: Pick<PooledMatchup, "dicePerPlayer" | "players">) {
   return `${entry.dicePerPlayer === 2 ? "two dice each" : "one die each"}, ${entry.players === 3 ? "three players" : "two players"}`;
@@ -37,21 +38,37 @@ function MatchupCard({ entry, tieRule, dieOrder }: { entry: PooledMatchup; tieRu
       </header>
       <div className="overflow-x-auto">
         <table className="w-full min-w-[22rem] text-left text-base" data-testid={`pooled-${entry.key}`}>
-          <caption className="sr-only">Pooled counts for {label}, {tieRuleLabels[tieRule].toLowerCase()}</caption>
+          <caption className="sr-only">
+            Pooled counts for {label}, {tieRuleLabels[tieRule].toLowerCase()}
+          </caption>
           <thead>
             <tr className="border-b-2 border-line">
-              <th scope="col" className="py-1 pr-3">Die</th>
-              <th scope="col" className="py-1 pr-3 text-right">Wins</th>
-              <th scope="col" className="py-1 pr-3 text-right">Ties</th>
-              <th scope="col" className="py-1 pr-3 text-right">Losses</th>
-              <th scope="col" className="py-1 pr-3 text-right">{headings.share}</th>
-              <th scope="col" className="py-1 text-right">{headings.exact}</th>
+              <th scope="col" className="py-1 pr-3">
+                Die
+              </th>
+              <th scope="col" className="py-1 pr-3 text-right">
+                Wins
+              </th>
+              <th scope="col" className="py-1 pr-3 text-right">
+                Ties
+              </th>
+              <th scope="col" className="py-1 pr-3 text-right">
+                Losses
+              </th>
+              <th scope="col" className="py-1 pr-3 text-right">
+                {headings.share}
+              </th>
+              <th scope="col" className="py-1 text-right">
+                {headings.exact}
+              </th>
             </tr>
           </thead>
           <tbody>
             {shares.map((share) => (
               <tr key={share.seat} className="border-b border-line/60">
-                <th scope="row" className="py-1 pr-3 font-bold">{share.dieName}</th>
+                <th scope="row" className="py-1 pr-3 font-bold">
+                  {share.dieName}
+                </th>
                 <td className="py-1 pr-3 text-right tabular-nums">{share.wins}</td>
                 <td className="py-1 pr-3 text-right tabular-nums">{share.ties}</td>
                 <td className="py-1 pr-3 text-right tabular-nums">{share.losses}</td>
@@ -76,7 +93,8 @@ function MatchupCard({ entry, tieRule, dieOrder }: { entry: PooledMatchup; tieRu
       </p>
       <p className="text-base tabular-nums text-ink-soft" data-testid={`exact-${entry.key}`}>
         {lead.interval ? `95% interval ${decimal(lead.interval.lower)} to ${decimal(lead.interval.upper)}` : "No interval yet"} ·{" "}
-        {tieRule === "ties-score-nothing" ? "exact" : "exact under the tie rule"} {lead.exact ? `${lead.exact.fraction} ≈ ${lead.exact.decimal}` : "none: every roll ties"}
+        {tieRule === "ties-score-nothing" ? "exact" : "exact under the tie rule"}{" "}
+        {lead.exact ? `${lead.exact.fraction} ≈ ${lead.exact.decimal}` : "none: every roll ties"}
       </p>
       <div className="mt-3">
         <ConvergenceChart entry={matchupFromSeat(entry, tieRule, lead.seat)} tieRule={tieRule} />
@@ -86,14 +104,31 @@ function MatchupCard({ entry, tieRule, dieOrder }: { entry: PooledMatchup; tieRu
 }
 
 /** The class's pooled results: one card per matchup (dice in the pads' order), or a note while no rolls have come in. */
-export function PooledMatchups({ pooled, playedMatchups, diceCount }: { pooled: PooledResults; playedMatchups: (number[] | null)[]; diceCount: number }) {
+export function PooledMatchups({
+  pooled,
+  playedMatchups,
+  diceCount,
+}: {
+  pooled: PooledResults;
+  playedMatchups: (number[] | null)[];
+  diceCount: number;
+}) {
   if (pooled.matchups.length === 0) {
-    return <p className="rounded-2xl border-2 border-dashed border-line p-6 text-ink-soft">No rolls yet. They appear here as the groups record them.</p>;
+    return (
+      <p className="rounded-2xl border-2 border-dashed border-line p-6 text-ink-soft">
+        No rolls yet. They appear here as the groups record them.
+      </p>
+    );
   }
   return (
     <div className="grid gap-4 2xl:grid-cols-2">
       {pooled.matchups.map((entry) => (
-        <MatchupCard key={entry.key} entry={entry} tieRule={pooled.tieRule} dieOrder={padDieOrder(entry.matchup, playedMatchups, diceCount)} />
+        <MatchupCard
+          key={entry.key}
+          entry={entry}
+          tieRule={pooled.tieRule}
+          dieOrder={padDieOrder(entry.matchup, playedMatchups, diceCount)}
+        />
       ))}
     </div>
   );

@@ -182,9 +182,7 @@ export function RollPad() {
       )}
       {code === null || !validCode ? (
         <>
-          <h1 className="text-3xl">
-            Join your class
-          </h1>
+          <h1 className="text-3xl">Join your class</h1>
           {code !== null && !validCode && (
             <Alert tone="error" title="That code does not look right">
               {parsedCode && !parsedCode.success ? parsedCode.error.issues[0]?.message : "Check the code on the board."}

@@ -31,7 +31,11 @@ const liveText: Record<LiveState, string> = { connecting: "Connecting…", live:
 
 function LiveBadge({ live }: { live: LiveState }) {
   return (
-    <span role="status" data-testid="live-state" className={`inline-flex items-center gap-1 rounded-full border-2 px-2 py-0.5 text-sm font-bold ${live === "live" ? "border-tide text-ink" : "border-beacon bg-beacon-light"}`}>
+    <span
+      role="status"
+      data-testid="live-state"
+      className={`inline-flex items-center gap-1 rounded-full border-2 px-2 py-0.5 text-sm font-bold ${live === "live" ? "border-tide text-ink" : "border-beacon bg-beacon-light"}`}
+    >
       <span aria-hidden="true">{live === "live" ? "◉" : "○"}</span>
       {liveText[live]}
     </span>
@@ -73,13 +77,20 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
           <>
             <RunStatusBadge status={run.status} />
             {closed ? (
-              <Link to={`/app/results/${run.id}`} className="inline-flex min-h-11 items-center rounded-xl border-2 border-ink px-4 font-bold text-ink hover:bg-sand">
+              <Link
+                to={`/app/results/${run.id}`}
+                className="inline-flex min-h-11 items-center rounded-xl border-2 border-ink px-4 font-bold text-ink hover:bg-sand"
+              >
                 See the results
               </Link>
             ) : (
               <LiveBadge live={live} />
             )}
-            <Link to={`/app/runs/${run.id}/wall`} target="_blank" className="inline-flex min-h-11 items-center rounded-xl bg-ink px-4 font-bold text-white hover:bg-ink-soft">
+            <Link
+              to={`/app/runs/${run.id}/wall`}
+              target="_blank"
+              className="inline-flex min-h-11 items-center rounded-xl bg-ink px-4 font-bold text-white hover:bg-ink-soft"
+            >
               Open the Wall view ↗
             </Link>
           </>
@@ -155,8 +166,8 @@ function BoardBody({ snapshot, live }: { snapshot: BoardSnapshot; live: LiveStat
       )}
       <div className="mt-8 max-w-3xl">
         <Alert tone="caution" title="Pupils’ privacy">
-          Outroll keeps only group nicknames and rolls. If a group has used a real name, tell them to rejoin with a made-up
-          nickname, and do not write pupils’ names into notes or uploads.
+          Outroll keeps only group nicknames and rolls. If a group has used a real name, tell them to rejoin with a made-up nickname, and do
+          not write pupils’ names into notes or uploads.
         </Alert>
       </div>
     </>

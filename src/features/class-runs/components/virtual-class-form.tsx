@@ -14,14 +14,33 @@ export function VirtualClassForm({ runId }: { runId: string }) {
     defaultValues: { groups: 4, rollsPerGroup: 250 },
   });
   return (
-    <form noValidate onSubmit={handleSubmit((values) => add.mutate({ runId, ...values }))} className="flex flex-col gap-3" aria-label="Add simulated groups">
+    <form
+      noValidate
+      onSubmit={handleSubmit((values) => add.mutate({ runId, ...values }))}
+      className="flex flex-col gap-3"
+      aria-label="Add simulated groups"
+    >
       <p className="text-ink-soft">
-        No dice in the room, or want to see thousands of rolls? Simulated groups roll the same dice by computer (a seeded
-        simulation). They are marked “Simulated”, and the board can show the class’s own rolls without them.
+        No dice in the room, or want to see thousands of rolls? Simulated groups roll the same dice by computer (a seeded simulation). They
+        are marked “Simulated”, and the board can show the class’s own rolls without them.
       </p>
       <div className="grid gap-3 sm:grid-cols-3">
-        <TextField label="Groups" type="number" min={1} max={20} {...register("groups", { valueAsNumber: true })} error={formState.errors.groups?.message} />
-        <TextField label="Rolls per group" type="number" min={1} max={5000} {...register("rollsPerGroup", { valueAsNumber: true })} error={formState.errors.rollsPerGroup?.message} />
+        <TextField
+          label="Groups"
+          type="number"
+          min={1}
+          max={20}
+          {...register("groups", { valueAsNumber: true })}
+          error={formState.errors.groups?.message}
+        />
+        <TextField
+          label="Rolls per group"
+          type="number"
+          min={1}
+          max={5000}
+          {...register("rollsPerGroup", { valueAsNumber: true })}
+          error={formState.errors.rollsPerGroup?.message}
+        />
         <TextField
           label="Seed (optional)"
           hint="The same seed gives the same rolls."

@@ -3,7 +3,15 @@ import type { BoardSnapshot } from "@shared/schemas/class-runs";
 import { DieSwatch } from "@/components/dice/die-swatch";
 
 /** The groups' Guess votes per die, beside the exact truth: which die beats each one. */
-export function VotesVersusTruth({ snapshot, large = false, showTruth = true }: { snapshot: BoardSnapshot; large?: boolean; showTruth?: boolean }) {
+export function VotesVersusTruth({
+  snapshot,
+  large = false,
+  showTruth = true,
+}: {
+  snapshot: BoardSnapshot;
+  large?: boolean;
+  showTruth?: boolean;
+}) {
   const { run, votes } = snapshot;
   const truth = guessTruth(run.dice, run.tieRule, run.tallies[0]?.dicePerPlayer ?? 1);
   const total = votes.reduce((sum, count) => sum + count, 0);
@@ -14,7 +22,9 @@ export function VotesVersusTruth({ snapshot, large = false, showTruth = true }: 
         {total} {total === 1 ? "group has" : "groups have"} voted.
         {showTruth && " "}
         {showTruth &&
-          (truth.bestDieIndex === null ? "The truth: no die is best — every die is beaten by another." : `The truth: ${run.dice[truth.bestDieIndex].name} beats every other die.`)}
+          (truth.bestDieIndex === null
+            ? "The truth: no die is best — every die is beaten by another."
+            : `The truth: ${run.dice[truth.bestDieIndex].name} beats every other die.`)}
       </p>
       <ul className="flex flex-col gap-2">
         {run.dice.map((die, index) => {
@@ -25,15 +35,22 @@ export function VotesVersusTruth({ snapshot, large = false, showTruth = true }: 
               <div className="flex items-center gap-3">
                 <span className={`font-bold ${large ? "w-72" : "w-32"}`}>{die.name}</span>
                 <span className="h-6 flex-1 rounded bg-line/40" aria-hidden="true">
-                  <span className={`block h-full rounded ${large ? "bg-white" : "bg-ink"}`} style={{ width: `${(votes[index] / most) * 100}%` }} />
+                  <span
+                    className={`block h-full rounded ${large ? "bg-white" : "bg-ink"}`}
+                    style={{ width: `${(votes[index] / most) * 100}%` }}
+                  />
                 </span>
-                <span className={`text-right tabular-nums font-bold whitespace-nowrap ${large ? "w-48" : "w-20"}`}>{votes[index]} {votes[index] === 1 ? "vote" : "votes"}</span>
+                <span className={`text-right tabular-nums font-bold whitespace-nowrap ${large ? "w-48" : "w-20"}`}>
+                  {votes[index]} {votes[index] === 1 ? "vote" : "votes"}
+                </span>
               </div>
               {showTruth && (
                 <>
                   <span />
                   <span className={large ? "text-2xl" : "text-sm text-ink-soft"}>
-                    {verdict.beatenBy ? `Beaten by ${verdict.beatenBy.name}: ${verdict.beatenBy.fraction} ≈ ${verdict.beatenBy.decimal}` : "No die beats it."}
+                    {verdict.beatenBy
+                      ? `Beaten by ${verdict.beatenBy.name}: ${verdict.beatenBy.fraction} ≈ ${verdict.beatenBy.decimal}`
+                      : "No die beats it."}
                   </span>
                 </>
               )}

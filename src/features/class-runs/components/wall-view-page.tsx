@@ -48,7 +48,8 @@ function MatchupLine({
   const [lead] = shares;
   const meaning = shareMeanings[run.tieRule];
   const big = compact ? "text-3xl" : "text-4xl";
-  const exactLabel = run.tieRule === "ties-score-nothing" ? "Exact" : `Exact under the tie rule (${tieRuleLabels[run.tieRule].toLowerCase()})`;
+  const exactLabel =
+    run.tieRule === "ties-score-nothing" ? "Exact" : `Exact under the tie rule (${tieRuleLabels[run.tieRule].toLowerCase()})`;
   const exactText = lead.exact ? `${lead.exact.fraction} ≈ ${lead.exact.decimal}` : "every roll ties";
   return (
     <li
@@ -73,7 +74,19 @@ function MatchupLine({
 }
 
 /** A tally's pooled matchups as big lines, or a note before any roll. */
-function TallyLines({ pooled, run, order, showExact, compact }: { pooled: PooledResults; run: ClassRun; order: Ordering; showExact: boolean; compact?: boolean }) {
+function TallyLines({
+  pooled,
+  run,
+  order,
+  showExact,
+  compact,
+}: {
+  pooled: PooledResults;
+  run: ClassRun;
+  order: Ordering;
+  showExact: boolean;
+  compact?: boolean;
+}) {
   if (pooled.matchups.length === 0) return <p className="text-4xl">No rolls yet.</p>;
   return (
     <ul>
@@ -165,7 +178,11 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
         <div className="flex flex-wrap items-center gap-4">
           <h2 className="text-4xl">{matchup.map((index) => run.dice[index].name).join(" v ")}</h2>
           {busiest.length > 1 && (
-            <button type="button" className="rounded-xl border-2 border-white px-4 py-2 text-2xl font-bold" onClick={() => setChosen(chosen + 1)}>
+            <button
+              type="button"
+              className="rounded-xl border-2 border-white px-4 py-2 text-2xl font-bold"
+              onClick={() => setChosen(chosen + 1)}
+            >
               Next matchup →
             </button>
           )}
@@ -175,7 +192,12 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
             <MatchupLine entry={proved} run={run} order={order} showExact={showExact} showLabel={false} />
           </ul>
         )}
-        <MatchupTree first={run.dice[matchup[0]]} second={run.dice[matchup[1]]} dicePerPlayer={proved?.dicePerPlayer ?? current.tally.dicePerPlayer} look="projector" />
+        <MatchupTree
+          first={run.dice[matchup[0]]}
+          second={run.dice[matchup[1]]}
+          dicePerPlayer={proved?.dicePerPlayer ?? current.tally.dicePerPlayer}
+          look="projector"
+        />
       </div>
     );
   } else if (reflecting) {
@@ -186,14 +208,23 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
       <div className="grid gap-8 xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <TallyLines pooled={pooled} run={run} order={order} showExact={showExact} compact />
         {charted && (
-          <ConvergenceChart entry={matchupFromSeat(charted, run.tieRule, charted.matchup.indexOf(order(charted)[0]))} tieRule={pooled.tieRule} large showExact={showExact} />
+          <ConvergenceChart
+            entry={matchupFromSeat(charted, run.tieRule, charted.matchup.indexOf(order(charted)[0]))}
+            tieRule={pooled.tieRule}
+            large
+            showExact={showExact}
+          />
         )}
       </div>
     );
   } else {
     main = (
       <div className="flex flex-col gap-6">
-        {run.phase === "Twist" && <p className="rounded-2xl bg-beacon px-6 py-4 text-5xl font-bold text-white">Twist: {modeText(current.tally)}. A fresh tally starts at zero.</p>}
+        {run.phase === "Twist" && (
+          <p className="rounded-2xl bg-beacon px-6 py-4 text-5xl font-bold text-white">
+            Twist: {modeText(current.tally)}. A fresh tally starts at zero.
+          </p>
+        )}
         <p className="text-5xl font-bold tabular-nums" data-testid="wall-roll-count">
           {pooled.totals.rolls} rolls from {pooled.totals.groups} groups
         </p>
@@ -216,7 +247,9 @@ function WallBody({ snapshot }: { snapshot: BoardSnapshot }) {
           </p>
         )}
       </header>
-      {run.status === "paused" && <p className="rounded-2xl bg-white px-6 py-4 text-5xl font-bold text-ink">❚❚ Paused: hands off the dice for a moment.</p>}
+      {run.status === "paused" && (
+        <p className="rounded-2xl bg-white px-6 py-4 text-5xl font-bold text-ink">❚❚ Paused: hands off the dice for a moment.</p>
+      )}
       <div className={`grid flex-1 gap-10 ${joining ? "xl:grid-cols-[auto_minmax(0,1fr)]" : ""}`}>
         {joining && <JoinPanel run={run} size="wall" />}
         <div className="min-w-0">{main}</div>

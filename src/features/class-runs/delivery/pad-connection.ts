@@ -100,10 +100,14 @@ export class PadConnection {
     this.log = readJson<LocalRoll[]>(logKey(session.groupId), []);
     this.state = storedPadState(session.groupId);
     this.socket = socket;
-    this.outbox = new RollOutbox(keyValueOutboxStore(localStorage, outboxKey(session.groupId)), socketOutboxTransport(this.socket, () => session.token), {
-      maxInFlight: 6,
-      retryDelayMs: 2_000,
-    });
+    this.outbox = new RollOutbox(
+      keyValueOutboxStore(localStorage, outboxKey(session.groupId)),
+      socketOutboxTransport(this.socket, () => session.token),
+      {
+        maxInFlight: 6,
+        retryDelayMs: 2_000,
+      },
+    );
     this.snapshot = this.buildSnapshot();
     this.cleanups.push(
       this.outbox.subscribe((event) => {
@@ -111,9 +115,11 @@ export class PadConnection {
           this.forgetGroup();
           return;
         }
-        if (event.type === "saved" && event.operation.kind === "record") this.updateRoll(event.operation.key, { state: "saved", message: undefined });
+        if (event.type === "saved" && event.operation.kind === "record")
+          this.updateRoll(event.operation.key, { state: "saved", message: undefined });
         if (event.type === "saved" && event.operation.kind === "undo") this.updateRoll(event.operation.rollId, { state: "undone" });
-        if (event.type === "refused" && event.operation.kind === "record") this.updateRoll(event.operation.key, { state: "refused", message: event.error.message });
+        if (event.type === "refused" && event.operation.kind === "record")
+          this.updateRoll(event.operation.key, { state: "refused", message: event.error.message });
         if (event.type === "refused" && event.operation.kind === "undo") {
           this.updateRoll(event.operation.rollId, { state: "saved" });
           this.notice = event.error.message;
@@ -216,8 +222,15 @@ export class PadConnection {
   }
 
   async vote(dieIndex: number): Promise<VoteCastAck> {
-    if (!this.socket.connected) return { ok: false, error: { code: "server_error", message: "Not connected: the vote goes when the phone is back online. Try again in a moment." } };
-    const ack: VoteCastAck = await this.socket.timeout(ACK_TIMEOUT_MS).emitWithAck(EVENTS.voteCast, { token: this.session.token, dieIndex }).catch(noAnswer);
+    if (!this.socket.connected)
+      return {
+        ok: false,
+        error: { code: "server_error", message: "Not connected: the vote goes when the phone is back online. Try again in a moment." },
+      };
+    const ack: VoteCastAck = await this.socket
+      .timeout(ACK_TIMEOUT_MS)
+      .emitWithAck(EVENTS.voteCast, { token: this.session.token, dieIndex })
+      .catch(noAnswer);
     if (ack.ok && this.state) this.acceptState({ ...this.state, vote: ack.dieIndex });
     if (!ack.ok) this.checkDeadToken(ack.error);
     this.changed();
@@ -225,8 +238,12 @@ export class PadConnection {
   }
 
   async chooseMatchup(matchup: number[]): Promise<MatchupChooseAck> {
-    if (!this.socket.connected) return { ok: false, error: { code: "server_error", message: "Not connected: choose again when the phone is back online." } };
-    const ack: MatchupChooseAck = await this.socket.timeout(ACK_TIMEOUT_MS).emitWithAck(EVENTS.matchupChoose, { token: this.session.token, matchup }).catch(noAnswer);
+    if (!this.socket.connected)
+      return { ok: false, error: { code: "server_error", message: "Not connected: choose again when the phone is back online." } };
+    const ack: MatchupChooseAck = await this.socket
+      .timeout(ACK_TIMEOUT_MS)
+      .emitWithAck(EVENTS.matchupChoose, { token: this.session.token, matchup })
+      .catch(noAnswer);
     if (ack.ok) await this.refresh();
     else this.checkDeadToken(ack.error);
     return ack;
@@ -259,7 +276,8 @@ export class PadConnection {
     this.removed = true;
     this.outbox.stop();
     if (storedPadSession()?.token === this.session.token) storePadSession(null);
-    for (const key of [stateKey(this.session.groupId), logKey(this.session.groupId), outboxKey(this.session.groupId)]) localStorage.removeItem(key);
+    for (const key of [stateKey(this.session.groupId), logKey(this.session.groupId), outboxKey(this.session.groupId)])
+      localStorage.removeItem(key);
     this.socket.disconnect();
     this.changed();
   }
@@ -300,7 +318,10 @@ export async function openPadConnection(session: PadSession): Promise<PadConnect
   return new PadConnection(session, openAppSocket());
 }
 
-const noAnswer = (): { ok: false; error: EventError } => ({ ok: false, error: { code: "server_error", message: "No answer from the class run yet. Try again in a moment." } });
+const noAnswer = (): { ok: false; error: EventError } => ({
+  ok: false,
+  error: { code: "server_error", message: "No answer from the class run yet. Try again in a moment." },
+});
 
 /** What the pad says about rolls kept back: a phase reason is not a problem, just a wait. */
 function waitingNotice(reason: string, code: string | undefined): string {

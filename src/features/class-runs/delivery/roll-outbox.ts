@@ -24,7 +24,10 @@ export type OutboxEvent =
   | { type: "changed" };
 
 /** Keeps operations in a store under one key, as JSON (the phone passes localStorage; tests pass a Map). */
-export function keyValueOutboxStore(storage: { getItem(key: string): string | null; setItem(key: string, value: string): void }, key: string): OutboxStore {
+export function keyValueOutboxStore(
+  storage: { getItem(key: string): string | null; setItem(key: string, value: string): void },
+  key: string,
+): OutboxStore {
   return {
     read() {
       try {

@@ -1,5 +1,12 @@
 import { useEffect, useRef, useState, useSyncExternalStore } from "react";
-import { openPadConnection, storedPadState, storedWaitingCount, type PadConnection, type PadSession, type PadSnapshot } from "../delivery/pad-connection";
+import {
+  openPadConnection,
+  storedPadState,
+  storedWaitingCount,
+  type PadConnection,
+  type PadSession,
+  type PadSnapshot,
+} from "../delivery/pad-connection";
 
 const noSubscription = () => () => undefined;
 

@@ -71,7 +71,10 @@ export function LessonSnapshotView({ snapshot }: { snapshot: LessonSnapshot }) {
                 <li key={index}>
                   {objective.text}
                   {standard && (
-                    <span className="ml-2 rounded-md border border-line bg-white px-1.5 py-0.5 text-sm text-ink-soft" title={standard.summary}>
+                    <span
+                      className="ml-2 rounded-md border border-line bg-white px-1.5 py-0.5 text-sm text-ink-soft"
+                      title={standard.summary}
+                    >
                       {standard.label}
                     </span>
                   )}
@@ -98,7 +101,12 @@ export function LessonSnapshotView({ snapshot }: { snapshot: LessonSnapshot }) {
         </ol>
         {phases.length < lesson.phases.length && (
           <p className="mt-2 text-sm text-ink-soft">
-            Left out: {lesson.phases.filter((phase) => !phase.included).map((phase) => phase.phase).join(", ")}.
+            Left out:{" "}
+            {lesson.phases
+              .filter((phase) => !phase.included)
+              .map((phase) => phase.phase)
+              .join(", ")}
+            .
           </p>
         )}
       </section>

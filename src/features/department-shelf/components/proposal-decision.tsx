@@ -36,7 +36,10 @@ export function ProposalDecision({ proposal }: { proposal: ShelfProposal }) {
   const target = approveForm.watch("target");
   const templateOptions = [
     { value: "", label: "Choose a template" },
-    ...(templates.data?.templates ?? []).map((template) => ({ value: template.id, label: `${template.title} (now version ${template.currentVersion})` })),
+    ...(templates.data?.templates ?? []).map((template) => ({
+      value: template.id,
+      label: `${template.title} (now version ${template.currentVersion})`,
+    })),
   ];
   const approveErrors = approveForm.formState.errors;
 
@@ -57,7 +60,9 @@ export function ProposalDecision({ proposal }: { proposal: ShelfProposal }) {
           noValidate
           aria-label={`Approve “${proposal.lessonTitle ?? "lesson"}”`}
           className="flex flex-col gap-4"
-          onSubmit={approveForm.handleSubmit((values) => approve.mutate({ proposalId: proposal.id, input: values as ApproveProposalInput }))}
+          onSubmit={approveForm.handleSubmit((values) =>
+            approve.mutate({ proposalId: proposal.id, input: values as ApproveProposalInput }),
+          )}
         >
           {approve.error && (
             <Alert tone="error" title="Not approved">

@@ -17,7 +17,15 @@ type PublishLessonFormProps = {
   onSubmit: (values: PublishTemplateInput) => void;
 };
 
-function PublishFields({ lessons, title, submitLabel, notePlaceholder, busy, error, onSubmit }: PublishLessonFormProps & { lessons: LessonSummary[] }) {
+function PublishFields({
+  lessons,
+  title,
+  submitLabel,
+  notePlaceholder,
+  busy,
+  error,
+  onSubmit,
+}: PublishLessonFormProps & { lessons: LessonSummary[] }) {
   const { register, handleSubmit, formState } = useForm<PublishTemplateInput>({
     resolver: zodResolver(publishTemplateSchema),
     defaultValues: { lessonId: lessons[0]?.id ?? "", changeNote: "" },
@@ -40,7 +48,13 @@ function PublishFields({ lessons, title, submitLabel, notePlaceholder, busy, err
         {...register("lessonId")}
         error={formState.errors.lessonId?.message}
       />
-      <TextArea label="Change note" rows={2} placeholder={notePlaceholder} {...register("changeNote")} error={formState.errors.changeNote?.message} />
+      <TextArea
+        label="Change note"
+        rows={2}
+        placeholder={notePlaceholder}
+        {...register("changeNote")}
+        error={formState.errors.changeNote?.message}
+      />
       <div>
         <Button type="submit" busy={busy}>
           {submitLabel}

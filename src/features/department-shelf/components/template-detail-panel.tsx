@@ -111,7 +111,10 @@ export function TemplateDetailPanel({ templateId, version, isHead }: { templateI
               {versions.map((entry) => {
                 const here = entry.version === shown.version;
                 return (
-                  <li key={entry.version} className={`rounded-xl border-2 px-3 py-2 ${here ? "border-tide bg-tide-light" : "border-line bg-white"}`}>
+                  <li
+                    key={entry.version}
+                    className={`rounded-xl border-2 px-3 py-2 ${here ? "border-tide bg-tide-light" : "border-line bg-white"}`}
+                  >
                     <p className="font-bold">
                       Version {entry.version}
                       {entry.version === summary.currentVersion ? " (current)" : ""}
@@ -119,12 +122,18 @@ export function TemplateDetailPanel({ templateId, version, isHead }: { templateI
                     </p>
                     <p className="mt-1">{entry.changeNote}</p>
                     <p className="mt-1 text-sm text-ink-soft">
-                      {entry.proposedByName ? `Proposed by ${entry.proposedByName}, published by ${entry.publishedByName}` : entry.publishedByName},{" "}
-                      {shelfDate(entry.publishedAt)}
+                      {entry.proposedByName
+                        ? `Proposed by ${entry.proposedByName}, published by ${entry.publishedByName}`
+                        : entry.publishedByName}
+                      , {shelfDate(entry.publishedAt)}
                     </p>
                     {!here && (
                       <Link
-                        to={entry.version === summary.currentVersion ? `/app/shelf/templates/${templateId}` : `/app/shelf/templates/${templateId}?version=${entry.version}`}
+                        to={
+                          entry.version === summary.currentVersion
+                            ? `/app/shelf/templates/${templateId}`
+                            : `/app/shelf/templates/${templateId}?version=${entry.version}`
+                        }
                         className="mt-1 inline-block font-bold text-tide underline"
                       >
                         View version {entry.version}
@@ -185,8 +194,8 @@ export function TemplateDetailPanel({ templateId, version, isHead }: { templateI
         onCancel={() => setConfirmRetire(false)}
         onConfirm={() => retire.mutate({ templateId, retired: true }, { onSettled: () => setConfirmRetire(false) })}
       >
-        Teachers will no longer see “{summary.title}” on the shelf or copy it. Lessons already copied from it stay as they are, and
-        you can put it back later.
+        Teachers will no longer see “{summary.title}” on the shelf or copy it. Lessons already copied from it stay as they are, and you can
+        put it back later.
       </ConfirmDialog>
     </div>
   );

@@ -36,8 +36,8 @@ export function TemplateList({ templates, emptyText }: { templates: TemplateSumm
           <p className="mt-auto text-sm text-ink-soft">
             {template.proposedByName ? (
               <>
-                Proposed by <span className="font-bold text-ink">{template.proposedByName}</span>, published by {template.publishedByName} on{" "}
-                {shelfDate(template.publishedAt)}
+                Proposed by <span className="font-bold text-ink">{template.proposedByName}</span>, published by {template.publishedByName}{" "}
+                on {shelfDate(template.publishedAt)}
               </>
             ) : (
               <>

@@ -35,11 +35,18 @@ function MessageView({ message }: { message: ReceivedMail }) {
         </section>
       )}
       <h3 className="mt-4 text-lg">Text</h3>
-      <pre className="mt-1 whitespace-pre-wrap break-words rounded-xl border-2 border-line bg-white p-3 font-sans text-base">{message.text}</pre>
+      <pre className="mt-1 whitespace-pre-wrap break-words rounded-xl border-2 border-line bg-white p-3 font-sans text-base">
+        {message.text}
+      </pre>
       {message.html && (
         <details className="mt-4">
           <summary className="cursor-pointer font-bold text-tide">Show the HTML version</summary>
-          <iframe title={`HTML version of “${message.subject}”`} sandbox="" srcDoc={message.html} className="mt-2 h-96 w-full rounded-xl border-2 border-line bg-white" />
+          <iframe
+            title={`HTML version of “${message.subject}”`}
+            sandbox=""
+            srcDoc={message.html}
+            className="mt-2 h-96 w-full rounded-xl border-2 border-line bg-white"
+          />
         </details>
       )}
     </article>
@@ -63,7 +70,11 @@ export function ReceivedMailPage() {
   }
   const messages = mail.data.messages;
   if (messages.length === 0) {
-    return <p className="rounded-2xl border-2 border-dashed border-line bg-shell p-6 text-lg text-ink-soft">No mail yet. Invite a colleague or ask for a password reset, and it appears here.</p>;
+    return (
+      <p className="rounded-2xl border-2 border-dashed border-line bg-shell p-6 text-lg text-ink-soft">
+        No mail yet. Invite a colleague or ask for a password reset, and it appears here.
+      </p>
+    );
   }
   const chosen = messages.find((message) => message.id === chosenId) ?? messages[0];
   return (

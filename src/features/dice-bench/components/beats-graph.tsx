@@ -49,7 +49,9 @@ export function BeatsGraph({ level, dice }: { level: SetLevelAnalysis; dice: Ben
     const angle = -Math.PI / 2 + (2 * Math.PI * index) / dice.length;
     return { x: centre.x + ring * Math.cos(angle), y: centre.y + ring * Math.sin(angle), cos: Math.cos(angle), sin: Math.sin(angle) };
   });
-  const inCycle = new Set(cycle ? cycle.indices.map((from, position) => `${from}>${cycle.indices[(position + 1) % cycle.indices.length]}`) : []);
+  const inCycle = new Set(
+    cycle ? cycle.indices.map((from, position) => `${from}>${cycle.indices[(position + 1) % cycle.indices.length]}`) : [],
+  );
   const edges = level.beats.map((edge) => {
     const from = points[edge.winnerIndex];
     const to = points[edge.loserIndex];
@@ -90,7 +92,13 @@ export function BeatsGraph({ level, dice }: { level: SetLevelAnalysis; dice: Ben
   return (
     <figure className="flex flex-col gap-3">
       <div className="rounded-xl border-2 border-line bg-white p-2">
-        <svg viewBox={`${left} ${top} ${right - left} ${bottom - top}`} className="mx-auto h-auto w-full max-w-[36rem]" role="img" aria-labelledby={`${titleId} ${descId}`} data-testid={`beats-graph-${level.dicePerPlayer}`}>
+        <svg
+          viewBox={`${left} ${top} ${right - left} ${bottom - top}`}
+          className="mx-auto h-auto w-full max-w-[36rem]"
+          role="img"
+          aria-labelledby={`${titleId} ${descId}`}
+          data-testid={`beats-graph-${level.dicePerPlayer}`}
+        >
           <title id={titleId}>Beats graph, {mode}</title>
           <desc id={descId}>
             {level.beats.map((edge) => `${edge.winner} beats ${edge.loser}, winning ${fractionToString(edge.win)}.`).join(" ")}
@@ -100,10 +108,28 @@ export function BeatsGraph({ level, dice }: { level: SetLevelAnalysis; dice: Ben
             {dice.map((die, index) => (
               <DiePatternDef key={die.name} id={`${baseId}-p${index}`} colour={die.colour} pattern={die.pattern} scale={12} />
             ))}
-            <marker id={`${baseId}-arrow`} viewBox="0 0 10 10" refX="8" refY="5" markerWidth="12" markerHeight="12" markerUnits="userSpaceOnUse" orient="auto-start-reverse">
+            <marker
+              id={`${baseId}-arrow`}
+              viewBox="0 0 10 10"
+              refX="8"
+              refY="5"
+              markerWidth="12"
+              markerHeight="12"
+              markerUnits="userSpaceOnUse"
+              orient="auto-start-reverse"
+            >
               <path d="M0 0 L10 5 L0 10 Z" fill="#3b4f63" />
             </marker>
-            <marker id={`${baseId}-arrow-cycle`} viewBox="0 0 10 10" refX="8" refY="5" markerWidth="20" markerHeight="20" markerUnits="userSpaceOnUse" orient="auto-start-reverse">
+            <marker
+              id={`${baseId}-arrow-cycle`}
+              viewBox="0 0 10 10"
+              refX="8"
+              refY="5"
+              markerWidth="20"
+              markerHeight="20"
+              markerUnits="userSpaceOnUse"
+              orient="auto-start-reverse"
+            >
               <path d="M0 0 L10 5 L0 10 Z" fill="#12263a" />
             </marker>
           </defs>
@@ -145,7 +171,16 @@ export function BeatsGraph({ level, dice }: { level: SetLevelAnalysis; dice: Ben
               const boxWidth = text.length * 9.2 + 12;
               return (
                 <g key={`label-${line.edge.winnerIndex}>${line.edge.loserIndex}`}>
-                  <rect x={line.lx - boxWidth / 2} y={line.ly - 12} width={boxWidth} height={24} rx="6" fill="#fffdf9" stroke="#12263a" strokeWidth="1.5" />
+                  <rect
+                    x={line.lx - boxWidth / 2}
+                    y={line.ly - 12}
+                    width={boxWidth}
+                    height={24}
+                    rx="6"
+                    fill="#fffdf9"
+                    stroke="#12263a"
+                    strokeWidth="1.5"
+                  />
                   <text x={line.lx} y={line.ly + 5.5} textAnchor="middle" fontSize="16" fontWeight="700" fill="#12263a">
                     {text}
                   </text>
@@ -157,7 +192,14 @@ export function BeatsGraph({ level, dice }: { level: SetLevelAnalysis; dice: Ben
             const label = labels[index];
             return (
               <g key={die.name}>
-                <circle cx={point.x} cy={point.y} r={node} fill={`url(#${baseId}-p${index})`} stroke={paletteHex(die.colour)} strokeWidth="4" />
+                <circle
+                  cx={point.x}
+                  cy={point.y}
+                  r={node}
+                  fill={`url(#${baseId}-p${index})`}
+                  stroke={paletteHex(die.colour)}
+                  strokeWidth="4"
+                />
                 <text x={label.x} y={label.y} textAnchor={label.anchor} fontSize={labelSize} fontWeight="700" fill="#12263a">
                   {die.name}
                 </text>
@@ -193,7 +235,13 @@ export function BeatsGraph({ level, dice }: { level: SetLevelAnalysis; dice: Ben
             {level.cycles.slice(0, cyclesListed).map((each, index) => (
               <li key={each.indices.join("-")}>
                 <label className="flex cursor-pointer items-start gap-2 rounded-lg px-1 py-1 hover:bg-sand">
-                  <input type="radio" className="mt-1 h-4 w-4 accent-tide" name={`${baseId}-cycle`} checked={index === cycleIndex} onChange={() => setChosen(index)} />
+                  <input
+                    type="radio"
+                    className="mt-1 h-4 w-4 accent-tide"
+                    name={`${baseId}-cycle`}
+                    checked={index === cycleIndex}
+                    onChange={() => setChosen(index)}
+                  />
                   <span>
                     {cycleWords(each)}{" "}
                     <span className="text-ink-soft">

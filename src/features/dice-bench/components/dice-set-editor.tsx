@@ -78,7 +78,11 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
   const [baseVersion, setBaseVersion] = useState(saved?.version ?? null);
   const [entry, setEntry] = useState<FacesEntry>("list");
   const [savedNote, setSavedNote] = useState<string | null>(notice ?? null);
-  const form = useForm<FormValues, unknown, DiceSetInput>({ resolver: zodResolver(diceSetInputSchema), mode: "onChange", defaultValues: initial });
+  const form = useForm<FormValues, unknown, DiceSetInput>({
+    resolver: zodResolver(diceSetInputSchema),
+    mode: "onChange",
+    defaultValues: initial,
+  });
   const { control, register, handleSubmit, reset, setValue, formState } = form;
   const { errors, isDirty } = formState;
   const dice = useFieldArray({ control, name: "dice" });
@@ -89,7 +93,8 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
   const keyOfDraft = draftKey("dice-set", saved?.id ?? null);
   const draft = useBrowserDraft<FormValues>({
     key: keyOfDraft,
-    parse: (value) => (value !== null && typeof value === "object" && Array.isArray((value as FormValues).dice) ? (value as FormValues) : null),
+    parse: (value) =>
+      value !== null && typeof value === "object" && Array.isArray((value as FormValues).dice) ? (value as FormValues) : null,
   });
   const draftDiffers = draft.found !== null && JSON.stringify(draft.found.values) !== JSON.stringify(initial);
   // A first save moves to the new page, whose status line at the top (where the page opens) confirms it.
@@ -165,7 +170,15 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
     <>
       <PageHeader
         title="Dice bench"
-        lead={saved ? <>Editing &ldquo;{title || saved.name}&rdquo;{isDirty ? " · unsaved changes" : ""}</> : "A new dice set, not saved yet."}
+        lead={
+          saved ? (
+            <>
+              Editing &ldquo;{title || saved.name}&rdquo;{isDirty ? " · unsaved changes" : ""}
+            </>
+          ) : (
+            "A new dice set, not saved yet."
+          )
+        }
         actions={
           <>
             <Button type="submit" form="dice-set-form" busy={create.isPending || update.isPending}>
@@ -190,18 +203,24 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
       <LeavePageDialog blocker={blocker} what="This dice set" onLeave={draft.discard} />
       <SavedToast message={toast.message} stamp={toast.stamp} />
       <div className="mb-4 flex flex-col gap-3">
-        {draftDiffers && draft.found && <DraftOffer keptAt={draft.found.keptAt} what="this dice set" onRestore={restoreDraft} onDiscard={draft.discard} />}
+        {draftDiffers && draft.found && (
+          <DraftOffer keptAt={draft.found.keptAt} what="this dice set" onRestore={restoreDraft} onDiscard={draft.discard} />
+        )}
         {problems.length > 0 && <SaveProblems problems={problems} />}
         {savedNote && !isDirty && (
           <p role="status" className="rounded-lg border-l-8 border-tide bg-tide-light px-4 py-2 font-bold">
             ✓ {savedNote}
           </p>
         )}
-        {saved && isDirty && <p className="text-sm text-ink-soft">Printing and the set file use the saved version; save first to include your changes.</p>}
+        {saved && isDirty && (
+          <p className="text-sm text-ink-soft">Printing and the set file use the saved version; save first to include your changes.</p>
+        )}
         {stale && saveError && (
           <Alert tone="error" title="Not saved: this set changed since you opened it">
             <p>{saveError.message}</p>
-            <p className="mt-1">Your edits are still here. Reload the saved set (your edits here are dropped), or keep your edits as a new set.</p>
+            <p className="mt-1">
+              Your edits are still here. Reload the saved set (your edits here are dropped), or keep your edits as a new set.
+            </p>
             <div className="mt-3 flex flex-wrap gap-2">
               <Button variant="secondary" onClick={reloadSaved}>
                 Reload the saved set
@@ -269,7 +288,10 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
             ]}
           />
           <h2 className="text-2xl">
-            Dice <span className="text-base font-normal text-ink-soft">({dice.fields.length} of at most {SET_SIZE_MAX})</span>
+            Dice{" "}
+            <span className="text-base font-normal text-ink-soft">
+              ({dice.fields.length} of at most {SET_SIZE_MAX})
+            </span>
           </h2>
           {diceError && (
             <p role="alert" className="font-bold text-alarm">
@@ -278,7 +300,11 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
           )}
           <ol className="flex flex-col gap-4">
             {dice.fields.map((field, index) => (
-              <li key={field.id} className="flex min-w-0 flex-col gap-3 rounded-xl border-2 border-line bg-shell p-3 sm:p-4" data-testid={`die-card-${index}`}>
+              <li
+                key={field.id}
+                className="flex min-w-0 flex-col gap-3 rounded-xl border-2 border-line bg-shell p-3 sm:p-4"
+                data-testid={`die-card-${index}`}
+              >
                 <div className="flex flex-wrap items-center justify-between gap-2">
                   <DieHeading control={control} index={index} />
                   <Button
@@ -292,7 +318,11 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
                     Remove die
                   </Button>
                 </div>
-                <TextField label={`Die ${index + 1} name`} {...register(`dice.${index}.name`)} error={errors.dice?.[index]?.name?.message} />
+                <TextField
+                  label={`Die ${index + 1} name`}
+                  {...register(`dice.${index}.name`)}
+                  error={errors.dice?.[index]?.name?.message}
+                />
                 <Controller
                   control={control}
                   name={`dice.${index}.faces`}
@@ -311,7 +341,12 @@ export function DiceSetEditor({ initial, saved, notice }: { initial: DiceSetInpu
               </li>
             ))}
           </ol>
-          <Button type="button" variant="secondary" disabled={dice.fields.length >= SET_SIZE_MAX} onClick={() => dice.append(nextDie(form.getValues("dice")))}>
+          <Button
+            type="button"
+            variant="secondary"
+            disabled={dice.fields.length >= SET_SIZE_MAX}
+            onClick={() => dice.append(nextDie(form.getValues("dice")))}
+          >
             + Add a die
           </Button>
           <div className="flex flex-col gap-2">
@@ -425,7 +460,10 @@ function PaletteField({
   return (
     <>
       {asked !== null && asked.colour !== colour && (
-        <div className="flex flex-wrap items-center gap-2 rounded-lg border-2 border-dashed border-line bg-white px-3 py-2 text-sm" data-testid={`colour-suggestion-${index}`}>
+        <div
+          className="flex flex-wrap items-center gap-2 rounded-lg border-2 border-dashed border-line bg-white px-3 py-2 text-sm"
+          data-testid={`colour-suggestion-${index}`}
+        >
           <DieSwatch colour={asked.colour} pattern={asked.pattern} className="h-6 w-6" />
           <span>
             The name asks for {asked.colour}: use {asked.colour}, {asked.pattern}?
@@ -443,7 +481,12 @@ function PaletteField({
 
 // Typing faces re-renders PaletteField, but the palette's swatches only redraw when a colour choice changes.
 const MemoPalettePicker = memo(
-  function MemoPalettePicker(props: { dieLabel: string; colour: string; usedByOthers: string; onChange: (choice: { colour: string; pattern: string }) => void }) {
+  function MemoPalettePicker(props: {
+    dieLabel: string;
+    colour: string;
+    usedByOthers: string;
+    onChange: (choice: { colour: string; pattern: string }) => void;
+  }) {
     return <PalettePicker {...props} usedByOthers={new Set(props.usedByOthers.split(","))} />;
   },
   (before, after) => before.colour === after.colour && before.usedByOthers === after.usedByOthers && before.dieLabel === after.dieLabel,

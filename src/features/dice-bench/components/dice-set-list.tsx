@@ -35,7 +35,11 @@ export function DiceSetList() {
       )}
       {sets.data && (
         <div className="flex flex-col gap-8">
-          <SetGroup title="Your dice sets" sets={own} empty="You have no dice sets yet. Start a new one, duplicate a colleague's, or import a set file." />
+          <SetGroup
+            title="Your dice sets"
+            sets={own}
+            empty="You have no dice sets yet. Start a new one, duplicate a colleague's, or import a set file."
+          />
           <SetGroup title="Shared by colleagues" sets={shared} empty="No colleague shares a dice set with the department yet." />
           <ImportSetFile />
         </div>
@@ -82,7 +86,8 @@ function SetCard({ set }: { set: DiceSet }) {
           {set.name}
         </h3>
         <p className="text-sm text-ink-soft">
-          {set.dice.length} dice · {set.isOwner ? (set.visibility === "department" ? "shared with the department" : "only you") : `shared by ${set.ownerName}`}
+          {set.dice.length} dice ·{" "}
+          {set.isOwner ? (set.visibility === "department" ? "shared with the department" : "only you") : `shared by ${set.ownerName}`}
         </p>
       </div>
       <ul className="flex flex-wrap gap-x-3 gap-y-1" aria-label={`Dice of ${set.name}`}>
@@ -102,7 +107,11 @@ function SetCard({ set }: { set: DiceSet }) {
           variant="secondary"
           busy={duplicate.isPending}
           aria-label={`Duplicate ${set.name}`}
-          onClick={() => duplicate.mutate(set.id, { onSuccess: (copy) => navigate(`/app/bench/${copy.id}`, { state: { notice: "Duplicated: this copy is yours to edit." } }) })}
+          onClick={() =>
+            duplicate.mutate(set.id, {
+              onSuccess: (copy) => navigate(`/app/bench/${copy.id}`, { state: { notice: "Duplicated: this copy is yours to edit." } }),
+            })
+          }
         >
           Duplicate
         </Button>

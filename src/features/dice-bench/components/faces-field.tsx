@@ -119,7 +119,9 @@ export function FacesField({
                 type="button"
                 disabled={faces.length >= FACES_MAX}
                 className="min-h-11 rounded-lg border-2 border-dashed border-ink/40 px-3 font-bold hover:border-tide disabled:opacity-50"
-                onClick={() => onChange([...faces, faces.length > 0 && !Number.isNaN(faces[faces.length - 1]) ? faces[faces.length - 1] : 1])}
+                onClick={() =>
+                  onChange([...faces, faces.length > 0 && !Number.isNaN(faces[faces.length - 1]) ? faces[faces.length - 1] : 1])
+                }
               >
                 + Add a face<span className="sr-only"> to {dieLabel}</span>
               </button>
@@ -139,7 +141,19 @@ export function FacesField({
   );
 }
 
-function FaceBox({ label, value, invalid, onChange, onBlur }: { label: string; value: number; invalid: boolean; onChange: (value: number) => void; onBlur: () => void }) {
+function FaceBox({
+  label,
+  value,
+  invalid,
+  onChange,
+  onBlur,
+}: {
+  label: string;
+  value: number;
+  invalid: boolean;
+  onChange: (value: number) => void;
+  onBlur: () => void;
+}) {
   const id = useId();
   const [text, setText] = useState(Number.isNaN(value) ? "" : String(value));
   const [seenValue, setSeenValue] = useState(value);

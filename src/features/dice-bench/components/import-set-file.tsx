@@ -29,7 +29,9 @@ export function ImportSetFile() {
       setLocalIssues([`“${file.name}” must hold one JSON object with format, version, name and dice.`]);
       return;
     }
-    importSet.mutate(content, { onSuccess: (set) => navigate(`/app/bench/${set.id}`, { state: { notice: `Imported from ${file.name}.` } }) });
+    importSet.mutate(content, {
+      onSuccess: (set) => navigate(`/app/bench/${set.id}`, { state: { notice: `Imported from ${file.name}.` } }),
+    });
   };
 
   const error = importSet.error;
@@ -39,7 +41,9 @@ export function ImportSetFile() {
       <h2 id={`${inputId}-heading`} className="text-xl">
         Import a set file
       </h2>
-      <p className="text-ink-soft">A file downloaded from Outroll (.outroll-dice.json). The imported set is private to you until you share it.</p>
+      <p className="text-ink-soft">
+        A file downloaded from Outroll (.outroll-dice.json). The imported set is private to you until you share it.
+      </p>
       <label
         htmlFor={inputId}
         className="inline-flex min-h-11 w-fit cursor-pointer items-center rounded-xl border-2 border-ink/20 bg-white px-4 py-2 font-bold hover:border-ink/50 has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-beacon"

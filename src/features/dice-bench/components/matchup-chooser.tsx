@@ -36,8 +36,18 @@ export function MatchupChooser({
   };
   return (
     <div className="grid gap-3 sm:grid-cols-3">
-      <SelectField label="First die" options={options} value={String(value.first)} onChange={(event) => pick("first", Number(event.target.value))} />
-      <SelectField label="Against" options={options} value={String(value.second)} onChange={(event) => pick("second", Number(event.target.value))} />
+      <SelectField
+        label="First die"
+        options={options}
+        value={String(value.first)}
+        onChange={(event) => pick("first", Number(event.target.value))}
+      />
+      <SelectField
+        label="Against"
+        options={options}
+        value={String(value.second)}
+        onChange={(event) => pick("second", Number(event.target.value))}
+      />
       <SelectField
         label="Mode"
         options={modes.map((mode) => ({ value: String(mode), label: modeLabel(mode) }))}

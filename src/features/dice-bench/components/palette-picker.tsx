@@ -47,7 +47,11 @@ export function PalettePicker({
                 <DieSwatch colour={entry.colour} pattern={entry.pattern} className="h-7 w-7" />
                 <span className="leading-tight">
                   {entry.colour}, {entry.pattern}
-                  {checked ? <span aria-hidden="true"> ✓</span> : usedByOthers.has(entry.colour) ? <span className="block text-xs font-normal text-ink-soft">in use</span> : null}
+                  {checked ? (
+                    <span aria-hidden="true"> ✓</span>
+                  ) : usedByOthers.has(entry.colour) ? (
+                    <span className="block text-xs font-normal text-ink-soft">in use</span>
+                  ) : null}
                 </span>
               </label>
             );

@@ -8,7 +8,10 @@ import type { BenchDie } from "../hooks/use-set-analysis";
  * with three players, for each pair of opponents' dice, the die and mode most likely to beat both at once.
  */
 export function PickAdvisor({ analysis, dice }: { analysis: SetAnalysis; dice: BenchDie[] }) {
-  const [oneEach, twoEach] = [analysis.levels.find((level) => level.dicePerPlayer === 1)!, analysis.levels.find((level) => level.dicePerPlayer === 2)!];
+  const [oneEach, twoEach] = [
+    analysis.levels.find((level) => level.dicePerPlayer === 1)!,
+    analysis.levels.find((level) => level.dicePerPlayer === 2)!,
+  ];
   const dieLabel = (index: number) => (
     <span className="inline-flex items-center gap-1.5">
       <DieSwatch colour={dice[index].colour} pattern={dice[index].pattern} className="h-5 w-5" />
@@ -24,7 +27,12 @@ export function PickAdvisor({ analysis, dice }: { analysis: SetAnalysis; dice: B
         <p className="text-ink-soft">
           The die to take against each choice, and the chance it wins a single roll. The better mode is marked ★ best.
         </p>
-        <div className="relative max-w-full overflow-x-auto rounded-xl border-2 border-line bg-shell" tabIndex={0} role="region" aria-label="Pick advisor, two players">
+        <div
+          className="relative max-w-full overflow-x-auto rounded-xl border-2 border-line bg-shell"
+          tabIndex={0}
+          role="region"
+          aria-label="Pick advisor, two players"
+        >
           <table className="w-full border-collapse text-sm">
             <thead>
               <tr>
@@ -79,7 +87,12 @@ export function PickAdvisor({ analysis, dice }: { analysis: SetAnalysis; dice: B
             <p className="text-ink-soft">
               Everyone rolls the same number of dice; you win when your total is higher than both opponents&rsquo; totals in the same roll.
             </p>
-            <div className="relative max-w-full overflow-x-auto rounded-xl border-2 border-line bg-shell" tabIndex={0} role="region" aria-label="Pick advisor, three players">
+            <div
+              className="relative max-w-full overflow-x-auto rounded-xl border-2 border-line bg-shell"
+              tabIndex={0}
+              role="region"
+              aria-label="Pick advisor, three players"
+            >
               <table className="w-full border-collapse text-sm">
                 <thead>
                   <tr>

@@ -39,7 +39,15 @@ function wholeNumber(text: string, min: number, max: number): number | null {
  * The Series planner: for a chosen matchup and tie rule, the chance of winning a best-of-N series, the expected wins
  * in a number of rolls, and how many pooled rolls the class needs before a 95% interval is expected to leave out 1/2.
  */
-export function SeriesPlanner({ dice, choice, onChoice }: { dice: BenchDie[]; choice: MatchupChoice; onChoice: (choice: MatchupChoice) => void }) {
+export function SeriesPlanner({
+  dice,
+  choice,
+  onChoice,
+}: {
+  dice: BenchDie[];
+  choice: MatchupChoice;
+  onChoice: (choice: MatchupChoice) => void;
+}) {
   const [tieRule, setTieRule] = useState<TieRule>("re-roll-ties");
   const [games, setGames] = useState(5);
   const [rollsText, setRollsText] = useState("30");
@@ -61,13 +69,20 @@ export function SeriesPlanner({ dice, choice, onChoice }: { dice: BenchDie[]; ch
   return (
     <div className="flex flex-col gap-5" data-testid="series-planner">
       <MatchupChooser dice={dice} value={choice} onChange={onChoice} modes={[1, 2, 3]} />
-      <ChoiceGroup legend="Tie rule" value={tieRule} onChange={setTieRule} options={TIE_RULES.map((rule) => ({ value: rule, label: tieRuleLabels[rule] }))} />
+      <ChoiceGroup
+        legend="Tie rule"
+        value={tieRule}
+        onChange={setTieRule}
+        options={TIE_RULES.map((rule) => ({ value: rule, label: tieRuleLabels[rule] }))}
+      />
       <p>
-        One roll, {modeLabel(choice.dicePerPlayer)}: {first.name} wins {probabilityText(result.win)}, ties {probabilityText(result.tie)}, loses{" "}
-        {probabilityText(result.loss)}.
+        One roll, {modeLabel(choice.dicePerPlayer)}: {first.name} wins {probabilityText(result.win)}, ties {probabilityText(result.tie)},
+        loses {probabilityText(result.loss)}.
       </p>
       {everyRollTies && tieRule === "re-roll-ties" ? (
-        <p className="rounded-lg border-2 border-beacon bg-beacon-light p-3">Every roll of this matchup ties, so with re-rolled ties a series never ends.</p>
+        <p className="rounded-lg border-2 border-beacon bg-beacon-light p-3">
+          Every roll of this matchup ties, so with re-rolled ties a series never ends.
+        </p>
       ) : (
         <>
           <section aria-labelledby="series-heading" className="flex flex-col gap-2">
@@ -82,8 +97,19 @@ export function SeriesPlanner({ dice, choice, onChoice }: { dice: BenchDie[]; ch
                 onChange={(event) => setGames(Number(event.target.value))}
               />
             </div>
-            <SeriesSentence first={first.name} second={second.name} outcome={seriesOutcome(result, games, tieRule)} games={games} tieRule={tieRule} />
-            <div className="relative max-w-full overflow-x-auto rounded-xl border-2 border-line bg-shell" tabIndex={0} role="region" aria-label="Series chances by length">
+            <SeriesSentence
+              first={first.name}
+              second={second.name}
+              outcome={seriesOutcome(result, games, tieRule)}
+              games={games}
+              tieRule={tieRule}
+            />
+            <div
+              className="relative max-w-full overflow-x-auto rounded-xl border-2 border-line bg-shell"
+              tabIndex={0}
+              role="region"
+              aria-label="Series chances by length"
+            >
               <table className="w-full border-collapse text-sm">
                 <caption className="px-3 py-2 text-left text-ink-soft">
                   {first.name}&rsquo;s chance of winning the series, by its length ({tieRuleLabels[tieRule]})
@@ -146,7 +172,8 @@ export function SeriesPlanner({ dice, choice, onChoice }: { dice: BenchDie[]; ch
                     and score {expectedPointsText(result, rolls, tieRule)} points ({tieRuleLabels[tieRule]})
                   </>
                 )}
-                ; {second.name} expects {fractionToDecimal(expectedWins({ win: result.loss, tie: result.tie, loss: result.win }, rolls), 2)} wins.
+                ; {second.name} expects {fractionToDecimal(expectedWins({ win: result.loss, tie: result.tie, loss: result.win }, rolls), 2)}{" "}
+                wins.
               </p>
             )}
           </section>
@@ -175,8 +202,8 @@ export function SeriesPlanner({ dice, choice, onChoice }: { dice: BenchDie[]; ch
                 "This matchup is even under this tie rule, so no number of rolls will show a better die."
               ) : (
                 <>
-                  Pool about <strong>{pooled}</strong> rolls of this matchup before a 95% confidence interval (Wilson score) for {leader}&rsquo;s
-                  winning chance is expected to leave out 1/2, so the class can see {leader} is the better die
+                  Pool about <strong>{pooled}</strong> rolls of this matchup before a 95% confidence interval (Wilson score) for {leader}
+                  &rsquo;s winning chance is expected to leave out 1/2, so the class can see {leader} is the better die
                   {groups !== null && (
                     <>
                       {" "}
@@ -219,8 +246,8 @@ function SeriesSentence({
 }) {
   return (
     <p data-testid="series-outcome">
-      In a best-of-{games} series ({tieRuleLabels[tieRule]}), {first} wins the series with probability <strong>{probabilityText(outcome.win)}</strong>,{" "}
-      {second} with {probabilityText(outcome.loss)}
+      In a best-of-{games} series ({tieRuleLabels[tieRule]}), {first} wins the series with probability{" "}
+      <strong>{probabilityText(outcome.win)}</strong>, {second} with {probabilityText(outcome.loss)}
       {tieRule === "re-roll-ties" ? "." : `, and it ends level with ${probabilityText(outcome.draw)}.`}
     </p>
   );
@@ -230,19 +257,24 @@ function SeriesSentence({
 function TimeAdvice({ pooled, groups, budget }: { pooled: number; groups: number; budget: RollPhaseBudget }) {
   const pace = `At about ${budget.rollsPerMinute} rolls a minute (a common-practice pace, not a published rule) a group makes about ${budget.rollsPerGroup} rolls in ${budget.minutes} minutes`;
   const plan = classTimePlan(pooled, groups, budget, LESSON_LIMITS.groupsMax);
-  if (plan.kind === "fits") return <>{pace}, so {groups} groups have time for their {plan.perGroup} each.</>;
+  if (plan.kind === "fits")
+    return (
+      <>
+        {pace}, so {groups} groups have time for their {plan.perGroup} each.
+      </>
+    );
   if (plan.kind === "more-groups") {
     return (
       <>
-        {pace}, not {plan.perGroup}: play this matchup with about <strong>{plan.groupsNeeded}</strong> groups, or top the class up with the Virtual class (simulated rolls,
-        marked simulated).
+        {pace}, not {plan.perGroup}: play this matchup with about <strong>{plan.groupsNeeded}</strong> groups, or top the class up with the
+        Virtual class (simulated rolls, marked simulated).
       </>
     );
   }
   return (
     <>
-      {pace}: this matchup is too close to show in one lesson ({LESSON_LIMITS.groupsMax} groups make about {plan.mostRolls}). Choose a stronger matchup, or pool several
-      classes or the Virtual class.
+      {pace}: this matchup is too close to show in one lesson ({LESSON_LIMITS.groupsMax} groups make about {plan.mostRolls}). Choose a
+      stronger matchup, or pool several classes or the Virtual class.
     </>
   );
 }

@@ -29,7 +29,11 @@ function capitalised(text: string): string {
 function reversalText(reversal: MatchupReversal): string {
   const later = modeLabel(reversal.toDicePerPlayer);
   const describe = (relation: string, mode: string) =>
-    relation === "beats" ? `beats ${reversal.second} with ${mode}` : relation === "loses" ? `loses to ${reversal.second} with ${mode}` : `is even with ${reversal.second} with ${mode}`;
+    relation === "beats"
+      ? `beats ${reversal.second} with ${mode}`
+      : relation === "loses"
+        ? `loses to ${reversal.second} with ${mode}`
+        : `is even with ${reversal.second} with ${mode}`;
   return `${reversal.first} ${describe(reversal.before, "one die each")} but ${describe(reversal.after, later)}`;
 }
 

@@ -28,7 +28,11 @@ export function SharedDiceSetView({ set }: { set: DiceSet }) {
           <>
             <Button
               busy={duplicate.isPending}
-              onClick={() => duplicate.mutate(set.id, { onSuccess: (copy) => navigate(`/app/bench/${copy.id}`, { state: { notice: "Duplicated: this copy is yours to edit." } }) })}
+              onClick={() =>
+                duplicate.mutate(set.id, {
+                  onSuccess: (copy) => navigate(`/app/bench/${copy.id}`, { state: { notice: "Duplicated: this copy is yours to edit." } }),
+                })
+              }
             >
               Duplicate to edit
             </Button>

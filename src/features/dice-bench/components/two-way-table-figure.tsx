@@ -14,13 +14,24 @@ const CELLS_MAX = 900;
  * The two-way table of a matchup, whatever the dice: built on the page when it has at most CELLS_MAX cells; above that no cell
  * is built, and the exact totals come from the grouped tree worked out in a Web Worker.
  */
-export function MatchupTable({ first, second, dicePerPlayer }: { first: { name: string; faces: number[] }; second: { name: string; faces: number[] }; dicePerPlayer: number }) {
+export function MatchupTable({
+  first,
+  second,
+  dicePerPlayer,
+}: {
+  first: { name: string; faces: number[] };
+  second: { name: string; faces: number[] };
+  dicePerPlayer: number;
+}) {
   const cellCount = useMemo(
     () => sumCountDistribution(first.faces, dicePerPlayer).values.length * sumCountDistribution(second.faces, dicePerPlayer).values.length,
     [first.faces, second.faces, dicePerPlayer],
   );
   const large = cellCount > CELLS_MAX;
-  const table = useMemo(() => (large ? null : twoWayTable(first.faces, second.faces, { dicePerPlayer })), [large, first.faces, second.faces, dicePerPlayer]);
+  const table = useMemo(
+    () => (large ? null : twoWayTable(first.faces, second.faces, { dicePerPlayer })),
+    [large, first.faces, second.faces, dicePerPlayer],
+  );
   const grouped = useGroupedTree(large ? { first: first.faces, second: second.faces, dicePerPlayer } : null);
   if (table) return <TwoWayTableFigure table={table} first={first.name} second={second.name} />;
   const tree = grouped.tree;
@@ -31,8 +42,9 @@ export function MatchupTable({ first, second, dicePerPlayer }: { first: { name: 
       </p>
       {tree ? (
         <p data-testid="two-way-totals">
-          Out of {tree.total.toString()} equally likely outcomes: {first.name} wins {probabilityText(new Fraction(tree.totals.win, tree.total))}, ties{" "}
-          {probabilityText(new Fraction(tree.totals.tie, tree.total))}, {second.name} wins {probabilityText(new Fraction(tree.totals.loss, tree.total))}.
+          Out of {tree.total.toString()} equally likely outcomes: {first.name} wins{" "}
+          {probabilityText(new Fraction(tree.totals.win, tree.total))}, ties {probabilityText(new Fraction(tree.totals.tie, tree.total))},{" "}
+          {second.name} wins {probabilityText(new Fraction(tree.totals.loss, tree.total))}.
         </p>
       ) : (
         <p role="status">Working out the totals…</p>
@@ -52,7 +64,12 @@ export function TwoWayTableFigure({ table, first, second }: { table: TwoWayTable
           This table would have {cellCount} cells, too many to read here; the totals below are exact.
         </p>
       ) : (
-        <div className="relative max-w-full overflow-x-auto rounded-xl border-2 border-line bg-shell" tabIndex={0} role="region" aria-label="Two-way table">
+        <div
+          className="relative max-w-full overflow-x-auto rounded-xl border-2 border-line bg-shell"
+          tabIndex={0}
+          role="region"
+          aria-label="Two-way table"
+        >
           <table className="border-collapse text-sm" data-testid="two-way-table">
             <caption className="px-3 py-2 text-left text-base text-ink-soft">
               Two-way table, {modeLabel(table.dicePerPlayer)}: rows are {first}&rsquo;s {what}, columns {second}&rsquo;s {what} (with the

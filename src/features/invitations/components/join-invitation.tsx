@@ -63,7 +63,13 @@ function ExistingAccountForm({ preview, join, onJoined }: { preview: InvitationP
       )}
       <p>You already have an Outroll account with this address. Sign in to join.</p>
       <TextField label="E-mail" type="email" value={preview.email} readOnly />
-      <TextField label="Password" type="password" autoComplete="current-password" {...register("password")} error={formState.errors.password?.message} />
+      <TextField
+        label="Password"
+        type="password"
+        autoComplete="current-password"
+        {...register("password")}
+        error={formState.errors.password?.message}
+      />
       <Button type="submit" busy={join.isPending}>
         Sign in and join
       </Button>
@@ -107,7 +113,10 @@ export function JoinInvitation({
         <span className="font-bold">{invitation.departmentName}</span> on Outroll as a teacher.
       </p>
       <p className="text-ink-soft">
-        For {invitation.email} · {invitation.state === "pending" ? `works once, until ${invitationDate(invitation.expiresAt)}` : invitationStateLabels[invitation.state]}
+        For {invitation.email} ·{" "}
+        {invitation.state === "pending"
+          ? `works once, until ${invitationDate(invitation.expiresAt)}`
+          : invitationStateLabels[invitation.state]}
       </p>
     </div>
   );
@@ -179,7 +188,11 @@ export function JoinInvitation({
   return (
     <>
       {intro}
-      {invitation.hasAccount ? <ExistingAccountForm preview={invitation} join={join} onJoined={onJoined} /> : <NewAccountForm preview={invitation} join={join} onJoined={onJoined} />}
+      {invitation.hasAccount ? (
+        <ExistingAccountForm preview={invitation} join={join} onJoined={onJoined} />
+      ) : (
+        <NewAccountForm preview={invitation} join={join} onJoined={onJoined} />
+      )}
       <p className="mt-6 text-sm text-ink-soft">
         Pupils never have accounts. Please do not type pupils&rsquo; names into lesson notes or uploads.
       </p>

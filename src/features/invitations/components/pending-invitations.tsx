@@ -26,7 +26,11 @@ export function PendingInvitations() {
           {(resend.error ?? cancel.error)?.message}
         </Alert>
       )}
-      {resend.data && <p role="status" className="font-bold text-tide-dark">Sent again to {resend.data.invitation.email}.</p>}
+      {resend.data && (
+        <p role="status" className="font-bold text-tide-dark">
+          Sent again to {resend.data.invitation.email}.
+        </p>
+      )}
       {rows.length === 0 ? (
         <p className="text-ink-soft">No invitations are waiting.</p>
       ) : (
@@ -34,7 +38,10 @@ export function PendingInvitations() {
           {rows.map((row) => {
             const expired = row.state === "expired";
             return (
-              <li key={row.id} className="flex flex-wrap items-center justify-between gap-3 rounded-xl border-2 border-line bg-white px-4 py-3">
+              <li
+                key={row.id}
+                className="flex flex-wrap items-center justify-between gap-3 rounded-xl border-2 border-line bg-white px-4 py-3"
+              >
                 <div className="min-w-0">
                   <p className="break-all font-bold">{row.email}</p>
                   <p className="text-sm text-ink-soft">

@@ -13,7 +13,15 @@ function sizeText(bytes: number): string {
 const typeNames: Record<string, string> = { "application/pdf": "PDF", "image/png": "PNG image", "image/jpeg": "JPEG image" };
 
 /** Worksheets and images attached to a lesson: upload (owner), open, delete (owner). */
-export function AttachmentsPanel({ lessonId, attachments, canEdit }: { lessonId: string; attachments: LessonAttachment[]; canEdit: boolean }) {
+export function AttachmentsPanel({
+  lessonId,
+  attachments,
+  canEdit,
+}: {
+  lessonId: string;
+  attachments: LessonAttachment[];
+  canEdit: boolean;
+}) {
   const input = useRef<HTMLInputElement>(null);
   const upload = useUploadAttachment();
   const remove = useDeleteAttachment();
@@ -40,8 +48,8 @@ export function AttachmentsPanel({ lessonId, attachments, canEdit }: { lessonId:
         Worksheets and images
       </h2>
       <p className="text-sm text-ink-soft">
-        PDF, PNG or JPEG, up to 10 MB each; colleagues in your department can open them. Pupils are minors: leave their names, faces and work with names on it out of
-        what you attach.
+        PDF, PNG or JPEG, up to 10 MB each; colleagues in your department can open them. Pupils are minors: leave their names, faces and
+        work with names on it out of what you attach.
       </p>
       {canEdit && (
         <div className="flex flex-wrap items-end gap-2">
@@ -77,17 +85,29 @@ export function AttachmentsPanel({ lessonId, attachments, canEdit }: { lessonId:
       ) : (
         <ul className="flex flex-col gap-2" aria-label="Attached files">
           {attachments.map((attachment) => (
-            <li key={attachment.id} className="flex flex-wrap items-center justify-between gap-2 rounded-xl border border-line bg-white p-3">
+            <li
+              key={attachment.id}
+              className="flex flex-wrap items-center justify-between gap-2 rounded-xl border border-line bg-white p-3"
+            >
               <div className="min-w-0">
-                <a href={attachmentUrl(lessonId, attachment.id)} target="_blank" rel="noreferrer" className="break-all font-bold text-tide-dark underline underline-offset-2">
+                <a
+                  href={attachmentUrl(lessonId, attachment.id)}
+                  target="_blank"
+                  rel="noreferrer"
+                  className="break-all font-bold text-tide-dark underline underline-offset-2"
+                >
                   {attachment.fileName}
                 </a>
                 <p className="text-sm text-ink-soft">
-                  {typeNames[attachment.mimeType] ?? attachment.mimeType} · {sizeText(attachment.sizeBytes)} · added by {attachment.uploadedByName}
+                  {typeNames[attachment.mimeType] ?? attachment.mimeType} · {sizeText(attachment.sizeBytes)} · added by{" "}
+                  {attachment.uploadedByName}
                 </p>
               </div>
               <div className="flex gap-1">
-                <a href={attachmentUrl(lessonId, attachment.id, true)} className="inline-flex min-h-11 items-center rounded-xl px-3 font-bold hover:bg-ink/5">
+                <a
+                  href={attachmentUrl(lessonId, attachment.id, true)}
+                  className="inline-flex min-h-11 items-center rounded-xl px-3 font-bold hover:bg-ink/5"
+                >
                   Download<span className="sr-only"> {attachment.fileName}</span>
                 </a>
                 {canEdit && (

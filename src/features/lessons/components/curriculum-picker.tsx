@@ -1,5 +1,10 @@
 import { useId } from "react";
-import { curriculumFrameworkNames, curriculumStandardByCode, curriculumStandards, type CurriculumFramework } from "@shared/curriculum/standards";
+import {
+  curriculumFrameworkNames,
+  curriculumStandardByCode,
+  curriculumStandards,
+  type CurriculumFramework,
+} from "@shared/curriculum/standards";
 
 const frameworks = Object.keys(curriculumFrameworkNames) as CurriculumFramework[];
 

@@ -75,7 +75,11 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
   // The version this form started from: a refetch in the background must not move it, or a colleague's save would be overwritten.
   const [baseVersion, setBaseVersion] = useState(saved?.version ?? 0);
 
-  const form = useForm<FormValues, unknown, LessonInput>({ resolver: zodResolver(lessonInputSchema), mode: "onChange", defaultValues: initial });
+  const form = useForm<FormValues, unknown, LessonInput>({
+    resolver: zodResolver(lessonInputSchema),
+    mode: "onChange",
+    defaultValues: initial,
+  });
   const { control, register, handleSubmit, formState, setValue, reset, setError } = form;
   const { errors, isDirty } = formState;
   const objectives = useFieldArray({ control, name: "objectives" });
@@ -89,10 +93,17 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
   const keyOfDraft = draftKey("lesson", saved?.id ?? null);
   const draft = useBrowserDraft<FormValues>({
     key: keyOfDraft,
-    parse: (value) => (value !== null && typeof value === "object" && Array.isArray((value as FormValues).phases) ? (value as FormValues) : null),
+    parse: (value) =>
+      value !== null && typeof value === "object" && Array.isArray((value as FormValues).phases) ? (value as FormValues) : null,
   });
   const draftDiffers = !readOnly && draft.found !== null && JSON.stringify(draft.found.values) !== JSON.stringify(initial);
-  useDraftWriter({ key: keyOfDraft, values, dirty: isDirty && !readOnly, baseVersion: saved ? baseVersion : null, paused: readOnly || draftDiffers });
+  useDraftWriter({
+    key: keyOfDraft,
+    values,
+    dirty: isDirty && !readOnly,
+    baseVersion: saved ? baseVersion : null,
+    paused: readOnly || draftDiffers,
+  });
   const restoreDraft = () => {
     if (draft.found === null) return;
     reset(draft.found.values, { keepDefaultValues: true });
@@ -115,7 +126,10 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
   }, [chosenId, sets.data, detail]);
   const materials = useLessonMaterials(values, chosenDice);
 
-  const totalMinutes = (values.phases ?? []).reduce((sum, entry) => sum + (entry?.included && Number.isFinite(entry.minutes) ? Number(entry.minutes) : 0), 0);
+  const totalMinutes = (values.phases ?? []).reduce(
+    (sum, entry) => sum + (entry?.included && Number.isFinite(entry.minutes) ? Number(entry.minutes) : 0),
+    0,
+  );
   const saving = create.isPending || update.isPending;
   const saveError = create.error ?? update.error;
   const stale = saveError instanceof ApiRequestError && saveError.code === "stale_version";
@@ -160,7 +174,10 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
   // Two sets that would read the same (e.g. two saved Set finder results) are told apart by when they were last saved.
   const labelCount = new Map<string, number>();
   for (const entry of listed) labelCount.set(entry.label, (labelCount.get(entry.label) ?? 0) + 1);
-  const dated = listed.map(({ set, label }) => ({ value: set.id, label: (labelCount.get(label) ?? 0) > 1 ? `${label}, saved ${formatDateTime(set.updatedAt)}` : label }));
+  const dated = listed.map(({ set, label }) => ({
+    value: set.id,
+    label: (labelCount.get(label) ?? 0) > 1 ? `${label}, saved ${formatDateTime(set.updatedAt)}` : label,
+  }));
   // Saved in the same minute as well: number them.
   const seen = new Map<string, number>();
   const setOptions = [
@@ -209,7 +226,9 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
       <LeavePageDialog blocker={blocker} what="This lesson" onLeave={draft.discard} />
       <SavedToast message={toast.message} stamp={toast.stamp} />
       <div className="mb-4 flex flex-col gap-3" data-slot="lesson-header-notes">
-        {draftDiffers && draft.found && <DraftOffer keptAt={draft.found.keptAt} what="this lesson" onRestore={restoreDraft} onDiscard={draft.discard} />}
+        {draftDiffers && draft.found && (
+          <DraftOffer keptAt={draft.found.keptAt} what="this lesson" onRestore={restoreDraft} onDiscard={draft.discard} />
+        )}
         {saved?.fromTemplateId && (
           <Alert tone="info">Copied from a Department shelf template (version {saved.fromTemplateVersion ?? "?"}).</Alert>
         )}
@@ -246,7 +265,12 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
               <Section title="The lesson">
                 <div className="grid gap-4 sm:grid-cols-2">
                   <TextField label="Title" {...register("title")} error={errors.title?.message} className="sm:col-span-2" />
-                  <TextField label="Class or year group" {...register("classGroup")} error={errors.classGroup?.message} placeholder="e.g. 8K" />
+                  <TextField
+                    label="Class or year group"
+                    {...register("classGroup")}
+                    error={errors.classGroup?.message}
+                    placeholder="e.g. 8K"
+                  />
                   <TextField
                     label="Duration (minutes)"
                     type="number"
@@ -262,7 +286,11 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                     render={({ field }) => (
                       <SelectField
                         label="Dice set"
-                        hint={sets.isError ? "Your dice sets could not be loaded." : "Your own sets, or sets colleagues share with the department."}
+                        hint={
+                          sets.isError
+                            ? "Your dice sets could not be loaded."
+                            : "Your own sets, or sets colleagues share with the department."
+                        }
                         value={field.value ?? ""}
                         onChange={(event) => field.onChange(event.target.value === "" ? null : event.target.value)}
                         onBlur={field.onBlur}
@@ -274,7 +302,10 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                   <SelectField
                     label="Status"
                     {...register("status")}
-                    options={(Object.keys(lessonStatusLabels) as LessonStatus[]).map((value) => ({ value, label: lessonStatusLabels[value] }))}
+                    options={(Object.keys(lessonStatusLabels) as LessonStatus[]).map((value) => ({
+                      value,
+                      label: lessonStatusLabels[value],
+                    }))}
                     error={errors.status?.message}
                   />
                 </div>
@@ -284,7 +315,11 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                 <ol className="flex flex-col gap-4">
                   {objectives.fields.map((field, index) => (
                     <li key={field.id} className="grid gap-3 rounded-xl border border-line bg-white p-3 md:grid-cols-2">
-                      <TextField label={`Objective ${index + 1}`} {...register(`objectives.${index}.text`)} error={errors.objectives?.[index]?.text?.message} />
+                      <TextField
+                        label={`Objective ${index + 1}`}
+                        {...register(`objectives.${index}.text`)}
+                        error={errors.objectives?.[index]?.text?.message}
+                      />
                       <Controller
                         control={control}
                         name={`objectives.${index}.curriculumCode`}
@@ -354,12 +389,23 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                         legend="Tie rule"
                         className="sm:col-span-2"
                         value={field.value}
-                        options={(Object.keys(tieRuleLabels) as (keyof typeof tieRuleLabels)[]).map((value) => ({ value, label: tieRuleLabels[value] }))}
+                        options={(Object.keys(tieRuleLabels) as (keyof typeof tieRuleLabels)[]).map((value) => ({
+                          value,
+                          label: tieRuleLabels[value],
+                        }))}
                         onChange={field.onChange}
                       />
                     )}
                   />
-                  <TextField label="Groups" type="number" inputMode="numeric" min={1} max={LESSON_LIMITS.groupsMax} {...register("groups", numberField)} error={errors.groups?.message} />
+                  <TextField
+                    label="Groups"
+                    type="number"
+                    inputMode="numeric"
+                    min={1}
+                    max={LESSON_LIMITS.groupsMax}
+                    {...register("groups", numberField)}
+                    error={errors.groups?.message}
+                  />
                   <TextField
                     label="Pupils per group"
                     type="number"
@@ -386,7 +432,10 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                       <ChoiceGroup
                         legend="Matchups"
                         value={field.value}
-                        options={(Object.keys(matchupChoiceLabels) as (keyof typeof matchupChoiceLabels)[]).map((value) => ({ value, label: matchupChoiceLabels[value] }))}
+                        options={(Object.keys(matchupChoiceLabels) as (keyof typeof matchupChoiceLabels)[]).map((value) => ({
+                          value,
+                          label: matchupChoiceLabels[value],
+                        }))}
                         onChange={field.onChange}
                       />
                     )}
@@ -395,7 +444,10 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
               </Section>
             </div>
 
-            <aside aria-label="Materials and rolls verdict" className="flex min-w-0 flex-col gap-4 [grid-area:panel] lg:sticky lg:top-4 lg:self-start">
+            <aside
+              aria-label="Materials and rolls verdict"
+              className="flex min-w-0 flex-col gap-4 [grid-area:panel] lg:sticky lg:top-4 lg:self-start"
+            >
               <h2 className="text-2xl">Materials and verdict</h2>
               <LiveMaterialsPanel
                 state={materials}
@@ -405,7 +457,8 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                 onUseGroups={readOnly ? undefined : (groups) => setValue("groups", groups, { shouldDirty: true, shouldValidate: true })}
                 sheetHref={
                   chosenId && values.mode
-                    ? (rows) => `/app/bench/${chosenId}/print?kind=sheet&paper=a4&rolls=${rows}&players=${values.mode!.players}&dice=${values.mode!.dicePerPlayer}`
+                    ? (rows) =>
+                        `/app/bench/${chosenId}/print?kind=sheet&paper=a4&rolls=${rows}&players=${values.mode!.players}&dice=${values.mode!.dicePerPlayer}`
                     : undefined
                 }
               />
@@ -420,7 +473,10 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                   {phases.fields.map((field, index) => {
                     const included = values.phases?.[index]?.included ?? true;
                     return (
-                      <li key={field.id} className={`grid gap-3 rounded-xl border p-3 sm:grid-cols-[12rem_minmax(0,1fr)] ${included ? "border-line bg-white" : "border-dashed border-ink/30 bg-sand/50"}`}>
+                      <li
+                        key={field.id}
+                        className={`grid gap-3 rounded-xl border p-3 sm:grid-cols-[12rem_minmax(0,1fr)] ${included ? "border-line bg-white" : "border-dashed border-ink/30 bg-sand/50"}`}
+                      >
                         <div className="flex flex-col gap-2">
                           <h3 className="text-lg">
                             {index + 1}. {field.phase}
@@ -440,18 +496,29 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                             error={errors.phases?.[index]?.minutes?.message}
                           />
                         </div>
-                        <TextArea label={`${field.phase} notes`} rows={4} {...register(`phases.${index}.notes`)} error={errors.phases?.[index]?.notes?.message} />
+                        <TextArea
+                          label={`${field.phase} notes`}
+                          rows={4}
+                          {...register(`phases.${index}.notes`)}
+                          error={errors.phases?.[index]?.notes?.message}
+                        />
                       </li>
                     );
                   })}
                 </ol>
                 <div className="flex flex-col gap-1">
                   <label className="flex min-h-11 items-center gap-2 font-bold">
-                    <input type="checkbox" className="h-5 w-5 accent-tide" aria-describedby="hide-exact-hint" {...register("hideExactUntilProve")} />
+                    <input
+                      type="checkbox"
+                      className="h-5 w-5 accent-tide"
+                      aria-describedby="hide-exact-hint"
+                      {...register("hideExactUntilProve")}
+                    />
                     Hide exact values on the Wall until Prove
                   </label>
                   <p id="hide-exact-hint" className="text-sm text-ink-soft">
-                    In Guess, Roll and Pool the Wall view shows only the class’s own figures; the exact chances appear from the Prove phase on. The Run board always shows them.
+                    In Guess, Roll and Pool the Wall view shows only the class’s own figures; the exact chances appear from the Prove phase
+                    on. The Run board always shows them.
                   </p>
                 </div>
               </Section>
@@ -460,12 +527,23 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                 <ol className="flex flex-col gap-3">
                   {prompts.map((_prompt, index) => (
                     <li key={index} className="flex flex-wrap items-end gap-2">
-                      <TextField label={`Prompt ${index + 1}`} {...register(`discussionPrompts.${index}`)} error={errors.discussionPrompts?.[index]?.message} className="min-w-0 flex-1" />
+                      <TextField
+                        label={`Prompt ${index + 1}`}
+                        {...register(`discussionPrompts.${index}`)}
+                        error={errors.discussionPrompts?.[index]?.message}
+                        className="min-w-0 flex-1"
+                      />
                       <Button
                         variant="quiet"
                         type="button"
                         className="text-alarm"
-                        onClick={() => setValue("discussionPrompts", prompts.filter((_entry, other) => other !== index), { shouldDirty: true, shouldValidate: true })}
+                        onClick={() =>
+                          setValue(
+                            "discussionPrompts",
+                            prompts.filter((_entry, other) => other !== index),
+                            { shouldDirty: true, shouldValidate: true },
+                          )
+                        }
                       >
                         Remove<span className="sr-only"> prompt {index + 1}</span>
                       </Button>
@@ -473,19 +551,41 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
                   ))}
                 </ol>
                 {prompts.length < LESSON_LIMITS.promptsMax && (
-                  <Button variant="secondary" type="button" className="self-start" onClick={() => setValue("discussionPrompts", [...prompts, ""], { shouldDirty: true })}>
+                  <Button
+                    variant="secondary"
+                    type="button"
+                    className="self-start"
+                    onClick={() => setValue("discussionPrompts", [...prompts, ""], { shouldDirty: true })}
+                  >
                     + Add a prompt
                   </Button>
                 )}
-                <TextArea label="Exit ticket" hint="One question each pupil answers before leaving. The Wall view shows the prompts and the exit ticket in Reflect." {...register("exitTicket")} error={errors.exitTicket?.message} />
+                <TextArea
+                  label="Exit ticket"
+                  hint="One question each pupil answers before leaving. The Wall view shows the prompts and the exit ticket in Reflect."
+                  {...register("exitTicket")}
+                  error={errors.exitTicket?.message}
+                />
               </Section>
 
               <Section title="Differentiation">
                 <div className="grid gap-4 md:grid-cols-2">
-                  <TextArea label="Support" rows={4} {...register("differentiation.support")} error={errors.differentiation?.support?.message} />
-                  <TextArea label="Stretch" rows={4} {...register("differentiation.stretch")} error={errors.differentiation?.stretch?.message} />
+                  <TextArea
+                    label="Support"
+                    rows={4}
+                    {...register("differentiation.support")}
+                    error={errors.differentiation?.support?.message}
+                  />
+                  <TextArea
+                    label="Stretch"
+                    rows={4}
+                    {...register("differentiation.stretch")}
+                    error={errors.differentiation?.stretch?.message}
+                  />
                 </div>
-                <p className="text-sm text-ink-soft">Write about approaches, not named pupils: notes are seen by colleagues and pupils' names do not belong here.</p>
+                <p className="text-sm text-ink-soft">
+                  Write about approaches, not named pupils: notes are seen by colleagues and pupils' names do not belong here.
+                </p>
               </Section>
             </div>
           </div>
@@ -495,7 +595,9 @@ export function LessonEditor({ initial, detail, notice }: { initial: LessonInput
             <Button type="submit" busy={saving}>
               {saved ? "Save lesson" : "Create lesson"}
             </Button>
-            {Object.keys(errors).length > 0 && <p className="font-bold text-alarm">Some fields need attention before the lesson can be saved.</p>}
+            {Object.keys(errors).length > 0 && (
+              <p className="font-bold text-alarm">Some fields need attention before the lesson can be saved.</p>
+            )}
           </div>
         )}
       </form>

@@ -13,11 +13,17 @@ export function LessonPrintView({ detail }: { detail: LessonDetail }) {
   const { lesson, diceSet } = detail;
   const dice = diceSet?.dice ?? null;
   const materials = useMemo(() => lessonMaterials(lesson, dice), [lesson, dice]);
-  const summary = useMemo(() => (dice && dice.length >= 2 ? lessonSetSummary(dice, lesson.mode.dicePerPlayer) : null), [dice, lesson.mode.dicePerPlayer]);
+  const summary = useMemo(
+    () => (dice && dice.length >= 2 ? lessonSetSummary(dice, lesson.mode.dicePerPlayer) : null),
+    [dice, lesson.mode.dicePerPlayer],
+  );
   const phases = lesson.phases.filter((entry) => entry.included);
   const minutes = phases.reduce((sum, entry) => sum + entry.minutes, 0);
   return (
-    <article className="mx-auto flex max-w-4xl flex-col gap-6 bg-white p-4 text-ink sm:p-8 print:max-w-none print:p-0" aria-labelledby="print-title">
+    <article
+      className="mx-auto flex max-w-4xl flex-col gap-6 bg-white p-4 text-ink sm:p-8 print:max-w-none print:p-0"
+      aria-labelledby="print-title"
+    >
       <div className="no-print flex flex-wrap gap-2">
         <LinkButton to={`/app/lessons/${lesson.id}`}>Back to the lesson</LinkButton>
         <Button onClick={() => window.print()}>Print this plan</Button>
@@ -28,9 +34,12 @@ export function LessonPrintView({ detail }: { detail: LessonDetail }) {
           {lesson.title}
         </h1>
         <p className="mt-1 text-lg">
-          {lesson.classGroup ? `Class ${lesson.classGroup}` : "No class set"} · {lesson.durationMinutes} minutes · {lessonStatusLabels[lesson.status]} · {lesson.ownerName}
+          {lesson.classGroup ? `Class ${lesson.classGroup}` : "No class set"} · {lesson.durationMinutes} minutes ·{" "}
+          {lessonStatusLabels[lesson.status]} · {lesson.ownerName}
         </p>
-        {lesson.fromTemplateId && <p className="text-ink-soft">Copied from a Department shelf template (version {lesson.fromTemplateVersion ?? "?"}).</p>}
+        {lesson.fromTemplateId && (
+          <p className="text-ink-soft">Copied from a Department shelf template (version {lesson.fromTemplateVersion ?? "?"}).</p>
+        )}
       </header>
 
       <PrintSection title="Learning objectives">
@@ -62,20 +71,26 @@ export function LessonPrintView({ detail }: { detail: LessonDetail }) {
           <dd>{diceSet ? `${diceSet.name} (${diceSet.dice.length} dice)` : "None chosen"}</dd>
           <dt className="font-bold">Mode</dt>
           <dd>
-            {lesson.mode.dicePerPlayer === 1 ? "One die each" : "Two dice each"}, {lesson.mode.players === 2 ? "two players" : "three players"}
+            {lesson.mode.dicePerPlayer === 1 ? "One die each" : "Two dice each"},{" "}
+            {lesson.mode.players === 2 ? "two players" : "three players"}
           </dd>
           <dt className="font-bold">Tie rule</dt>
           <dd>{tieRuleLabels[lesson.tieRule]}</dd>
           <dt className="font-bold">Groups</dt>
           <dd>
-            {lesson.groups} groups of {lesson.pupilsPerGroup}, {lesson.rollsPerGroup} rolls per group ({lesson.groups * lesson.rollsPerGroup} pooled)
+            {lesson.groups} groups of {lesson.pupilsPerGroup}, {lesson.rollsPerGroup} rolls per group (
+            {lesson.groups * lesson.rollsPerGroup} pooled)
           </dd>
           <dt className="font-bold">Matchups</dt>
           <dd>{matchupChoiceLabels[lesson.matchupChoice]}</dd>
         </dl>
         {materials.games.length > 0 && lesson.matchupChoice === "assigned" && (
           <p className="mt-2">
-            <b>Games, assigned in turn:</b> {materials.games.map((game, index) => `group ${index + 1}: ${game.join(" v ")}`).slice(0, lesson.groups).join("; ")}
+            <b>Games, assigned in turn:</b>{" "}
+            {materials.games
+              .map((game, index) => `group ${index + 1}: ${game.join(" v ")}`)
+              .slice(0, lesson.groups)
+              .join("; ")}
             {lesson.groups > materials.games.length ? "; then round again." : "."}
           </p>
         )}
@@ -99,10 +114,18 @@ export function LessonPrintView({ detail }: { detail: LessonDetail }) {
               </caption>
               <thead>
                 <tr className="border-b-2 border-ink/30">
-                  <th scope="col" className="py-1 pr-2">Matchup</th>
-                  <th scope="col" className="py-1 pr-2">Win</th>
-                  <th scope="col" className="py-1 pr-2">Tie</th>
-                  <th scope="col" className="py-1">Loss</th>
+                  <th scope="col" className="py-1 pr-2">
+                    Matchup
+                  </th>
+                  <th scope="col" className="py-1 pr-2">
+                    Win
+                  </th>
+                  <th scope="col" className="py-1 pr-2">
+                    Tie
+                  </th>
+                  <th scope="col" className="py-1">
+                    Loss
+                  </th>
                 </tr>
               </thead>
               <tbody>
@@ -136,9 +159,15 @@ export function LessonPrintView({ detail }: { detail: LessonDetail }) {
         <table className="w-full text-left">
           <thead>
             <tr className="border-b-2 border-ink/30">
-              <th scope="col" className="py-1 pr-2">Phase</th>
-              <th scope="col" className="py-1 pr-2">Minutes</th>
-              <th scope="col" className="py-1">Notes</th>
+              <th scope="col" className="py-1 pr-2">
+                Phase
+              </th>
+              <th scope="col" className="py-1 pr-2">
+                Minutes
+              </th>
+              <th scope="col" className="py-1">
+                Notes
+              </th>
             </tr>
           </thead>
           <tbody>

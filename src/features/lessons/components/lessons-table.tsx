@@ -66,7 +66,10 @@ const columns = helper.columns([
     sortFn: "basic",
     cell: (info) => (
       <span>
-        {info.getValue()} <span className="text-sm text-ink-soft">({info.row.original.groups} × {info.row.original.rollsPerGroup})</span>
+        {info.getValue()}{" "}
+        <span className="text-sm text-ink-soft">
+          ({info.row.original.groups} × {info.row.original.rollsPerGroup})
+        </span>
       </span>
     ),
   }),
@@ -109,7 +112,10 @@ export function LessonsTable() {
     for (const lesson of data) named.set(lesson.diceSetId ?? noSet, lesson.diceSetName ?? "No set yet");
     return [...named].sort((a, b) => a[1].localeCompare(b[1])).map(([value, label]) => ({ value, label }));
   }, [data]);
-  const classOptions = useMemo(() => [...new Set(data.map((lesson) => lesson.classGroup))].sort().map((value) => ({ value, label: value || "No class" })), [data]);
+  const classOptions = useMemo(
+    () => [...new Set(data.map((lesson) => lesson.classGroup))].sort().map((value) => ({ value, label: value || "No class" })),
+    [data],
+  );
   const filterValue = (id: string) => (columnFilters.find((filter) => filter.id === id)?.value as string | undefined) ?? "";
   const setFilter = (id: string, value: string) => table.getColumn(id)?.setFilterValue(value === "" ? undefined : value);
   const rows = table.getRowModel().rows;
@@ -125,7 +131,10 @@ export function LessonsTable() {
           </LinkButton>
         }
       />
-      <section aria-label="Search and filters" className="mb-4 grid gap-3 rounded-2xl border-2 border-line bg-shell p-4 sm:grid-cols-2 lg:grid-cols-5">
+      <section
+        aria-label="Search and filters"
+        className="mb-4 grid gap-3 rounded-2xl border-2 border-line bg-shell p-4 sm:grid-cols-2 lg:grid-cols-5"
+      >
         <TextField
           label="Search"
           type="search"
@@ -134,16 +143,34 @@ export function LessonsTable() {
           onChange={(event) => setGlobalFilter(event.target.value)}
           className="lg:col-span-2"
         />
-        <SelectField label="Dice set" value={filterValue("diceSet")} onChange={(event) => setFilter("diceSet", event.target.value)} options={[{ value: "", label: "Any set" }, ...setOptions]} />
-        <SelectField label="Class" value={filterValue("classGroup")} onChange={(event) => setFilter("classGroup", event.target.value)} options={[{ value: "", label: "Any class" }, ...classOptions]} />
+        <SelectField
+          label="Dice set"
+          value={filterValue("diceSet")}
+          onChange={(event) => setFilter("diceSet", event.target.value)}
+          options={[{ value: "", label: "Any set" }, ...setOptions]}
+        />
+        <SelectField
+          label="Class"
+          value={filterValue("classGroup")}
+          onChange={(event) => setFilter("classGroup", event.target.value)}
+          options={[{ value: "", label: "Any class" }, ...classOptions]}
+        />
         <SelectField
           label="Status"
           value={filterValue("status")}
           onChange={(event) => setFilter("status", event.target.value)}
-          options={[{ value: "", label: "Any status" }, ...(Object.keys(lessonStatusLabels) as LessonStatus[]).map((value) => ({ value, label: lessonStatusLabels[value] }))]}
+          options={[
+            { value: "", label: "Any status" },
+            ...(Object.keys(lessonStatusLabels) as LessonStatus[]).map((value) => ({ value, label: lessonStatusLabels[value] })),
+          ]}
         />
         <label className="flex min-h-11 items-center gap-2 font-bold sm:col-span-2 lg:col-span-5">
-          <input type="checkbox" className="h-5 w-5 accent-tide" checked={showArchived} onChange={(event) => setShowArchived(event.target.checked)} />
+          <input
+            type="checkbox"
+            className="h-5 w-5 accent-tide"
+            checked={showArchived}
+            onChange={(event) => setShowArchived(event.target.checked)}
+          />
           Show archived lessons
         </label>
       </section>
@@ -186,7 +213,11 @@ function LessonActions({ lesson }: { lesson: LessonSummary }) {
         variant="secondary"
         className="min-h-9 px-3 py-1 text-sm"
         busy={duplicate.isPending}
-        onClick={() => duplicate.mutate(lesson.id, { onSuccess: ({ lesson: copy }) => navigate(`/app/lessons/${copy.id}`, { state: { notice: `Duplicated as “${copy.title}”.` } }) })}
+        onClick={() =>
+          duplicate.mutate(lesson.id, {
+            onSuccess: ({ lesson: copy }) => navigate(`/app/lessons/${copy.id}`, { state: { notice: `Duplicated as “${copy.title}”.` } }),
+          })
+        }
         aria-label={`Duplicate ${lesson.title}`}
       >
         Duplicate
@@ -200,7 +231,12 @@ function LessonActions({ lesson }: { lesson: LessonSummary }) {
       >
         {archived ? "Unarchive" : "Archive"}
       </Button>
-      <Button variant="quiet" className="min-h-9 px-3 py-1 text-sm text-alarm" onClick={() => setConfirming(true)} aria-label={`Delete ${lesson.title}`}>
+      <Button
+        variant="quiet"
+        className="min-h-9 px-3 py-1 text-sm text-alarm"
+        onClick={() => setConfirming(true)}
+        aria-label={`Delete ${lesson.title}`}
+      >
         Delete
       </Button>
       {error && <p className="text-sm font-bold text-alarm">{error.message}</p>}
@@ -213,8 +249,13 @@ function LessonActions({ lesson }: { lesson: LessonSummary }) {
         onConfirm={() => remove.mutate(lesson.id, { onSuccess: () => setConfirming(false) })}
       >
         <p>
-          “{lesson.title}”{lesson.attachmentCount === 0 ? "" : lesson.attachmentCount === 1 ? " and its attachment" : ` and its ${lesson.attachmentCount} attachments`} will be
-          deleted for good. Archive it instead to keep it out of the list.
+          “{lesson.title}”
+          {lesson.attachmentCount === 0
+            ? ""
+            : lesson.attachmentCount === 1
+              ? " and its attachment"
+              : ` and its ${lesson.attachmentCount} attachments`}{" "}
+          will be deleted for good. Archive it instead to keep it out of the list.
         </p>
         {remove.error && <p className="mt-2 font-bold text-alarm">{remove.error.message}</p>}
       </ConfirmDialog>

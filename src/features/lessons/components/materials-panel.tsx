@@ -31,7 +31,10 @@ export function RollsVerdictView({
   return (
     <section aria-labelledby="verdict-heading" className={`rounded-2xl border-2 p-4 ${look.box}`} data-testid="rolls-verdict">
       <h3 id="verdict-heading" className="flex items-center gap-2 text-xl">
-        <span aria-hidden="true" className="inline-flex h-7 w-7 items-center justify-center rounded-full border-2 border-ink bg-white font-bold">
+        <span
+          aria-hidden="true"
+          className="inline-flex h-7 w-7 items-center justify-center rounded-full border-2 border-ink bg-white font-bold"
+        >
           {look.mark}
         </span>
         {look.title}
@@ -64,11 +67,21 @@ export function RollsVerdictView({
             <caption className="sr-only">Main matchups: exact chance, planned and needed rolls</caption>
             <thead>
               <tr className="border-b-2 border-ink/20">
-                <th scope="col" className="py-1 pr-2">Matchup</th>
-                <th scope="col" className="py-1 pr-2">Winner's chance ({tieRuleLabels[tieRule].toLowerCase()})</th>
-                <th scope="col" className="py-1 pr-2">Planned</th>
-                <th scope="col" className="py-1 pr-2">Needed</th>
-                <th scope="col" className="py-1">Verdict</th>
+                <th scope="col" className="py-1 pr-2">
+                  Matchup
+                </th>
+                <th scope="col" className="py-1 pr-2">
+                  Winner's chance ({tieRuleLabels[tieRule].toLowerCase()})
+                </th>
+                <th scope="col" className="py-1 pr-2">
+                  Planned
+                </th>
+                <th scope="col" className="py-1 pr-2">
+                  Needed
+                </th>
+                <th scope="col" className="py-1">
+                  Verdict
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -88,7 +101,8 @@ export function RollsVerdictView({
             </tbody>
           </table>
           <p className="mt-2 text-sm text-ink-soft">
-            Needed: the rolls after which the 95% Wilson interval for the winner's share is expected to leave out 1/2 (a roll-off a class could not put down to luck).
+            Needed: the rolls after which the 95% Wilson interval for the winner's share is expected to leave out 1/2 (a roll-off a class
+            could not put down to luck).
           </p>
         </div>
       )}
@@ -97,7 +111,15 @@ export function RollsVerdictView({
 }
 
 /** The materials list: printed dice of each kind, recording sheets and exit ticket slips. */
-export function MaterialsList({ result, dice, sheetHref }: { result: LessonMaterialsResult; dice: SetDie[] | null; sheetHref?: (rowsPerSheet: number) => string }) {
+export function MaterialsList({
+  result,
+  dice,
+  sheetHref,
+}: {
+  result: LessonMaterialsResult;
+  dice: SetDie[] | null;
+  sheetHref?: (rowsPerSheet: number) => string;
+}) {
   const { materials } = result;
   const look = (name: string) => dice?.find((die) => die.name === name);
   return (
@@ -110,10 +132,18 @@ export function MaterialsList({ result, dice, sheetHref }: { result: LessonMater
           <caption className="sr-only">Printed dice to prepare</caption>
           <thead>
             <tr className="border-b-2 border-line">
-              <th scope="col" className="py-1 pr-2">Die</th>
-              <th scope="col" className="py-1 pr-2">For groups</th>
-              <th scope="col" className="py-1 pr-2">Spares</th>
-              <th scope="col" className="py-1">To print</th>
+              <th scope="col" className="py-1 pr-2">
+                Die
+              </th>
+              <th scope="col" className="py-1 pr-2">
+                For groups
+              </th>
+              <th scope="col" className="py-1 pr-2">
+                Spares
+              </th>
+              <th scope="col" className="py-1">
+                To print
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -134,7 +164,9 @@ export function MaterialsList({ result, dice, sheetHref }: { result: LessonMater
               );
             })}
             <tr className="border-t-2 border-line">
-              <th scope="row" className="py-1 pr-2">All dice</th>
+              <th scope="row" className="py-1 pr-2">
+                All dice
+              </th>
               <td colSpan={2} />
               <td className="py-1 font-bold" data-testid="total-dice">
                 {materials.totalDice}
@@ -145,12 +177,15 @@ export function MaterialsList({ result, dice, sheetHref }: { result: LessonMater
       )}
       <ul className="mt-3 flex flex-col gap-1">
         <li data-testid="recording-sheets">
-          <b>{materials.recordingSheets.total} recording sheets</b> ({materials.recordingSheets.forGroups} for groups + {materials.recordingSheets.spares} spare), room for{" "}
-          {materials.recordingSheets.rowsPerSheet} rolls each
+          <b>{materials.recordingSheets.total} recording sheets</b> ({materials.recordingSheets.forGroups} for groups +{" "}
+          {materials.recordingSheets.spares} spare), room for {materials.recordingSheets.rowsPerSheet} rolls each
           {sheetHref && (
             <>
               {" · "}
-              <Link to={sheetHref(materials.recordingSheets.rowsPerSheet)} className="font-bold text-tide-dark underline underline-offset-2">
+              <Link
+                to={sheetHref(materials.recordingSheets.rowsPerSheet)}
+                className="font-bold text-tide-dark underline underline-offset-2"
+              >
                 Print the recording sheet
               </Link>
             </>
@@ -201,7 +236,11 @@ export function LiveMaterialsPanel({
     );
   }
   return (
-    <div className={`flex flex-col gap-4 transition-opacity ${state.isStale ? "opacity-70" : ""}`} aria-live="polite" aria-busy={state.isStale}>
+    <div
+      className={`flex flex-col gap-4 transition-opacity ${state.isStale ? "opacity-70" : ""}`}
+      aria-live="polite"
+      aria-busy={state.isStale}
+    >
       <RollsVerdictView result={state.result} tieRule={tieRule} onUseRolls={onUseRolls} onUseGroups={onUseGroups} />
       <MaterialsList result={state.result} dice={dice} sheetHref={sheetHref} />
     </div>

@@ -3,8 +3,7 @@ import { lessonMaterials, type LessonMaterialsResult, type MaterialsDie } from "
 import { lessonMaterialsFieldsSchema } from "@shared/schemas/lessons";
 
 export type LessonMaterialsState =
-  | { ok: true; result: LessonMaterialsResult; isStale: boolean }
-  | { ok: false; problems: string[]; isStale: boolean };
+  { ok: true; result: LessonMaterialsResult; isStale: boolean } | { ok: false; problems: string[]; isStale: boolean };
 
 /**
  * The materials list and rolls verdict for the plan as typed so far, recomputed while the teacher edits.

@@ -15,13 +15,18 @@ export function RequestResetForm() {
   if (request.isSuccess) {
     return (
       <Alert tone="info" title="Check your e-mail">
-        If {getValues("email")} has an Outroll account, an e-mail with a link to choose a new password is on its way. The link works
-        once, for {PASSWORD_RESET_MINUTES} minutes.
+        If {getValues("email")} has an Outroll account, an e-mail with a link to choose a new password is on its way. The link works once,
+        for {PASSWORD_RESET_MINUTES} minutes.
       </Alert>
     );
   }
   return (
-    <form onSubmit={handleSubmit((values) => request.mutate(values))} noValidate aria-label="Ask for a reset link" className="flex flex-col gap-4">
+    <form
+      onSubmit={handleSubmit((values) => request.mutate(values))}
+      noValidate
+      aria-label="Ask for a reset link"
+      className="flex flex-col gap-4"
+    >
       {request.error && (
         <Alert tone="error" title="No link sent">
           {request.error.message}

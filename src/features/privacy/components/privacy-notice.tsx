@@ -44,9 +44,15 @@ function StoredTable({ caption, items }: { caption: string; items: StoredItem[] 
         <caption className="sr-only">{caption}</caption>
         <thead>
           <tr className="border-b-2 border-line">
-            <th scope="col" className="py-2 pr-3">What</th>
-            <th scope="col" className="py-2 pr-3">Kept</th>
-            <th scope="col" className="py-2">Who can see it</th>
+            <th scope="col" className="py-2 pr-3">
+              What
+            </th>
+            <th scope="col" className="py-2 pr-3">
+              Kept
+            </th>
+            <th scope="col" className="py-2">
+              Who can see it
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -114,7 +120,8 @@ const teacherItems: StoredItem[] = [
   },
   {
     what: "Department shelf",
-    detail: "Templates with the names of who published them and whose proposal they came from; proposals and decisions; the days a head was sent a proposal digest.",
+    detail:
+      "Templates with the names of who published them and whose proposal they came from; proposals and decisions; the days a head was sent a proposal digest.",
     kept: "While the template or proposal exists.",
     seenBy: "Members of your department.",
   },
@@ -145,8 +152,8 @@ export function PrivacyNotice() {
     <div className="flex flex-col gap-6">
       <Section id="controller-heading" title="Who is responsible">
         <p>
-          The school or organisation that runs this Outroll decides what it is used for and is responsible for the data it
-          holds (the controller). Ask them anything about this notice, or to see, correct or delete data.
+          The school or organisation that runs this Outroll decides what it is used for and is responsible for the data it holds (the
+          controller). Ask them anything about this notice, or to see, correct or delete data.
         </p>
         {settings.isPending && <p role="status">Loading the contact…</p>}
         {settings.isError && (
@@ -159,34 +166,33 @@ export function PrivacyNotice() {
             <ControllerContact controller={controller} />
           ) : (
             <Alert tone="caution" title="No contact set yet">
-              Whoever runs this Outroll has not named its controller here yet. Until they do, ask your teacher or head of
-              department.
+              Whoever runs this Outroll has not named its controller here yet. Until they do, ask your teacher or head of department.
             </Alert>
           ))}
       </Section>
 
       <Section id="pupils-heading" title="Pupils">
         <p>
-          Pupils are children, so Outroll asks them for nothing about themselves: no account, no name, no e-mail address,
-          no phone number. A group joins a class run with a join code and a made-up nickname; please do not use real names.
+          Pupils are children, so Outroll asks them for nothing about themselves: no account, no name, no e-mail address, no phone number. A
+          group joins a class run with a join code and a made-up nickname; please do not use real names.
         </p>
         <StoredTable caption="What Outroll keeps about pupils" items={pupilItems} />
         <p>
-          <span className="font-bold">To delete it:</span> the teacher presses <span className="font-bold">Delete run</span>{" "}
-          on the run&rsquo;s page; the run goes at once with all its groups, nicknames, rolls and votes. If a group used a
-          real name, tell the teacher. Deleting a lesson does not delete its runs.
+          <span className="font-bold">To delete it:</span> the teacher presses <span className="font-bold">Delete run</span> on the
+          run&rsquo;s page; the run goes at once with all its groups, nicknames, rolls and votes. If a group used a real name, tell the
+          teacher. Deleting a lesson does not delete its runs.
         </p>
       </Section>
 
       <Section id="teachers-heading" title="Teachers and heads of department">
         <StoredTable caption="What Outroll keeps about teachers" items={teacherItems} />
         <p>
-          <span className="font-bold">E-mail</span> goes only to teachers: invitations, password-reset links and, for a head of
-          department, at most one digest a day while colleagues&rsquo; proposals wait for a decision.
+          <span className="font-bold">E-mail</span> goes only to teachers: invitations, password-reset links and, for a head of department,
+          at most one digest a day while colleagues&rsquo; proposals wait for a decision.
         </p>
         <p>
-          <span className="font-bold">To delete it:</span> delete your dice sets, lessons, attachments and runs in the app.
-          To have your account removed, ask the controller above; there is no button for it in the app yet.
+          <span className="font-bold">To delete it:</span> delete your dice sets, lessons, attachments and runs in the app. To have your
+          account removed, ask the controller above; there is no button for it in the app yet.
         </p>
       </Section>
 

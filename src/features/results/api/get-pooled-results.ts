@@ -6,7 +6,11 @@ export type PooledRequest = { scope: ResultsScope; dicePerPlayer: number; runIds
 
 /** Several runs of one set and mode pooled on the server, with each run's share. */
 export function getPooledResults(request: PooledRequest) {
-  const params = new URLSearchParams({ scope: request.scope, dicePerPlayer: String(request.dicePerPlayer), includeSimulated: String(request.includeSimulated) });
+  const params = new URLSearchParams({
+    scope: request.scope,
+    dicePerPlayer: String(request.dicePerPlayer),
+    includeSimulated: String(request.includeSimulated),
+  });
   if (request.runIds && request.runIds.length > 0) params.set("runIds", request.runIds.join(","));
   if (request.setKey) params.set("setKey", request.setKey);
   return api.get<PooledAcrossRuns>(`/api/results/pooled?${params}`);

@@ -15,7 +15,10 @@ export function paperImportForm({ file, createGroups, tally }: PaperImportReques
 
 /** Checks a Paper import file against the run without storing anything. */
 export function previewPaperImport(request: PaperImportRequest) {
-  return api.post<PaperImportResult>(`/api/results/runs/${encodeURIComponent(request.runId)}/paper-import/preview`, paperImportForm(request));
+  return api.post<PaperImportResult>(
+    `/api/results/runs/${encodeURIComponent(request.runId)}/paper-import/preview`,
+    paperImportForm(request),
+  );
 }
 
 export function usePreviewPaperImport() {

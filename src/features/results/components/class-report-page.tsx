@@ -15,7 +15,10 @@ export function ClassReportPage({ runId, includeSimulated = true }: { runId: str
   if (results.isError) {
     return (
       <Alert tone="error" title="The class report could not be prepared">
-        {results.error.message} <Link to="/app/results" className="font-bold underline">Back to Results</Link>
+        {results.error.message}{" "}
+        <Link to="/app/results" className="font-bold underline">
+          Back to Results
+        </Link>
       </Alert>
     );
   }

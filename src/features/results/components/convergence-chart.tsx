@@ -29,15 +29,46 @@ export function ConvergenceChart({
   const chartProps = size ? { width: size.width, height: size.height } : { responsive: true, style: { width: "100%", height: 300 } };
   return (
     <figure className="min-w-0">
-      <div role="img" aria-label={`Convergence chart of ${matchup.label}: the class estimate of ${firstDie} winning after ${matchup.countedRolls > 0 ? `${matchup.rolls - matchup.countedRolls} rolls recorded one by one` : `${matchup.rolls} rolls`} is ${three(last?.frequency)}; the exact value is ${exact?.fraction ?? "undefined"}.`}>
+      <div
+        role="img"
+        aria-label={`Convergence chart of ${matchup.label}: the class estimate of ${firstDie} winning after ${matchup.countedRolls > 0 ? `${matchup.rolls - matchup.countedRolls} rolls recorded one by one` : `${matchup.rolls} rolls`} is ${three(last?.frequency)}; the exact value is ${exact?.fraction ?? "undefined"}.`}
+      >
         <ComposedChart data={data} margin={{ top: 12, right: 16, bottom: 24, left: 4 }} {...chartProps}>
           <CartesianGrid stroke="#d8cfc0" strokeDasharray="2 4" />
-          <XAxis dataKey="rolls" type="number" domain={[1, "dataMax"]} allowDecimals={false} tick={{ fill: "#3b4f63" }} label={{ value: "rolls", position: "insideBottom", offset: -12, fill: "#3b4f63" }} />
+          <XAxis
+            dataKey="rolls"
+            type="number"
+            domain={[1, "dataMax"]}
+            allowDecimals={false}
+            tick={{ fill: "#3b4f63" }}
+            label={{ value: "rolls", position: "insideBottom", offset: -12, fill: "#3b4f63" }}
+          />
           <YAxis domain={[0, 1]} ticks={[0, 0.25, 0.5, 0.75, 1]} tick={{ fill: "#3b4f63" }} width={44} />
-          <Area dataKey="band" stroke="none" fill="#d5f0ec" fillOpacity={0.9} isAnimationActive={false} name="95% band around the exact value" connectNulls />
+          <Area
+            dataKey="band"
+            stroke="none"
+            fill="#d5f0ec"
+            fillOpacity={0.9}
+            isAnimationActive={false}
+            name="95% band around the exact value"
+            connectNulls
+          />
           {exact && <ReferenceLine y={exact.value} stroke="#12263a" strokeDasharray="6 4" strokeWidth={2} />}
-          <Line dataKey="frequency" stroke="#0f6b63" strokeWidth={2.5} dot={false} isAnimationActive={false} name={`${firstDie} wins (relative frequency)`} connectNulls />
-          {!size && <Tooltip formatter={(value) => (Array.isArray(value) ? value.map((entry) => three(Number(entry))).join(" to ") : three(Number(value)))} labelFormatter={(label) => `after ${label} rolls`} />}
+          <Line
+            dataKey="frequency"
+            stroke="#0f6b63"
+            strokeWidth={2.5}
+            dot={false}
+            isAnimationActive={false}
+            name={`${firstDie} wins (relative frequency)`}
+            connectNulls
+          />
+          {!size && (
+            <Tooltip
+              formatter={(value) => (Array.isArray(value) ? value.map((entry) => three(Number(entry))).join(" to ") : three(Number(value)))}
+              labelFormatter={(label) => `after ${label} rolls`}
+            />
+          )}
         </ComposedChart>
       </div>
       <figcaption className="mt-2 text-sm text-ink-soft">
@@ -61,8 +92,8 @@ export function ConvergenceChart({
         </span>
         {matchup.countedRolls > 0 && (
           <span className="mt-1 block" data-testid="counted-rolls-note">
-            {matchup.countedRolls} of the {matchup.rolls} rolls were entered as win/tie/loss counts: they are in the table and the interval, but have no order, so the chart
-            shows only the {matchup.rolls - matchup.countedRolls} recorded one by one.
+            {matchup.countedRolls} of the {matchup.rolls} rolls were entered as win/tie/loss counts: they are in the table and the interval,
+            but have no order, so the chart shows only the {matchup.rolls - matchup.countedRolls} recorded one by one.
           </span>
         )}
       </figcaption>

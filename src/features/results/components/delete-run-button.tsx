@@ -24,13 +24,16 @@ export function DeleteRunButton({ runId, title, rolls, groups }: { runId: string
         onConfirm={() =>
           remove.mutate(runId, {
             onSuccess: (deleted) =>
-              navigate("/app/results", { replace: true, state: { notice: `Deleted “${title}”: ${plural(deleted.rolls, "roll")} and ${plural(deleted.groups, "group")}.` } }),
+              navigate("/app/results", {
+                replace: true,
+                state: { notice: `Deleted “${title}”: ${plural(deleted.rolls, "roll")} and ${plural(deleted.groups, "group")}.` },
+              }),
           })
         }
       >
         <p>
-          “{title}” will be deleted for good with its {plural(rolls, "roll")}, its {plural(groups, "group")} and their nicknames, its Guess votes and its
-          Paper imports. Download the exports first if you want to keep the figures.
+          “{title}” will be deleted for good with its {plural(rolls, "roll")}, its {plural(groups, "group")} and their nicknames, its Guess
+          votes and its Paper imports. Download the exports first if you want to keep the figures.
         </p>
         {remove.error && <p className="mt-2 font-bold text-alarm">{remove.error.message}</p>}
       </ConfirmDialog>

@@ -17,8 +17,9 @@ export function ExportDownloads({ runId, includeSimulated }: { runId: string; in
         </AnchorButton>
       </div>
       <p className="mt-2 text-sm text-ink-soft">
-        The rolls file has one row per roll: time, group nickname, matchup, dice per player, each face rolled, outcome and whether it was simulated.
-        The summary has, per matchup and per group, the counts, the relative frequency, the exact probability and its Wilson 95% interval.
+        The rolls file has one row per roll: time, group nickname, matchup, dice per player, each face rolled, outcome and whether it was
+        simulated. The summary has, per matchup and per group, the counts, the relative frequency, the exact probability and its Wilson 95%
+        interval.
         {includeSimulated ? " Simulated rolls are included." : " Simulated rolls are left out."}
       </p>
     </div>

@@ -13,7 +13,11 @@ export function GuessVotes({ votes, dice }: { votes: GuessVoteCount[]; dice: Res
         {votes.map((vote) => (
           <li key={vote.dieIndex} className="grid grid-cols-[minmax(6rem,10rem)_1fr_auto] items-center gap-2">
             <span className="inline-flex items-center gap-1 font-bold">
-              <DieSwatch colour={dice[vote.dieIndex]?.colour ?? "slate"} pattern={dice[vote.dieIndex]?.pattern ?? "waves"} className="h-4 w-4" />
+              <DieSwatch
+                colour={dice[vote.dieIndex]?.colour ?? "slate"}
+                pattern={dice[vote.dieIndex]?.pattern ?? "waves"}
+                className="h-4 w-4"
+              />
               {vote.dieName}
             </span>
             <span className="h-4 rounded bg-sand" aria-hidden="true">
@@ -24,7 +28,8 @@ export function GuessVotes({ votes, dice }: { votes: GuessVoteCount[]; dice: Res
         ))}
       </ul>
       <p className="mt-2 text-sm text-ink-soft">
-        {plural(total, "group")} voted for the die they thought best. In a set that goes round in a circle, every die has another that beats it.
+        {plural(total, "group")} voted for the die they thought best. In a set that goes round in a circle, every die has another that beats
+        it.
       </p>
     </div>
   );

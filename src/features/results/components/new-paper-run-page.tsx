@@ -17,11 +17,16 @@ export function NewPaperRunPage() {
   const navigate = useNavigate();
   const lessons = usePaperRunLessons();
   const create = useCreatePaperRun();
-  const { register, handleSubmit, formState, watch } = useForm<PaperRunInput>({ resolver: zodResolver(paperRunInputSchema), defaultValues: { lessonId: "" } });
+  const { register, handleSubmit, formState, watch } = useForm<PaperRunInput>({
+    resolver: zodResolver(paperRunInputSchema),
+    defaultValues: { lessonId: "" },
+  });
   const chosen = lessons.data?.lessons.find((lesson) => lesson.id === watch("lessonId"));
   // Which button sent the form: the tally grid (type the sheets in) or Paper import (upload a CSV file).
   const next = useRef<"tally-grid" | "paper-import">("tally-grid");
-  const submit = handleSubmit((values) => create.mutate(values, { onSuccess: (run) => navigate(`/app/results/${run.id}/${next.current}`) }));
+  const submit = handleSubmit((values) =>
+    create.mutate(values, { onSuccess: (run) => navigate(`/app/results/${run.id}/${next.current}`) }),
+  );
 
   return (
     <>
@@ -46,7 +51,12 @@ export function NewPaperRunPage() {
         </Alert>
       )}
       {lessons.data && lessons.data.lessons.length > 0 && (
-        <form onSubmit={submit} noValidate className="flex max-w-xl flex-col gap-4 rounded-2xl border-2 border-line bg-shell p-4" aria-label="New paper run">
+        <form
+          onSubmit={submit}
+          noValidate
+          className="flex max-w-xl flex-col gap-4 rounded-2xl border-2 border-line bg-shell p-4"
+          aria-label="New paper run"
+        >
           {create.error && (
             <Alert tone="error" title="The run was not made">
               {create.error.message}
@@ -68,7 +78,11 @@ export function NewPaperRunPage() {
           {chosen?.ready && <p className="text-ink-soft">Dice set: {chosen.diceSetName}</p>}
           <TextField
             label="Class"
-            hint={chosen?.classGroup ? `Leave empty for the lesson's class, ${chosen.classGroup}; type another to record a second class under its own name.` : "The class that was taught, e.g. 9M."}
+            hint={
+              chosen?.classGroup
+                ? `Leave empty for the lesson's class, ${chosen.classGroup}; type another to record a second class under its own name.`
+                : "The class that was taught, e.g. 9M."
+            }
             maxLength={40}
             {...register("classGroup", { setValueAs: (value: string) => (value.trim() === "" ? undefined : value) })}
             error={formState.errors.classGroup?.message}
@@ -81,10 +95,21 @@ export function NewPaperRunPage() {
             error={formState.errors.taughtOn?.message}
           />
           <div className="flex flex-wrap gap-3">
-            <Button type="submit" busy={create.isPending} disabled={chosen !== undefined && !chosen.ready} onClick={() => (next.current = "tally-grid")}>
+            <Button
+              type="submit"
+              busy={create.isPending}
+              disabled={chosen !== undefined && !chosen.ready}
+              onClick={() => (next.current = "tally-grid")}
+            >
               Make the run and open the tally grid
             </Button>
-            <Button type="submit" variant="secondary" busy={create.isPending} disabled={chosen !== undefined && !chosen.ready} onClick={() => (next.current = "paper-import")}>
+            <Button
+              type="submit"
+              variant="secondary"
+              busy={create.isPending}
+              disabled={chosen !== undefined && !chosen.ready}
+              onClick={() => (next.current = "paper-import")}
+            >
               Make the run and go to Paper import
             </Button>
           </div>

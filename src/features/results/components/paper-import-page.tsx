@@ -61,7 +61,10 @@ export function PaperImportPage({ runId }: { runId: string }) {
   if (results.isError || !run || !mode) {
     return (
       <Alert tone="error" title="This run could not be loaded">
-        {results.error?.message} <Link to="/app/results" className="font-bold underline">Back to Results</Link>
+        {results.error?.message}{" "}
+        <Link to="/app/results" className="font-bold underline">
+          Back to Results
+        </Link>
       </Alert>
     );
   }
@@ -98,13 +101,18 @@ export function PaperImportPage({ runId }: { runId: string }) {
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="min-w-0">
-          <form onSubmit={check} className="mb-6 flex flex-col gap-4 rounded-2xl border-2 border-line bg-shell p-4" aria-label="Paper import file">
+          <form
+            onSubmit={check}
+            className="mb-6 flex flex-col gap-4 rounded-2xl border-2 border-line bg-shell p-4"
+            aria-label="Paper import file"
+          >
             <div className="flex flex-col gap-1">
               <label htmlFor="paper-import-file" className="font-bold">
                 CSV file typed up from the recording sheets
               </label>
               <p id="paper-import-file-hint" className="text-sm text-ink-soft">
-                One row per roll, with a header row naming the columns. Up to {PAPER_IMPORT_MAX_BYTES / 1024} KB. In a spreadsheet, choose “Save as” → “CSV UTF-8”.
+                One row per roll, with a header row naming the columns. Up to {PAPER_IMPORT_MAX_BYTES / 1024} KB. In a spreadsheet, choose
+                “Save as” → “CSV UTF-8”.
               </p>
               <input
                 key={fileKey}
@@ -118,7 +126,11 @@ export function PaperImportPage({ runId }: { runId: string }) {
                   reset();
                 }}
               />
-              {tooLarge && <p className="text-sm font-bold text-alarm">This file is larger than {PAPER_IMPORT_MAX_BYTES / 1024} KB; split the rolls into several files.</p>}
+              {tooLarge && (
+                <p className="text-sm font-bold text-alarm">
+                  This file is larger than {PAPER_IMPORT_MAX_BYTES / 1024} KB; split the rolls into several files.
+                </p>
+              )}
             </div>
             {run.tallies.length > 1 && (
               <ChoiceGroup<string>
@@ -216,7 +228,11 @@ export function PaperImportPage({ runId }: { runId: string }) {
           <h3 className="mb-1 text-lg">An example for this run</h3>
           <pre className="mb-2 overflow-x-auto rounded-xl bg-ink p-3 text-sm text-sand">{example}</pre>
           {templateUrl && (
-            <a href={templateUrl} download={`paper-import-${run.classGroup || "run"}.csv`} className="font-bold text-tide-dark underline underline-offset-2">
+            <a
+              href={templateUrl}
+              download={`paper-import-${run.classGroup || "run"}.csv`}
+              className="font-bold text-tide-dark underline underline-offset-2"
+            >
               ⤓ Download this example as a CSV to fill in
             </a>
           )}
@@ -252,9 +268,11 @@ function PreviewPanel({ result, busy, onImport }: { result: PaperImportResult; b
       ) : (
         <Alert tone="info" title={`All ${plural(result.rows.length, "row")} are fine`}>
           {plural(result.newRows, "roll")} will be added
-          {result.duplicateRows > 0 && `; ${plural(result.duplicateRows, "row")} ${result.duplicateRows === 1 ? "is" : "are"} already stored and will be left as ${result.duplicateRows === 1 ? "it is" : "they are"}`}.
-          {result.newGroups.length > 0 && ` New groups: ${result.newGroups.join(", ")}.`}
-          {result.alreadyImportedAt && ` This exact file was imported on ${dayText(result.alreadyImportedAt)}; importing it again adds nothing.`}
+          {result.duplicateRows > 0 &&
+            `; ${plural(result.duplicateRows, "row")} ${result.duplicateRows === 1 ? "is" : "are"} already stored and will be left as ${result.duplicateRows === 1 ? "it is" : "they are"}`}
+          .{result.newGroups.length > 0 && ` New groups: ${result.newGroups.join(", ")}.`}
+          {result.alreadyImportedAt &&
+            ` This exact file was imported on ${dayText(result.alreadyImportedAt)}; importing it again adds nothing.`}
         </Alert>
       )}
       {bad === 0 && (
@@ -272,12 +290,24 @@ function PreviewPanel({ result, busy, onImport }: { result: PaperImportResult; b
             </caption>
             <thead>
               <tr className="border-b-2 border-line">
-                <th scope="col" className="px-3 py-2">Row</th>
-                <th scope="col" className="px-3 py-2">Group</th>
-                <th scope="col" className="px-3 py-2">Roll</th>
-                <th scope="col" className="px-3 py-2">Dice and faces</th>
-                <th scope="col" className="px-3 py-2">Winner</th>
-                <th scope="col" className="px-3 py-2">Status</th>
+                <th scope="col" className="px-3 py-2">
+                  Row
+                </th>
+                <th scope="col" className="px-3 py-2">
+                  Group
+                </th>
+                <th scope="col" className="px-3 py-2">
+                  Roll
+                </th>
+                <th scope="col" className="px-3 py-2">
+                  Dice and faces
+                </th>
+                <th scope="col" className="px-3 py-2">
+                  Winner
+                </th>
+                <th scope="col" className="px-3 py-2">
+                  Status
+                </th>
               </tr>
             </thead>
             <tbody>

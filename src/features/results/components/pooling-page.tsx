@@ -57,7 +57,13 @@ export function PoolingPage({ canSeeDepartment }: { canSeeDepartment: boolean })
 
   const data = pooled.data;
   const matchups = data?.pooled.matchups ?? [];
-  const chartKey = chosenKey && matchups.some((entry) => entry.key === chosenKey) ? chosenKey : matchups.reduce<string | null>((best, entry) => (best === null || entry.rolls > (matchups.find((m) => m.key === best)?.rolls ?? 0) ? entry.key : best), null);
+  const chartKey =
+    chosenKey && matchups.some((entry) => entry.key === chosenKey)
+      ? chosenKey
+      : matchups.reduce<string | null>(
+          (best, entry) => (best === null || entry.rolls > (matchups.find((m) => m.key === best)?.rolls ?? 0) ? entry.key : best),
+          null,
+        );
   const chartMatchup = matchups.find((entry) => entry.key === chartKey) ?? null;
 
   return (
@@ -88,7 +94,11 @@ export function PoolingPage({ canSeeDepartment }: { canSeeDepartment: boolean })
           label="Dice set"
           value={setKey ?? ""}
           onChange={(event) => update({ setKey: event.target.value, runIds: null })}
-          options={sets.length > 0 ? sets.map((entry) => ({ value: entry.setKey, label: `${entry.label}: ${plural(entry.runs.length, "run")}` })) : [{ value: "", label: "No closed runs yet" }]}
+          options={
+            sets.length > 0
+              ? sets.map((entry) => ({ value: entry.setKey, label: `${entry.label}: ${plural(entry.runs.length, "run")}` }))
+              : [{ value: "", label: "No closed runs yet" }]
+          }
         />
         <ChoiceGroup<"1" | "2">
           legend="Mode"
@@ -106,11 +116,17 @@ export function PoolingPage({ canSeeDepartment }: { canSeeDepartment: boolean })
               {ofSet.map((run) => (
                 <li key={run.id}>
                   <label className="flex min-h-11 items-start gap-2">
-                    <input type="checkbox" className="mt-1 h-5 w-5 accent-tide" checked={selected.includes(run.id)} onChange={(event) => toggleRun(run.id, event.target.checked)} />
+                    <input
+                      type="checkbox"
+                      className="mt-1 h-5 w-5 accent-tide"
+                      checked={selected.includes(run.id)}
+                      onChange={(event) => toggleRun(run.id, event.target.checked)}
+                    />
                     <span>
                       <span className="font-bold">{run.classGroup || "No class"}</span> · {run.title}
                       <span className="block text-sm text-ink-soft">
-                        {dayText(run.taughtAt)} · {plural(run.rollCount, "roll")} · {runModeText(run)}, {tieRuleText(run.tieRule).toLowerCase()}
+                        {dayText(run.taughtAt)} · {plural(run.rollCount, "roll")} · {runModeText(run)},{" "}
+                        {tieRuleText(run.tieRule).toLowerCase()}
                         {scope === "department" && ` · ${run.ownerName}`}
                       </span>
                     </span>
@@ -121,13 +137,22 @@ export function PoolingPage({ canSeeDepartment }: { canSeeDepartment: boolean })
           </fieldset>
         )}
         <label className="flex min-h-11 items-center gap-2 font-bold lg:col-span-2">
-          <input type="checkbox" className="h-5 w-5 accent-tide" checked={includeSimulated} onChange={(event) => setIncludeSimulated(event.target.checked)} />
+          <input
+            type="checkbox"
+            className="h-5 w-5 accent-tide"
+            checked={includeSimulated}
+            onChange={(event) => setIncludeSimulated(event.target.checked)}
+          />
           Include simulated rolls
         </label>
       </section>
 
       {runs.isPending && <p role="status">Loading the closed runs…</p>}
-      {runs.isError && <Alert tone="error" title="The closed runs could not be loaded">{runs.error.message}</Alert>}
+      {runs.isError && (
+        <Alert tone="error" title="The closed runs could not be loaded">
+          {runs.error.message}
+        </Alert>
+      )}
       {selected.length === 0 && ofSet.length > 0 && <Alert tone="info">Tick at least one run to pool.</Alert>}
       {pooled.isError && (
         <Alert tone="error" title="These runs cannot be pooled">
@@ -137,15 +162,19 @@ export function PoolingPage({ canSeeDepartment }: { canSeeDepartment: boolean })
       {data && selected.length > 0 && (
         <>
           <p className="mb-4 text-lg" role="status" aria-live="polite">
-            {plural(data.pooled.totals.rolls, "roll")} from {plural(data.contributions.length, "run")}: {modeLabel(data.dicePerPlayer)}, {playersText(data.players)},{" "}
-            {tieRuleText(data.tieRule).toLowerCase()}.
+            {plural(data.pooled.totals.rolls, "roll")} from {plural(data.contributions.length, "run")}: {modeLabel(data.dicePerPlayer)},{" "}
+            {playersText(data.players)}, {tieRuleText(data.tieRule).toLowerCase()}.
           </p>
           <section className="mb-8" aria-labelledby="pooled-table">
             <h2 id="pooled-table" className="mb-3 text-2xl">
               Pooled results beside the exact values
             </h2>
             {matchups.length > 0 ? (
-              <PooledTable matchups={matchups} dice={data.dice} caption="Dice are named as in the earliest run; runs that named them differently are matched by their faces." />
+              <PooledTable
+                matchups={matchups}
+                dice={data.dice}
+                caption="Dice are named as in the earliest run; runs that named them differently are matched by their faces."
+              />
             ) : (
               <p className="text-ink-soft">These runs have no rolls {modeLabel(data.dicePerPlayer)}.</p>
             )}
@@ -175,16 +204,22 @@ export function PoolingPage({ canSeeDepartment }: { canSeeDepartment: boolean })
             </h2>
             <div className="overflow-x-auto rounded-2xl border-2 border-line bg-shell">
               <table className="w-full border-collapse text-left">
-                <caption className="px-3 pt-3 text-left text-sm text-ink-soft">Rolls and class estimate of each run, per matchup; the last row is the pool.</caption>
+                <caption className="px-3 pt-3 text-left text-sm text-ink-soft">
+                  Rolls and class estimate of each run, per matchup; the last row is the pool.
+                </caption>
                 <thead>
                   <tr className="border-b-2 border-line text-sm">
-                    <th scope="col" className="px-3 py-2">Run</th>
+                    <th scope="col" className="px-3 py-2">
+                      Run
+                    </th>
                     {matchups.map((entry) => (
                       <th key={entry.key} scope="col" className="px-3 py-2 text-right">
                         {entry.label}
                       </th>
                     ))}
-                    <th scope="col" className="px-3 py-2 text-right">Share of the pool</th>
+                    <th scope="col" className="px-3 py-2 text-right">
+                      Share of the pool
+                    </th>
                   </tr>
                 </thead>
                 <tbody>

@@ -43,9 +43,7 @@ const columns = helper.columns([
     cell: (info) => (
       <span>
         {info.getValue()}
-        <span className="block text-sm text-ink-soft">
-          {runModeText(info.row.original)}
-        </span>
+        <span className="block text-sm text-ink-soft">{runModeText(info.row.original)}</span>
       </span>
     ),
   }),
@@ -65,7 +63,9 @@ const columns = helper.columns([
     cell: (info) => (
       <span>
         {formatNumber(info.getValue())}
-        {info.row.original.simulatedRollCount > 0 && <span className="block text-sm text-ink-soft">{info.row.original.simulatedRollCount} simulated</span>}
+        {info.row.original.simulatedRollCount > 0 && (
+          <span className="block text-sm text-ink-soft">{info.row.original.simulatedRollCount} simulated</span>
+        )}
       </span>
     ),
   }),
@@ -77,10 +77,20 @@ const columns = helper.columns([
     header: "Open",
     cell: (info) => (
       <div className="flex flex-col items-start gap-1 sm:flex-row sm:flex-wrap">
-        <LinkButton to={`/app/results/${info.row.original.id}`} variant="secondary" className="min-h-9 px-3 py-1 text-sm" aria-label={`Results of ${info.row.original.title}`}>
+        <LinkButton
+          to={`/app/results/${info.row.original.id}`}
+          variant="secondary"
+          className="min-h-9 px-3 py-1 text-sm"
+          aria-label={`Results of ${info.row.original.title}`}
+        >
           Results
         </LinkButton>
-        <LinkButton to={`/app/results/${info.row.original.id}/report`} variant="quiet" className="min-h-9 px-3 py-1 text-sm" aria-label={`Class report of ${info.row.original.title}`}>
+        <LinkButton
+          to={`/app/results/${info.row.original.id}/report`}
+          variant="quiet"
+          className="min-h-9 px-3 py-1 text-sm"
+          aria-label={`Class report of ${info.row.original.title}`}
+        >
           Report
         </LinkButton>
       </div>
@@ -116,8 +126,14 @@ export function ResultsArchive({ canSeeDepartment }: { canSeeDepartment: boolean
     getColumnCanGlobalFilter: (column) => ["title", "classGroup", "diceSetName"].includes(column.id),
   });
 
-  const setOptions = useMemo(() => [...new Set(data.map((run) => run.diceSetName))].sort().map((value) => ({ value, label: value })), [data]);
-  const classOptions = useMemo(() => [...new Set(data.map((run) => run.classGroup))].sort().map((value) => ({ value, label: value || "No class" })), [data]);
+  const setOptions = useMemo(
+    () => [...new Set(data.map((run) => run.diceSetName))].sort().map((value) => ({ value, label: value })),
+    [data],
+  );
+  const classOptions = useMemo(
+    () => [...new Set(data.map((run) => run.classGroup))].sort().map((value) => ({ value, label: value || "No class" })),
+    [data],
+  );
   const filterValue = (id: string) => (columnFilters.find((filter) => filter.id === id)?.value as string | undefined) ?? "";
   const setFilter = (id: string, value: unknown) => table.getColumn(id)?.setFilterValue(value === "" ? undefined : value);
   const setDates = (next: { from: string; to: string }) => {
@@ -126,7 +142,13 @@ export function ResultsArchive({ canSeeDepartment }: { canSeeDepartment: boolean
   };
   const rows = table.getRowModel().rows;
   const hidden = (id: string) =>
-    id === "ownerName" && scope === "mine" ? "hidden" : wideOnly.has(id) ? "hidden lg:table-cell" : tabletUp.has(id) ? "hidden sm:table-cell" : "";
+    id === "ownerName" && scope === "mine"
+      ? "hidden"
+      : wideOnly.has(id)
+        ? "hidden lg:table-cell"
+        : tabletUp.has(id)
+          ? "hidden sm:table-cell"
+          : "";
 
   return (
     <>
@@ -149,7 +171,10 @@ export function ResultsArchive({ canSeeDepartment }: { canSeeDepartment: boolean
           <Alert tone="info">{notice}</Alert>
         </div>
       )}
-      <section aria-label="Search and filters" className="mb-4 grid grid-cols-2 gap-3 rounded-2xl border-2 border-line bg-shell p-4 lg:grid-cols-6">
+      <section
+        aria-label="Search and filters"
+        className="mb-4 grid grid-cols-2 gap-3 rounded-2xl border-2 border-line bg-shell p-4 lg:grid-cols-6"
+      >
         {canSeeDepartment && (
           <ChoiceGroup<ResultsScope>
             legend="Whose runs"
@@ -162,10 +187,34 @@ export function ResultsArchive({ canSeeDepartment }: { canSeeDepartment: boolean
             className="col-span-2 lg:col-span-6"
           />
         )}
-        <TextField label="Search" type="search" placeholder="Lesson, set or class" value={globalFilter} onChange={(event) => setGlobalFilter(event.target.value)} className="col-span-2" />
-        <SelectField className="col-span-2 sm:col-span-1" label="Dice set" value={filterValue("diceSetName")} onChange={(event) => setFilter("diceSetName", event.target.value)} options={[{ value: "", label: "Any set" }, ...setOptions]} />
-        <SelectField className="col-span-2 sm:col-span-1" label="Class" value={filterValue("classGroup")} onChange={(event) => setFilter("classGroup", event.target.value)} options={[{ value: "", label: "Any class" }, ...classOptions]} />
-        <TextField label="Taught from" type="date" value={range.from} onChange={(event) => setDates({ ...range, from: event.target.value })} />
+        <TextField
+          label="Search"
+          type="search"
+          placeholder="Lesson, set or class"
+          value={globalFilter}
+          onChange={(event) => setGlobalFilter(event.target.value)}
+          className="col-span-2"
+        />
+        <SelectField
+          className="col-span-2 sm:col-span-1"
+          label="Dice set"
+          value={filterValue("diceSetName")}
+          onChange={(event) => setFilter("diceSetName", event.target.value)}
+          options={[{ value: "", label: "Any set" }, ...setOptions]}
+        />
+        <SelectField
+          className="col-span-2 sm:col-span-1"
+          label="Class"
+          value={filterValue("classGroup")}
+          onChange={(event) => setFilter("classGroup", event.target.value)}
+          options={[{ value: "", label: "Any class" }, ...classOptions]}
+        />
+        <TextField
+          label="Taught from"
+          type="date"
+          value={range.from}
+          onChange={(event) => setDates({ ...range, from: event.target.value })}
+        />
         <TextField label="Taught until" type="date" value={range.to} onChange={(event) => setDates({ ...range, to: event.target.value })} />
       </section>
 

@@ -45,7 +45,10 @@ export function RunResultsPage({ runId }: { runId: string }) {
   if (results.isError) {
     return (
       <Alert tone="error" title="This run's results could not be loaded">
-        {results.error.message} <Link to="/app/results" className="font-bold underline">Back to Results</Link>
+        {results.error.message}{" "}
+        <Link to="/app/results" className="font-bold underline">
+          Back to Results
+        </Link>
       </Alert>
     );
   }
@@ -65,8 +68,8 @@ export function RunResultsPage({ runId }: { runId: string }) {
         title={run.title}
         lead={
           <>
-            {run.diceSetName} · {run.classGroup ? `class ${run.classGroup}` : "no class"} · taught {dayText(run.taughtAt)} · {runModeText(run)} ·{" "}
-            {tieRuleText(run.tieRule).toLowerCase()}
+            {run.diceSetName} · {run.classGroup ? `class ${run.classGroup}` : "no class"} · taught {dayText(run.taughtAt)} ·{" "}
+            {runModeText(run)} · {tieRuleText(run.tieRule).toLowerCase()}
             {!run.isOwner && <> · run by {run.ownerName}</>}
           </>
         }
@@ -75,7 +78,10 @@ export function RunResultsPage({ runId }: { runId: string }) {
             <LinkButton to={`/app/results/${run.id}/report${includeSimulated ? "" : "?includeSimulated=false"}`} variant="primary">
               Class report
             </LinkButton>
-            <LinkButton to={`/app/results/pooled?setKey=${run.setKey}&dicePerPlayer=${run.dicePerPlayer}${run.isOwner ? "" : "&scope=department"}`} variant="secondary">
+            <LinkButton
+              to={`/app/results/pooled?setKey=${run.setKey}&dicePerPlayer=${run.dicePerPlayer}${run.isOwner ? "" : "&scope=department"}`}
+              variant="secondary"
+            >
               Pool with other runs
             </LinkButton>
             {run.isOwner && (
@@ -100,7 +106,12 @@ export function RunResultsPage({ runId }: { runId: string }) {
       )}
 
       <label className="mb-4 flex min-h-11 items-center gap-2 font-bold">
-        <input type="checkbox" className="h-5 w-5 accent-tide" checked={includeSimulated} onChange={(event) => setIncludeSimulated(event.target.checked)} />
+        <input
+          type="checkbox"
+          className="h-5 w-5 accent-tide"
+          checked={includeSimulated}
+          onChange={(event) => setIncludeSimulated(event.target.checked)}
+        />
         Include simulated rolls (the virtual class) in the figures and downloads
       </label>
 
@@ -165,7 +176,12 @@ export function RunResultsPage({ runId }: { runId: string }) {
         <GroupTable groups={pooled.groups} dice={run.dice} />
         {groups.some((group) => group.rolls === 0) && (
           <p className="mt-2 text-sm text-ink-soft">
-            Groups without rolls that count: {groups.filter((group) => group.rolls === 0).map((group) => group.nickname).join(", ")}.
+            Groups without rolls that count:{" "}
+            {groups
+              .filter((group) => group.rolls === 0)
+              .map((group) => group.nickname)
+              .join(", ")}
+            .
           </p>
         )}
       </Section>

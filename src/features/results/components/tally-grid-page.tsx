@@ -61,7 +61,10 @@ export function TallyGridPage({ runId }: { runId: string }) {
   if (grid.isError) {
     return (
       <Alert tone="error" title="This run could not be loaded">
-        {grid.error.message} <Link to="/app/results" className="font-bold underline">Back to Results</Link>
+        {grid.error.message}{" "}
+        <Link to="/app/results" className="font-bold underline">
+          Back to Results
+        </Link>
       </Alert>
     );
   }
@@ -131,7 +134,8 @@ function GroupNames({ id, grid }: { id: string; grid: TallyGrid }) {
   );
 }
 
-const isKnownGroup = (grid: TallyGrid, nickname: string) => grid.groups.some((group) => group.nickname.trim().toLowerCase() === nickname.trim().toLowerCase());
+const isKnownGroup = (grid: TallyGrid, nickname: string) =>
+  grid.groups.some((group) => group.nickname.trim().toLowerCase() === nickname.trim().toLowerCase());
 
 /** One group's sheet, typed roll by roll: its dice, then one line per roll with the faces each player rolled. */
 function RollsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
@@ -140,7 +144,9 @@ function RollsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
   const listId = useId();
   const [nickname, setNickname] = useState("");
   const [dice, setDice] = useState<string[]>(() => Array.from({ length: tally.players }, (_, seat) => names[seat % names.length]));
-  const [rows, setRows] = useState<string[][]>(() => Array.from({ length: grid.plannedRolls ?? DEFAULT_ROWS }, () => Array.from({ length: tally.players }, () => "")));
+  const [rows, setRows] = useState<string[][]>(() =>
+    Array.from({ length: grid.plannedRolls ?? DEFAULT_ROWS }, () => Array.from({ length: tally.players }, () => "")),
+  );
   const [createGroup, setCreateGroup] = useState(false);
   const known = isKnownGroup(grid, nickname);
   const filled = rows.map((faces, index) => ({ faces, roll: index + 1 })).filter((row) => row.faces.some((cell) => cell.trim() !== ""));
@@ -168,13 +174,22 @@ function RollsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
   };
   const setCell = (rowIndex: number, seat: number, value: string) => {
     save.reset();
-    setRows((current) => current.map((faces, index) => (index === rowIndex ? faces.map((cell, position) => (position === seat ? value : cell)) : faces)));
+    setRows((current) =>
+      current.map((faces, index) => (index === rowIndex ? faces.map((cell, position) => (position === seat ? value : cell)) : faces)),
+    );
   };
 
   return (
     <form onSubmit={submit} className="flex flex-col gap-4" aria-label="Rolls of one group">
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-        <TextField label="Group nickname" list={listId} value={nickname} maxLength={24} onChange={(event) => setNickname(event.target.value)} hint="As written at the top of the sheet." />
+        <TextField
+          label="Group nickname"
+          list={listId}
+          value={nickname}
+          maxLength={24}
+          onChange={(event) => setNickname(event.target.value)}
+          hint="As written at the top of the sheet."
+        />
         <GroupNames id={listId} grid={grid} />
         {dice.map((die, seat) => (
           <SelectField
@@ -188,12 +203,18 @@ function RollsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
       </div>
       {nickname.trim() !== "" && !known && (
         <label className="flex min-h-11 items-center gap-2">
-          <input type="checkbox" className="h-5 w-5 accent-tide" checked={createGroup} onChange={(event) => setCreateGroup(event.target.checked)} />
+          <input
+            type="checkbox"
+            className="h-5 w-5 accent-tide"
+            checked={createGroup}
+            onChange={(event) => setCreateGroup(event.target.checked)}
+          />
           “{nickname.trim()}” is a new group in this run: create it
         </label>
       )}
       <p className="text-sm text-ink-soft">
-        For each roll, type {facesHint} for each player. Leave the lines of rolls not made empty. {grid.plannedRolls !== null && `The lesson planned ${grid.plannedRolls} rolls per group.`}
+        For each roll, type {facesHint} for each player. Leave the lines of rolls not made empty.{" "}
+        {grid.plannedRolls !== null && `The lesson planned ${grid.plannedRolls} rolls per group.`}
       </p>
       <div className="max-w-full overflow-x-auto rounded-xl border-2 border-line bg-shell" role="region" aria-label="Rolls" tabIndex={0}>
         <table className="w-full border-collapse text-left" data-testid="tally-rolls">
@@ -246,7 +267,13 @@ function RollsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
         <Button type="submit" busy={save.isPending} disabled={!grid.run.isOwner || nickname.trim() === "" || filled.length === 0}>
           Save {plural(filled.length, "roll")}
         </Button>
-        <Button type="button" variant="secondary" onClick={() => setRows((current) => [...current, ...Array.from({ length: 5 }, () => Array.from({ length: tally.players }, () => ""))])}>
+        <Button
+          type="button"
+          variant="secondary"
+          onClick={() =>
+            setRows((current) => [...current, ...Array.from({ length: 5 }, () => Array.from({ length: tally.players }, () => ""))])
+          }
+        >
           Add 5 lines
         </Button>
       </div>
@@ -266,7 +293,14 @@ function RollsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
 type CountLine = { group: string; first: string; second: string; firstWins: string; ties: string; secondWins: string };
 
 function lineOf(stored: StoredTallyCount): CountLine {
-  return { group: stored.group, first: stored.dice[0], second: stored.dice[1], firstWins: String(stored.firstWins), ties: String(stored.ties), secondWins: String(stored.secondWins) };
+  return {
+    group: stored.group,
+    first: stored.dice[0],
+    second: stored.dice[1],
+    firstWins: String(stored.firstWins),
+    ties: String(stored.ties),
+    secondWins: String(stored.secondWins),
+  };
 }
 
 /** A whole number from 0 typed into a count cell; empty counts as 0; null while it is anything else. */
@@ -325,8 +359,9 @@ function CountsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
   return (
     <form onSubmit={submit} className="flex flex-col gap-4" aria-label="Counts of each group">
       <p className="text-ink-soft">
-        For a quick lesson where groups only kept a tally: one line per group and matchup. Counts go into every total, frequency and interval, but they have no order, so they add
-        nothing to the convergence chart and have no lines in the rolls download; the summary download marks them. Saving replaces this part of the lesson's counts.
+        For a quick lesson where groups only kept a tally: one line per group and matchup. Counts go into every total, frequency and
+        interval, but they have no order, so they add nothing to the convergence chart and have no lines in the rolls download; the summary
+        download marks them. Saving replaces this part of the lesson's counts.
       </p>
       <GroupNames id={listId} grid={grid} />
       <ol className="flex flex-col gap-2" data-testid="tally-counts">
@@ -341,11 +376,30 @@ function CountsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
             </label>
           );
           return (
-            <li key={index} className="grid grid-cols-2 items-end gap-2 rounded-xl border-2 border-line bg-shell p-2 sm:grid-cols-[minmax(8rem,2fr)_repeat(2,minmax(6rem,1.5fr))_repeat(3,minmax(4rem,1fr))_auto]">
-              {cell("Group", <input className={cellInput} list={listId} maxLength={24} aria-label={`${label}: group`} value={line.group} onChange={(event) => update(index, { group: event.target.value })} />, true)}
+            <li
+              key={index}
+              className="grid grid-cols-2 items-end gap-2 rounded-xl border-2 border-line bg-shell p-2 sm:grid-cols-[minmax(8rem,2fr)_repeat(2,minmax(6rem,1.5fr))_repeat(3,minmax(4rem,1fr))_auto]"
+            >
+              {cell(
+                "Group",
+                <input
+                  className={cellInput}
+                  list={listId}
+                  maxLength={24}
+                  aria-label={`${label}: group`}
+                  value={line.group}
+                  onChange={(event) => update(index, { group: event.target.value })}
+                />,
+                true,
+              )}
               {cell(
                 "Die",
-                <select className={cellInput} aria-label={`${label}: die`} value={line.first} onChange={(event) => update(index, { first: event.target.value })}>
+                <select
+                  className={cellInput}
+                  aria-label={`${label}: die`}
+                  value={line.first}
+                  onChange={(event) => update(index, { first: event.target.value })}
+                >
                   {dieOptions.map((option) => (
                     <option key={option.value} value={option.value}>
                       {option.label}
@@ -355,7 +409,12 @@ function CountsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
               )}
               {cell(
                 "Against",
-                <select className={cellInput} aria-label={`${label}: against`} value={line.second} onChange={(event) => update(index, { second: event.target.value })}>
+                <select
+                  className={cellInput}
+                  aria-label={`${label}: against`}
+                  value={line.second}
+                  onChange={(event) => update(index, { second: event.target.value })}
+                >
                   {dieOptions.map((option) => (
                     <option key={option.value} value={option.value}>
                       {option.label}
@@ -380,7 +439,12 @@ function CountsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
                   </span>
                 );
               })}
-              <Button type="button" variant="quiet" aria-label={`Remove line ${index + 1}`} onClick={() => setLines((current) => current.filter((_, position) => position !== index))}>
+              <Button
+                type="button"
+                variant="quiet"
+                aria-label={`Remove line ${index + 1}`}
+                onClick={() => setLines((current) => current.filter((_, position) => position !== index))}
+              >
                 ✕
               </Button>
             </li>
@@ -390,7 +454,12 @@ function CountsGrid({ grid, tally }: { grid: TallyGrid; tally: ResultsTally }) {
       {badCell && <p className="font-bold text-alarm">Counts are whole numbers from 0; fix the boxes marked red.</p>}
       {newGroups.length > 0 && (
         <label className="flex min-h-11 items-center gap-2">
-          <input type="checkbox" className="h-5 w-5 accent-tide" checked={createGroups} onChange={(event) => setCreateGroups(event.target.checked)} />
+          <input
+            type="checkbox"
+            className="h-5 w-5 accent-tide"
+            checked={createGroups}
+            onChange={(event) => setCreateGroups(event.target.checked)}
+          />
           Create {newGroups.length === 1 ? "the new group" : "the new groups"} {newGroups.map((group) => `“${group}”`).join(", ")}
         </label>
       )}

@@ -10,5 +10,8 @@ export function startSearch(request: SetFinderRequest) {
 
 export function useStartSearch() {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: startSearch, onSuccess: () => queryClient.invalidateQueries({ queryKey: recentSearchesQueryOptions().queryKey }) });
+  return useMutation({
+    mutationFn: startSearch,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: recentSearchesQueryOptions().queryKey }),
+  });
 }

@@ -3,12 +3,14 @@ import type { FinderFaceValues } from "@shared/schemas/set-finder";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { TextField } from "@/components/ui/text-field";
 
-type FaceValuesErrors = {
-  message?: string;
-  min?: { message?: string };
-  max?: { message?: string };
-  values?: { message?: string; root?: { message?: string }; [index: number]: { message?: string } | undefined };
-} | undefined;
+type FaceValuesErrors =
+  | {
+      message?: string;
+      min?: { message?: string };
+      max?: { message?: string };
+      values?: { message?: string; root?: { message?: string }; [index: number]: { message?: string } | undefined };
+    }
+  | undefined;
 
 function numberOrNaN(text: string) {
   const trimmed = text.trim();
@@ -16,16 +18,38 @@ function numberOrNaN(text: string) {
 }
 
 /** The face values the dice may carry: a range (smallest to largest) or a typed list; both drafts are kept while switching. */
-export function FaceValuesField({ value, onChange, error }: { value: FinderFaceValues; onChange: (value: FinderFaceValues) => void; error: FaceValuesErrors }) {
-  const [rangeText, setRangeText] = useState(() => (value.kind === "range" ? { min: String(value.min), max: String(value.max) } : { min: "1", max: "9" }));
+export function FaceValuesField({
+  value,
+  onChange,
+  error,
+}: {
+  value: FinderFaceValues;
+  onChange: (value: FinderFaceValues) => void;
+  error: FaceValuesErrors;
+}) {
+  const [rangeText, setRangeText] = useState(() =>
+    value.kind === "range" ? { min: String(value.min), max: String(value.max) } : { min: "1", max: "9" },
+  );
   const [listText, setListText] = useState(() => (value.kind === "list" ? value.values.join(", ") : "1, 2, 3, 4, 5, 6, 7, 8, 9"));
-  const fromList = (text: string): FinderFaceValues => ({ kind: "list", values: text.split(/[\s,;]+/).filter(Boolean).map(numberOrNaN) });
-  const fromRange = (text: { min: string; max: string }): FinderFaceValues => ({ kind: "range", min: numberOrNaN(text.min), max: numberOrNaN(text.max) });
+  const fromList = (text: string): FinderFaceValues => ({
+    kind: "list",
+    values: text
+      .split(/[\s,;]+/)
+      .filter(Boolean)
+      .map(numberOrNaN),
+  });
+  const fromRange = (text: { min: string; max: string }): FinderFaceValues => ({
+    kind: "range",
+    min: numberOrNaN(text.min),
+    max: numberOrNaN(text.max),
+  });
   const listErrors =
     value.kind === "list" && error?.values
       ? [
           error.values.message ?? error.values.root?.message,
-          ...value.values.map((_, index) => (error.values?.[index]?.message ? `Value ${index + 1}: ${error.values[index]!.message}` : undefined)),
+          ...value.values.map((_, index) =>
+            error.values?.[index]?.message ? `Value ${index + 1}: ${error.values[index]!.message}` : undefined,
+          ),
         ].filter((message): message is string => Boolean(message))
       : [];
 

@@ -45,10 +45,20 @@ const defaults: SetFinderRequestInput = {
 };
 
 /** What the teacher wants from the Set finder, in plain words; the shared schema checks it here and on the server. */
-export function SetFinderForm({ onSearch, busy, disabled }: { onSearch: (request: SetFinderRequest) => void; busy: boolean; disabled: boolean }) {
+export function SetFinderForm({
+  onSearch,
+  busy,
+  disabled,
+}: {
+  onSearch: (request: SetFinderRequest) => void;
+  busy: boolean;
+  disabled: boolean;
+}) {
   const { control, register, handleSubmit, formState } = useForm<SetFinderRequestInput, unknown, SetFinderRequest>({
     // Fills in a plain message where the schema gives none (a box left empty or not a number).
-    resolver: zodResolver(setFinderRequestSchema, { error: (issue) => (issue.code === "invalid_type" ? "Enter a whole number." : undefined) }),
+    resolver: zodResolver(setFinderRequestSchema, {
+      error: (issue) => (issue.code === "invalid_type" ? "Enter a whole number." : undefined),
+    }),
     mode: "onChange",
     defaultValues: defaults,
   });
@@ -73,7 +83,11 @@ export function SetFinderForm({ onSearch, busy, disabled }: { onSearch: (request
         control={control}
         name="faceValues"
         render={({ field, fieldState }) => (
-          <FaceValuesField value={field.value} onChange={field.onChange} error={fieldState.error as Parameters<typeof FaceValuesField>[0]["error"]} />
+          <FaceValuesField
+            value={field.value}
+            onChange={field.onChange}
+            error={fieldState.error as Parameters<typeof FaceValuesField>[0]["error"]}
+          />
         )}
       />
       <Controller
@@ -141,7 +155,17 @@ export function SetFinderForm({ onSearch, busy, disabled }: { onSearch: (request
   );
 }
 
-function RadioList<T extends string>({ legend, value, onChange, options }: { legend: string; value: T; onChange: (value: T) => void; options: { value: T; label: string }[] }) {
+function RadioList<T extends string>({
+  legend,
+  value,
+  onChange,
+  options,
+}: {
+  legend: string;
+  value: T;
+  onChange: (value: T) => void;
+  options: { value: T; label: string }[];
+}) {
   const name = useId();
   return (
     <fieldset className="min-w-0">
@@ -152,7 +176,13 @@ function RadioList<T extends string>({ legend, value, onChange, options }: { leg
             key={option.value}
             className={`flex cursor-pointer items-start gap-3 rounded-xl border-2 px-3 py-2 ${option.value === value ? "border-tide bg-tide-light" : "border-line bg-white"}`}
           >
-            <input type="radio" name={name} className="mt-1 h-4 w-4 shrink-0 accent-tide" checked={option.value === value} onChange={() => onChange(option.value)} />
+            <input
+              type="radio"
+              name={name}
+              className="mt-1 h-4 w-4 shrink-0 accent-tide"
+              checked={option.value === value}
+              onChange={() => onChange(option.value)}
+            />
             <span>{option.label}</span>
           </label>
         ))}

@@ -61,7 +61,10 @@ export function SetFinderScreen() {
 
   return (
     <>
-      <PageHeader title="Set finder" lead="Describe the dice set you need; Outroll searches for sets that do it, checks each one exactly and ranks them." />
+      <PageHeader
+        title="Set finder"
+        lead="Describe the dice set you need; Outroll searches for sets that do it, checks each one exactly and ranks them."
+      />
       <div className="grid min-w-0 gap-6 lg:grid-cols-[minmax(0,28rem)_minmax(0,1fr)]">
         <section aria-labelledby="finder-request-heading" className="min-w-0">
           <h2 id="finder-request-heading" className="mb-3 text-2xl">
@@ -108,7 +111,9 @@ export function SetFinderScreen() {
               />
               <p className="text-sm text-ink-soft">
                 {examinedText(job)}
-                {job.results.length > 0 ? ` · ${job.results.length} ${job.results.length === 1 ? "set" : "sets"} found${running ? " so far" : ""}` : ""}
+                {job.results.length > 0
+                  ? ` · ${job.results.length} ${job.results.length === 1 ? "set" : "sets"} found${running ? " so far" : ""}`
+                  : ""}
               </p>
               {active && (
                 <Button variant="danger" className="w-fit" busy={cancel.isPending} onClick={() => cancel.mutate(job.id)}>
@@ -118,12 +123,15 @@ export function SetFinderScreen() {
               {job.status === "finished" && (
                 <p role="status" className="font-bold">
                   ✓ Finished: {job.results.length} {job.results.length === 1 ? "set" : "sets"} found.{" "}
-                  {job.complete ? "Every candidate was checked, so these are the best sets there are." : "The search stopped at its time limit; these are the best it found."}
+                  {job.complete
+                    ? "Every candidate was checked, so these are the best sets there are."
+                    : "The search stopped at its time limit; these are the best it found."}
                 </p>
               )}
               {job.status === "cancelled" && (
                 <p role="status" className="font-bold">
-                  Search cancelled after examining {Math.round(job.progress.fraction * 100)}% of the candidates. {job.results.length > 0 ? "The sets found before it stopped are listed below." : "No set had been found yet."}
+                  Search cancelled after examining {Math.round(job.progress.fraction * 100)}% of the candidates.{" "}
+                  {job.results.length > 0 ? "The sets found before it stopped are listed below." : "No set had been found yet."}
                 </p>
               )}
               {job.status === "failed" && (

@@ -32,13 +32,34 @@ const tabbedEdges: { from: Point; to: Point; out: Point }[] = [
 
 /** Outer edges cut straight, with no tab. */
 const plainEdges: [Point, Point][] = [
-  [[0, 1], [1, 1]],
-  [[0, 1], [0, 2]],
-  [[2, 1], [3, 1]],
-  [[3, 1], [3, 2]],
-  [[1, 2], [1, 3]],
-  [[2, 2], [2, 3]],
-  [[1, 4], [2, 4]],
+  [
+    [0, 1],
+    [1, 1],
+  ],
+  [
+    [0, 1],
+    [0, 2],
+  ],
+  [
+    [2, 1],
+    [3, 1],
+  ],
+  [
+    [3, 1],
+    [3, 2],
+  ],
+  [
+    [1, 2],
+    [1, 3],
+  ],
+  [
+    [2, 2],
+    [2, 3],
+  ],
+  [
+    [1, 4],
+    [2, 4],
+  ],
 ];
 
 const mm = ([column, row]: Point): Point => [column * side, row * side];
@@ -50,7 +71,21 @@ export function faceFontSize(value: number, faceSize: number) {
 }
 
 /** One printed face: the value large (6 and 9 underlined so they read the right way up), the die's name, and its pattern band. */
-export function PrintedFace({ x, y, size, value, die, patternId }: { x: number; y: number; size: number; value: number; die: SetDie; patternId: string }) {
+export function PrintedFace({
+  x,
+  y,
+  size,
+  value,
+  die,
+  patternId,
+}: {
+  x: number;
+  y: number;
+  size: number;
+  value: number;
+  die: SetDie;
+  patternId: string;
+}) {
   const fontSize = faceFontSize(value, size);
   const band = size * 0.15;
   const underline = value === 6 || value === 9;
@@ -62,8 +97,25 @@ export function PrintedFace({ x, y, size, value, die, patternId }: { x: number; 
       <text x={x + size / 2} y={y + size * 0.47 + fontSize * 0.36} textAnchor="middle" fontSize={fontSize} fontWeight="700" fill="#12263a">
         {value}
       </text>
-      {underline && <line x1={x + size * 0.38} x2={x + size * 0.62} y1={y + size * 0.73} y2={y + size * 0.73} stroke="#12263a" strokeWidth={size * 0.03} />}
-      <rect x={x + size * 0.06} y={y + size - band - size * 0.06} width={size * 0.88} height={band} fill={`url(#${patternId})`} stroke="#12263a" strokeWidth="0.2" />
+      {underline && (
+        <line
+          x1={x + size * 0.38}
+          x2={x + size * 0.62}
+          y1={y + size * 0.73}
+          y2={y + size * 0.73}
+          stroke="#12263a"
+          strokeWidth={size * 0.03}
+        />
+      )}
+      <rect
+        x={x + size * 0.06}
+        y={y + size - band - size * 0.06}
+        width={size * 0.88}
+        height={band}
+        fill={`url(#${patternId})`}
+        stroke="#12263a"
+        strokeWidth="0.2"
+      />
     </g>
   );
 }
@@ -93,11 +145,31 @@ export function CubeNet({ die }: { die: SetDie }) {
         const inset = 4;
         const a: Point = [x1 + out[0] * tab + along[0] * inset, y1 + out[1] * tab + along[1] * inset];
         const b: Point = [x2 + out[0] * tab - along[0] * inset, y2 + out[1] * tab - along[1] * inset];
-        return <path key={index} d={`M${x1} ${y1} L${a[0]} ${a[1]} L${b[0]} ${b[1]} L${x2} ${y2}`} fill="#e5e7eb" stroke="#12263a" strokeWidth="0.35" />;
+        return (
+          <path
+            key={index}
+            d={`M${x1} ${y1} L${a[0]} ${a[1]} L${b[0]} ${b[1]} L${x2} ${y2}`}
+            fill="#e5e7eb"
+            stroke="#12263a"
+            strokeWidth="0.35"
+          />
+        );
       })}
       {cells.map((cell, index) => {
         const [x, y] = mm(cell);
-        return <rect key={index} x={x} y={y} width={side} height={side} fill="#ffffff" stroke="#12263a" strokeWidth="0.3" strokeDasharray="1.5 1" />;
+        return (
+          <rect
+            key={index}
+            x={x}
+            y={y}
+            width={side}
+            height={side}
+            fill="#ffffff"
+            stroke="#12263a"
+            strokeWidth="0.3"
+            strokeDasharray="1.5 1"
+          />
+        );
       })}
       {plainEdges.map(([from, to], index) => {
         const [x1, y1] = mm(from);

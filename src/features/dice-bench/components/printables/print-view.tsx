@@ -40,7 +40,10 @@ export function PrintView({ set, kind, paper, plan }: { set: DiceSet; kind: Prin
   const [rollsText, setRollsText] = useState(String(plan.rolls));
   const choose = (next: { kind?: PrintKind; paper?: PaperSize } & Partial<RecordingSheetPlan>) => {
     const sheet = { ...plan, ...next };
-    navigate(`?kind=${next.kind ?? kind}&paper=${next.paper ?? paper}&rolls=${sheet.rolls}&players=${sheet.players}&dice=${sheet.dicePerPlayer}`, { replace: true });
+    navigate(
+      `?kind=${next.kind ?? kind}&paper=${next.paper ?? paper}&rolls=${sheet.rolls}&players=${sheet.players}&dice=${sheet.dicePerPlayer}`,
+      { replace: true },
+    );
   };
   const rollsValue = Number(rollsText);
   const rollsValid = Number.isInteger(rollsValue) && rollsValue >= 1 && rollsValue <= RECORDING_SHEET_ROWS_MAX;
@@ -52,7 +55,11 @@ export function PrintView({ set, kind, paper, plan }: { set: DiceSet; kind: Prin
       <div className="no-print">
         <PageHeader
           title="Dice bench"
-          lead={<>Print &ldquo;{set.name}&rdquo;: {kind === "nets" ? "dice to cut out" : "a group recording sheet"}, {paperNames[paper]}.</>}
+          lead={
+            <>
+              Print &ldquo;{set.name}&rdquo;: {kind === "nets" ? "dice to cut out" : "a group recording sheet"}, {paperNames[paper]}.
+            </>
+          }
           actions={
             <>
               <Button onClick={() => window.print()}>Print…</Button>
@@ -142,7 +149,10 @@ export function PrintView({ set, kind, paper, plan }: { set: DiceSet; kind: Prin
             {others.length > 0 && (
               <section className="print-page flex flex-col gap-[4mm] bg-white p-4 print:p-0" aria-label="Face cards">
                 <PageTitle set={set} />
-                <p className="text-sm">These dice do not have six faces: cut out the cards and draw one from a bag (put it back each time), or stick them round a spinner.</p>
+                <p className="text-sm">
+                  These dice do not have six faces: cut out the cards and draw one from a bag (put it back each time), or stick them round a
+                  spinner.
+                </p>
                 {others.map((die) => (
                   <figure key={die.name} className="flex flex-col gap-[1mm]">
                     <DieCaption die={die} />

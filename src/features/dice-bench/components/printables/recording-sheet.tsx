@@ -23,10 +23,16 @@ export function RecordingSheet({ set, plan }: { set: DiceSet; plan: RecordingShe
             <div>
               <h2 className="text-2xl">
                 Our dice results · {set.name}
-                {pages.length > 1 && <span className="text-base font-normal"> · page {pageIndex + 1} of {pages.length}</span>}
+                {pages.length > 1 && (
+                  <span className="text-base font-normal">
+                    {" "}
+                    · page {pageIndex + 1} of {pages.length}
+                  </span>
+                )}
               </h2>
               <p className="text-sm">
-                {plan.players === 3 ? "Three" : "Two"} players, {plan.dicePerPlayer === 1 ? "one die each" : "two dice each: add your two numbers"}. Write one line for every roll.
+                {plan.players === 3 ? "Three" : "Two"} players,{" "}
+                {plan.dicePerPlayer === 1 ? "one die each" : "two dice each: add your two numbers"}. Write one line for every roll.
               </p>
             </div>
             <p className="text-lg">
@@ -82,7 +88,8 @@ export function RecordingSheet({ set, plan }: { set: DiceSet; plan: RecordingShe
             </tbody>
           </table>
           <p className="text-xs text-ink-soft">
-            Outroll · for the teacher: type this sheet into the run&rsquo;s tally grid, or as Paper import CSV rows (group, roll, die_1, faces_1, die_2, faces_2
+            Outroll · for the teacher: type this sheet into the run&rsquo;s tally grid, or as Paper import CSV rows (group, roll, die_1,
+            faces_1, die_2, faces_2
             {plan.players === 3 ? ", die_3, faces_3" : ""}).
           </p>
         </article>
