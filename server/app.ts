@@ -1,3 +1,4 @@
+import { randomUUID } from "node:crypto";
 import { existsSync } from "node:fs";
 import type { ServerResponse } from "node:http";
 import express from "express";
@@ -67,7 +68,9 @@ export function createApp(options: AppOptions = {}) {
 
   // Counted in PostgreSQL, so every app process behind the proxy refuses the same address after the same attempts.
   const signInLimit = options.signInLimitPerMinute ?? env.SIGN_IN_LIMIT_PER_MINUTE;
-  const signInCounts = sharedLimiter({ keyPrefix: `sign-in-${signInLimit}`, points: signInLimit, duration: 60 });
+  // An app given its own limit (a test's) counts apart from every other app, so tests running at once never share a count.
+  const signInPrefix = options.signInLimitPerMinute === undefined ? `sign-in-${signInLimit}` : `sign-in-${signInLimit}-${randomUUID()}`;
+  const signInCounts = sharedLimiter({ keyPrefix: signInPrefix, points: signInLimit, duration: 60 });
   const signInLimiter: express.RequestHandler = (req, res, next) => {
     signInCounts.consume(req.ip ?? "unknown").then(
       (counted) => {
