@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import Fraction from "fraction.js";
 import { compareDice } from "@shared/probability/index";
 import type { SetFinderJob, SetFinderRequestInput } from "@shared/schemas/set-finder";
@@ -21,14 +21,18 @@ const smallSearch: SetFinderRequestInput = {
   timeBudgetSeconds: 30,
 };
 
+/** The search's state once `done` holds; fails the test if it does not within `seconds`. */
 async function pollUntil(agent: HttpAgent, id: string, done: (job: SetFinderJob) => boolean, seconds = 40): Promise<SetFinderJob> {
-  const until = Date.now() + seconds * 1000;
-  for (;;) {
-    const response = await agent.get(`/api/set-finder/searches/${id}`);
-    expect(response.status).toBe(200);
-    if (done(response.body) || Date.now() > until) return response.body;
-    await new Promise((resolve) => setTimeout(resolve, 150));
-  }
+  return vi.waitFor(
+    async () => {
+      const response = await agent.get(`/api/set-finder/searches/${id}`);
+      expect(response.status).toBe(200);
+      const job = response.body as SetFinderJob;
+      if (!done(job)) throw new Error(`search ${id} is still ${job.status} after ${seconds} s`);
+      return job;
+    },
+    { timeout: seconds * 1000, interval: 150 },
+  );
 }
 
 beforeAll(async () => {
