@@ -1,5 +1,5 @@
 import Fraction from "fraction.js";
-import { useId, useMemo } from "react";
+import { useId, useMemo, type ReactNode } from "react";
 import {
   fractionToString,
   type GroupedTree,
@@ -121,6 +121,45 @@ function branchWinChance(branch: TreeDiagram["branches"][number]): Fraction {
  * branch probabilities, then the second's, each leaf with its product probability and outcome (★ win, = tie, ✗ loss,
  * winning leaves filled), and the totals per outcome. Too many leaves for the look, and only the first stage is drawn.
  */
+/** A leaf's value in its box, filled dark when the first die wins there: the same in the full and the grouped tree. */
+function LeafBox({
+  x,
+  y,
+  halfWidth,
+  fontSize,
+  font,
+  won,
+  colours,
+  children,
+}: {
+  x: number;
+  y: number;
+  halfWidth: number;
+  fontSize: number;
+  font: number;
+  won: boolean;
+  colours: Look["colours"];
+  children: ReactNode;
+}) {
+  return (
+    <>
+      <rect
+        x={x - halfWidth}
+        y={y - 10 * font}
+        width={halfWidth * 2}
+        height={20 * font}
+        rx="4"
+        fill={won ? colours.winFill : colours.leafFill}
+        stroke={colours.ink}
+        strokeWidth="1.25"
+      />
+      <text x={x} y={y + 4.5 * font} textAnchor="middle" fontSize={fontSize} fontWeight="700" fill={won ? colours.winInk : colours.ink}>
+        {children}
+      </text>
+    </>
+  );
+}
+
 export function TreeDiagramFigure({
   tree,
   first,
@@ -233,26 +272,9 @@ export function TreeDiagramFigure({
                     <text x={leafLabel.x} y={leafLabel.y - 3} textAnchor="middle" fontSize={size(10)} fill={colours.soft} {...haloText}>
                       {fractionToString(leaf.branchProbability)}
                     </text>
-                    <rect
-                      x={x.leaf - size(13)}
-                      y={leafY - size(10)}
-                      width={size(26)}
-                      height={size(20)}
-                      rx="4"
-                      fill={won ? colours.winFill : colours.leafFill}
-                      stroke={colours.ink}
-                      strokeWidth="1.25"
-                    />
-                    <text
-                      x={x.leaf}
-                      y={leafY + size(4.5)}
-                      textAnchor="middle"
-                      fontSize={size(12)}
-                      fontWeight="700"
-                      fill={won ? colours.winInk : colours.ink}
-                    >
+                    <LeafBox x={x.leaf} y={leafY} halfWidth={size(13)} fontSize={size(12)} font={font} won={won} colours={colours}>
                       {leaf.value}
-                    </text>
+                    </LeafBox>
                     <text x={x.product} y={leafY + size(4.5)} fontSize={size(12)} fill={colours.ink} fontWeight={won ? 700 : 400}>
                       {fractionToString(leaf.probability)}
                       <tspan dx="8">
@@ -426,26 +448,9 @@ export function GroupedTreeFigure({
                       {middle.label}, {leaf.label}: {fractionToString(middle.chance)} × {fractionToString(leaf.chance)} ={" "}
                       {fractionToString(leaf.path)}
                     </title>
-                    <rect
-                      x={x.leaf - half}
-                      y={leafY - size(10)}
-                      width={half * 2}
-                      height={size(20)}
-                      rx="4"
-                      fill={won ? colours.winFill : colours.leafFill}
-                      stroke={colours.ink}
-                      strokeWidth="1.25"
-                    />
-                    <text
-                      x={x.leaf}
-                      y={leafY + size(4.5)}
-                      textAnchor="middle"
-                      fontSize={size(11)}
-                      fontWeight="700"
-                      fill={won ? colours.winInk : colours.ink}
-                    >
+                    <LeafBox x={x.leaf} y={leafY} halfWidth={half} fontSize={size(11)} font={font} won={won} colours={colours}>
                       {leaf.label}
-                    </text>
+                    </LeafBox>
                     <text x={x.product} y={leafY + size(4.5)} fontSize={size(12)} fill={colours.ink} fontWeight={won ? 700 : 400}>
                       {fractionToString(leaf.path)}
                       {grouping === "total" && <tspan dx="8">{outcomeMarks[leaf.outcome].word}</tspan>}
